@@ -1,0 +1,21 @@
+/**
+ * The database URL, defaulting to the embedded SQLite file so a fresh clone works with no setup.
+ * Shared by the Prisma CLI (prisma.config.ts), the app and the scripts; relative file: paths are
+ * resolved against the project root so every tool opens the same file whatever its working directory.
+ */
+import path from "node:path";
+
+export const DEFAULT_DATABASE_URL = "file:./data/coilyard.db";
+
+export function databaseUrl(env: NodeJS.ProcessEnv = process.env): string {
+  const raw = env.DATABASE_URL?.trim() || DEFAULT_DATABASE_URL;
+  if (!raw.startsWith("file:")) return raw;
+  const file = raw.slice("file:".length);
+  return "file:" + (path.isAbsolute(file) ? file : path.resolve(process.cwd(), file));
+}
+
+/** The filesystem path of an SQLite URL. */
+export function sqliteFilePath(url: string = databaseUrl()): string {
+  if (!url.startsWith("file:")) throw new Error(`Not an SQLite file URL: ${url}`);
+  return url.slice("file:".length);
+}
