@@ -1,0 +1,34 @@
+import Link from "next/link";
+import { redirect } from "next/navigation";
+import { getCurrentUser } from "@/lib/auth/session";
+import { MainNav } from "@/app/ui/main-nav";
+import { SignOutButton } from "@/app/ui/sign-out-button";
+
+export default async function AppLayout({ children }: { children: React.ReactNode }) {
+  const user = await getCurrentUser();
+  if (!user) redirect("/sign-in");
+  return (
+    <>
+      <a className="skip-link" href="#main">
+        Skip to content
+      </a>
+      <header className="site-header">
+        <Link href="/" className="brand">
+          Coil<span>yard</span>
+        </Link>
+        <MainNav showAdmin={user.role === "admin"} />
+        <div className="user-menu">
+          <span>
+            {user.name} · <span className="badge badge-neutral">{user.role}</span>
+          </span>
+          <SignOutButton />
+        </div>
+      </header>
+      <main id="main">{children}</main>
+      <footer className="site-footer">
+        High voltage and RF: follow your local codes, venue rules and licensed practice. Coilyard records the team&apos;s checks; it
+        does not certify any build as safe.
+      </footer>
+    </>
+  );
+}

@@ -1,0 +1,7 @@
+export default function Loading() {
+  return (
+    <p aria-live="polite" className="muted">
+      Loading…
+    </p>
+  );
+}

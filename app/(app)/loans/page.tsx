@@ -1,0 +1,76 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { pageUser } from "@/app/ui/page-guard";
+import { listLoans } from "@/lib/db/loans";
+import { loanListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
+import { formatDate } from "@/lib/units/format";
+import { Pagination } from "@/app/ui/pagination";
+
+export const metadata: Metadata = { title: "Loans" };
+
+export default async function LoansPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
+  await pageUser();
+  const query = loanListQuerySchema.parse(await searchParams);
+  const result = await listLoans({ state: query.state }, { page: query.page });
+  const now = new Date();
+  return (
+    <>
+      <h1>Loans</h1>
+      <form className="filters" method="get" aria-label="Filter loans">
+        <div className="field">
+          <label htmlFor="state">Show</label>
+          <select id="state" name="state" defaultValue={query.state}>
+            <option value="all">All loans</option>
+            <option value="out">Out now</option>
+            <option value="returned">Returned</option>
+          </select>
+        </div>
+        <button type="submit">Apply</button>
+      </form>
+      <div className="table-wrap">
+        <table>
+          <caption>{result.total} loan{result.total === 1 ? "" : "s"}</caption>
+          <thead>
+            <tr>
+              <th scope="col">Coil</th>
+              <th scope="col">Borrower</th>
+              <th scope="col">Event</th>
+              <th scope="col">Out</th>
+              <th scope="col">Expected back</th>
+              <th scope="col">Returned</th>
+              <th scope="col">State</th>
+            </tr>
+          </thead>
+          <tbody>
+            {result.rows.map((loan) => {
+              const overdue = !loan.returnedAt && loan.expectedBackAt < now;
+              return (
+                <tr key={loan.id}>
+                  <td>
+                    <Link href={`/coils/${encodeURIComponent(loan.coil.tag)}`}>{loan.coil.tag}</Link>
+                  </td>
+                  <td>{loan.borrower}</td>
+                  <td>{loan.event}</td>
+                  <td>{formatDate(loan.outAt)}</td>
+                  <td>{formatDate(loan.expectedBackAt)}</td>
+                  <td>{formatDate(loan.returnedAt)}</td>
+                  <td>
+                    <span className={`badge badge-${loan.returnedAt ? "closed" : overdue ? "overdue" : "out"}`}>
+                      {loan.returnedAt ? "Returned" : overdue ? "Overdue" : "Out"}
+                    </span>
+                  </td>
+                </tr>
+              );
+            })}
+            {result.rows.length === 0 && (
+              <tr>
+                <td colSpan={7}>No loans to show.</td>
+              </tr>
+            )}
+          </tbody>
+        </table>
+      </div>
+      <Pagination basePath="/loans" params={{ state: query.state }} page={result.page} pageCount={result.pageCount} total={result.total} />
+    </>
+  );
+}

@@ -1,0 +1,35 @@
+"use client";
+
+import Link from "next/link";
+import { usePathname } from "next/navigation";
+
+const AREAS = [
+  { href: "/", label: "Fleet" },
+  { href: "/coils", label: "Coils" },
+  { href: "/sweeps", label: "Sweeps" },
+  { href: "/sessions", label: "Sessions" },
+  { href: "/failures", label: "Failures" },
+  { href: "/loans", label: "Loans" },
+];
+
+function isCurrent(pathname: string, href: string): boolean {
+  return href === "/" ? pathname === "/" : pathname === href || pathname.startsWith(href + "/");
+}
+
+export function MainNav({ showAdmin }: { showAdmin: boolean }) {
+  const pathname = usePathname();
+  const areas = showAdmin ? [...AREAS, { href: "/admin", label: "Admin" }] : AREAS;
+  return (
+    <nav className="main-nav" aria-label="Main">
+      <ul>
+        {areas.map((area) => (
+          <li key={area.href}>
+            <Link href={area.href} aria-current={isCurrent(pathname, area.href) ? "page" : undefined}>
+              {area.label}
+            </Link>
+          </li>
+        ))}
+      </ul>
+    </nav>
+  );
+}

@@ -1,0 +1,33 @@
+/** Checking a sign-in attempt: throttle, then password, then account state. */
+import { findUserForSignIn, markSignedIn } from "../db/users";
+import { clearThrottle, getThrottle, saveThrottle } from "../db/sign-in-throttle";
+import { activeFailures, delayBeforeAttemptMs, isLocked, recordFailure } from "./throttle-policy";
+import { DUMMY_HASH, verifyPassword } from "./password";
+
+export type SignInOutcome =
+  | { ok: true; user: { id: string; email: string; name: string } }
+  | { ok: false; message: string };
+
+const WRONG = "That e-mail address and password do not match an active account.";
+
+export async function attemptSignIn(email: string, password: string, lockMinutes: number): Promise<SignInOutcome> {
+  const key = `email:${email.trim().toLowerCase()}`;
+  const now = new Date();
+  const throttle = await getThrottle(key);
+  if (isLocked(throttle, now)) {
+    const minutes = Math.ceil((throttle!.lockedUntil!.getTime() - now.getTime()) / 60_000);
+    return { ok: false, message: `Too many failed sign-ins for this account. Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.` };
+  }
+  const delay = delayBeforeAttemptMs(activeFailures(throttle, now));
+  if (delay > 0) await new Promise((resolve) => setTimeout(resolve, delay));
+
+  const user = await findUserForSignIn(email);
+  const passwordOk = await verifyPassword(password, user?.passwordHash ?? DUMMY_HASH);
+  if (!user || !passwordOk || !user.active) {
+    await saveThrottle(key, recordFailure(throttle, new Date(), lockMinutes));
+    return { ok: false, message: WRONG };
+  }
+  await clearThrottle(key);
+  await markSignedIn(user.id);
+  return { ok: true, user: { id: user.id, email: user.email, name: user.name } };
+}

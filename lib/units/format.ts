@@ -1,0 +1,56 @@
+/**
+ * Formatting engineering quantities and times for display. SI prefixes with three significant
+ * figures by default ("321 kHz", "2.20 nF", "47.0 kΩ"). Hand-written because it is a dozen lines and
+ * the prefix table is fixed by the SI brochure; a units library would add weight without adding anything.
+ */
+const PREFIXES: ReadonlyArray<readonly [number, string]> = [
+  [1e12, "T"], [1e9, "G"], [1e6, "M"], [1e3, "k"], [1, ""], [1e-3, "m"], [1e-6, "µ"], [1e-9, "n"], [1e-12, "p"], [1e-15, "f"],
+];
+
+export function formatQuantity(value: number | null | undefined, unit: string, significant = 3): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
+  if (value === 0) return `0 ${unit}`;
+  const magnitude = Math.abs(value);
+  const [scale, prefix] = PREFIXES.find(([s]) => magnitude >= s * 0.9995) ?? PREFIXES[PREFIXES.length - 1]!;
+  return `${Number((value / scale).toPrecision(significant))} ${prefix}${unit}`;
+}
+
+/** A plain number with fixed decimals, or a dash. */
+export function formatNumber(value: number | null | undefined, decimals = 1, unit = ""): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
+  return `${value.toFixed(decimals)}${unit ? ` ${unit}` : ""}`;
+}
+
+export function formatPercent(fraction: number | null | undefined, decimals = 0): string {
+  if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return "—";
+  return `${(fraction * 100).toFixed(decimals)} %`;
+}
+
+export function formatTemperature(celsius: number | null | undefined): string {
+  return formatNumber(celsius, 1, "°C");
+}
+
+/** Duration in s as "1 h 05 min", "12 min 30 s" or "45 s". */
+export function formatDuration(seconds: number | null | undefined): string {
+  if (seconds === null || seconds === undefined || !Number.isFinite(seconds)) return "—";
+  const s = Math.round(seconds);
+  const h = Math.floor(s / 3600);
+  const m = Math.floor((s % 3600) / 60);
+  const rest = s % 60;
+  if (h > 0) return `${h} h ${String(m).padStart(2, "0")} min`;
+  if (m > 0) return rest ? `${m} min ${String(rest).padStart(2, "0")} s` : `${m} min`;
+  return `${rest} s`;
+}
+
+const dateFormat = new Intl.DateTimeFormat("en-CA", { year: "numeric", month: "2-digit", day: "2-digit" });
+const timeFormat = new Intl.DateTimeFormat("en-GB", { hour: "2-digit", minute: "2-digit", hour12: false });
+
+/** "2026-12-02" in the server's time zone (the lab's, in a normal deployment). */
+export function formatDate(date: Date | null | undefined): string {
+  return date ? dateFormat.format(date) : "—";
+}
+
+/** "2026-12-02 14:05". */
+export function formatDateTime(date: Date | null | undefined): string {
+  return date ? `${dateFormat.format(date)} ${timeFormat.format(date)}` : "—";
+}

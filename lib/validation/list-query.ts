@@ -1,0 +1,47 @@
+/**
+ * Query-string schemas for the list pages. A bad or hostile query string falls back to defaults
+ * (catch) instead of breaking the page: lists are for reading, not for error messages.
+ */
+import { z } from "zod";
+
+const first = (v: unknown) => (Array.isArray(v) ? v[0] : v);
+const optionalText = z.preprocess(first, z.string().trim().max(100).optional().catch(undefined));
+const page = z.preprocess(first, z.coerce.number().int().min(1).max(100_000).catch(1).default(1));
+
+export const coilListQuerySchema = z.object({
+  q: optionalText,
+  status: z.preprocess(first, z.enum(["active", "repair", "retired"]).optional().catch(undefined)),
+  sort: z.preprocess(first, z.enum(["tag", "name", "updated"]).catch("tag").default("tag")),
+  page,
+});
+
+export const sessionListQuerySchema = z.object({
+  q: optionalText,
+  coil: optionalText,
+  outcome: z.preprocess(first, z.enum(["normal", "stopped", "anomaly", "failed"]).optional().catch(undefined)),
+  sort: z.preprocess(first, z.enum(["newest", "oldest", "voltage", "current", "duration"]).catch("newest").default("newest")),
+  page,
+});
+
+export const sweepListQuerySchema = z.object({
+  coil: optionalText,
+  sort: z.preprocess(first, z.enum(["newest", "oldest", "frequency"]).catch("newest").default("newest")),
+  page,
+});
+
+export const failureListQuerySchema = z.object({
+  q: optionalText,
+  status: z.preprocess(first, z.enum(["open", "closed"]).optional().catch(undefined)),
+  mode: z.preprocess(
+    first,
+    z.enum(["over_voltage", "over_current", "over_temperature", "reverse_base_breakdown", "mechanical", "unknown"]).optional().catch(undefined),
+  ),
+  page,
+});
+
+export const loanListQuerySchema = z.object({
+  state: z.preprocess(first, z.enum(["out", "returned", "all"]).catch("all").default("all")),
+  page,
+});
+
+export type SearchParams = Record<string, string | string[] | undefined>;
