@@ -11,7 +11,7 @@ export function databaseUrl(env: NodeJS.ProcessEnv = process.env): string {
   const raw = env.DATABASE_URL?.trim() || DEFAULT_DATABASE_URL;
   if (!raw.startsWith("file:")) return raw;
   const file = raw.slice("file:".length);
-  return "file:" + (path.isAbsolute(file) ? file : path.resolve(process.cwd(), file));
+  return "file:" + (path.isAbsolute(file) ? file : path.resolve(/* turbopackIgnore: true */ process.cwd(), file));
 }
 
 /** The filesystem path of an SQLite URL. */

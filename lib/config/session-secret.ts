@@ -7,7 +7,7 @@ import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from "n
 import path from "node:path";
 
 export function loadOrCreateSessionSecret(dataDir: string): string {
-  const file = path.resolve(dataDir, ".session-secret");
+  const file = path.resolve(/* turbopackIgnore: true */ dataDir, ".session-secret");
   if (existsSync(file)) {
     const stored = readFileSync(file, "utf8").trim();
     if (stored.length >= 32) return stored;
