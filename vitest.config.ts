@@ -1,10 +1,12 @@
 import { defineConfig } from "vitest/config";
 import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { INTEGRATION_DB_FILE } from "./test/support/paths";
 
 // Two projects: the pure engineering/unit tests beside lib/ code, and integration tests in test/
 // against a real SQLite file built from the committed migrations (see test/global-setup.ts).
 export default defineConfig({
-  resolve: { alias: { "@": path.resolve(__dirname) } },
+  resolve: { alias: { "@": fileURLToPath(new URL(".", import.meta.url)) } },
   test: {
     projects: [
       {
@@ -18,6 +20,7 @@ export default defineConfig({
           environment: "node",
           include: ["test/**/*.test.ts"],
           globalSetup: ["test/global-setup.ts"],
+          env: { DATABASE_URL: `file:${INTEGRATION_DB_FILE}`, COILYARD_DATA_DIR: path.dirname(INTEGRATION_DB_FILE) },
           // One SQLite file shared by the integration files: run them one after another.
           fileParallelism: false,
           testTimeout: 20_000,

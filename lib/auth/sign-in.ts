@@ -10,7 +10,14 @@ export type SignInOutcome =
 
 const WRONG = "That e-mail address and password do not match an active account.";
 
-export async function attemptSignIn(email: string, password: string, lockMinutes: number): Promise<SignInOutcome> {
+const sleep = (ms: number) => new Promise<void>((resolve) => setTimeout(resolve, ms));
+
+export async function attemptSignIn(
+  email: string,
+  password: string,
+  lockMinutes: number,
+  options: { wait?: (ms: number) => Promise<void> } = {},
+): Promise<SignInOutcome> {
   const key = `email:${email.trim().toLowerCase()}`;
   const now = new Date();
   const throttle = await getThrottle(key);
@@ -19,7 +26,7 @@ export async function attemptSignIn(email: string, password: string, lockMinutes
     return { ok: false, message: `Too many failed sign-ins for this account. Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.` };
   }
   const delay = delayBeforeAttemptMs(activeFailures(throttle, now));
-  if (delay > 0) await new Promise((resolve) => setTimeout(resolve, delay));
+  if (delay > 0) await (options.wait ?? sleep)(delay);
 
   const user = await findUserForSignIn(email);
   const passwordOk = await verifyPassword(password, user?.passwordHash ?? DUMMY_HASH);
