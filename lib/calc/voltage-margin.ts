@@ -1,0 +1,120 @@
+/**
+ * Voltage margin of the switching transistor for one run session: the collector/drain peak
+ * against the switch's voltage rating (V_CEO / V_DSS / V_CES). Volts throughout.
+ */
+import { DRIVER_TOPOLOGY_LABELS, type DriverTopology } from "./driver-topology";
+import { CalcInputError, requireInRange, requirePositive } from "./errors";
+import { DEFAULT_MARGIN_THRESHOLDS, assessMargin, reportUnknownMargin, requireFiniteOrAbsent, type Margin, type MarginInput } from "./margin";
+
+/**
+ * Peak switch voltage as a multiple of the supply, used only when the peak was not measured.
+ * All are rules of thumb; the real figure depends on layout, leakage inductance and snubbing.
+ */
+export const PEAK_VOLTAGE_FACTORS = {
+  /** Inductive turn-off spike rings an unclamped single switch to about five times its supply (common practice). */
+  singleSwitchUnclamped: 5,
+  /** A diode clamp into a capacitor bled by a resistor to the supply holds it under three times the supply (common practice). */
+  singleSwitchClamped: 2.7,
+  /** Each half of a centre-tapped primary swings the off switch to twice the supply, plus leakage ringing (common practice). */
+  pushPull: 2.5,
+  /** A bridge leg blocks the supply rail plus a small turn-off overshoot (common practice). */
+  bridge: 1.2,
+} as const;
+
+export type PeakVoltageFactors = { [K in keyof typeof PEAK_VOLTAGE_FACTORS]: number };
+
+/** Estimated collector/drain peak (V) from the supply and the topology, with the factor used and why. */
+// Rules of thumb per topology (references.md, "The switching transistor": several times the supply unclamped; common practice).
+export function estimatePeakSwitchVoltage(args: {
+  supplyVoltageV: number;
+  topology: DriverTopology;
+  /** A single-switch driver with a diode clamp into a capacitor bled to the supply. Ignored for other topologies. */
+  clamped?: boolean;
+  factors?: Partial<PeakVoltageFactors>;
+}): { peakVoltageV: number; factor: number; basis: string } {
+  const supply = requirePositive("supplyVoltageV", args.supplyVoltageV);
+  const factors: PeakVoltageFactors = { ...PEAK_VOLTAGE_FACTORS, ...args.factors };
+  const pick = (key: keyof PeakVoltageFactors, basis: string) => {
+    const factor = requireInRange(`factors.${key}`, factors[key], 1, 20);
+    return { peakVoltageV: supply * factor, factor, basis };
+  };
+  switch (args.topology) {
+    case "single_switch":
+      return args.clamped
+        ? pick("singleSwitchClamped", "single switch with a diode clamp into a capacitor bled to the supply")
+        : pick("singleSwitchUnclamped", "unclamped single switch: the turn-off spike rings to several times the supply");
+    case "push_pull":
+      return pick("pushPull", "push-pull on a centre-tapped primary: twice the supply plus leakage ringing");
+    case "half_bridge":
+    case "full_bridge":
+      return pick("bridge", "bridge leg: the supply rail plus a small turn-off overshoot");
+    default:
+      throw new CalcInputError("topology", "single_switch, push_pull, half_bridge or full_bridge", args.topology);
+  }
+}
+
+/**
+ * Voltage margin: measured peak (or an estimate, flagged as such) against the switch's rating.
+ * "Thin" below `thinBelowHeadroom` (default 0.2: Renesas advises staying within 80 % of the rated V_DSS).
+ */
+// Headroom 1 − V_peak/V_rating; 80 % guidance from the Renesas knowledge base (references.md; vendor guidance, not a standard).
+export function assessVoltageMargin(args: {
+  /** The switch's voltage rating (V_CEO, V_DSS or V_CES), V; null when not recorded. */
+  voltageRatingV?: number | null;
+  /** Measured collector/drain peak, V; null when not measured. */
+  peakSwitchVoltageV?: number | null;
+  supplyVoltageV: number;
+  topology: DriverTopology;
+  clamped?: boolean;
+  factors?: Partial<PeakVoltageFactors>;
+  thinBelowHeadroom?: number;
+}): Margin {
+  const formula = "V_peak / V_rating";
+  const thinBelow = requireInRange("thinBelowHeadroom", args.thinBelowHeadroom ?? DEFAULT_MARGIN_THRESHOLDS.voltage, 0, 1);
+  const supply = requirePositive("supplyVoltageV", args.supplyVoltageV);
+  const rating = requireFiniteOrAbsent("voltageRatingV", args.voltageRatingV);
+  if (rating !== undefined) requirePositive("voltageRatingV", rating);
+  const measured = requireFiniteOrAbsent("peakSwitchVoltageV", args.peakSwitchVoltageV);
+  if (measured !== undefined) requirePositive("peakSwitchVoltageV", measured);
+
+  const inputs: MarginInput[] = [];
+  const notes: string[] = [];
+  if (measured !== undefined) {
+    inputs.push({ name: "V_peak", value: measured, unit: "V", estimated: false, source: "measured collector/drain peak" });
+    if (measured < supply) {
+      notes.push(
+        `The measured peak (${formatVolts(measured)}) is below the supply (${formatVolts(supply)}); the switch must block at least the supply, so check the probe attenuation setting.`,
+      );
+    }
+  } else {
+    const estimate = estimatePeakSwitchVoltage({ supplyVoltageV: supply, topology: args.topology, clamped: args.clamped, factors: args.factors });
+    inputs.push(
+      { name: "V_peak", value: estimate.peakVoltageV, unit: "V", estimated: true, source: `estimated: ${estimate.factor} × supply (${estimate.basis})` },
+      { name: "V_supply", value: supply, unit: "V", estimated: false, source: "session supply voltage" },
+    );
+    notes.push(
+      `Peak not measured: estimated as ${estimate.factor} × the ${formatVolts(supply)} supply for a ${DRIVER_TOPOLOGY_LABELS[args.topology]}${
+        args.topology === "single_switch" ? (args.clamped ? " with a clamp" : " without a clamp") : ""
+      }. Measure the collector/drain peak to replace this estimate.`,
+    );
+    if (args.clamped && args.topology !== "single_switch") {
+      notes.push("The clamp is not credited for this topology: the estimate keeps the unclamped factor.");
+    }
+  }
+
+  if (rating === undefined) {
+    return reportUnknownMargin({
+      kind: "voltage",
+      formula,
+      inputs,
+      notes: [...notes, "The switch's voltage rating (V_CEO / V_DSS) is not recorded: add it to the switch component."],
+    });
+  }
+  inputs.push({ name: "V_rating", value: rating, unit: "V", estimated: false, source: "switch datasheet rating" });
+  const peak = inputs[0]!.value;
+  return assessMargin({ kind: "voltage", value: peak, limit: rating, formula, inputs, notes, thinBelow });
+}
+
+function formatVolts(v: number): string {
+  return `${Number(v.toPrecision(3))} V`;
+}
