@@ -9,7 +9,7 @@ const relativeError = (actual: number, expected: number) => Math.abs(actual - ex
 
 describe("complete elliptic integrals by the AGM", () => {
   it("give K(0) = E(0) = π/2 exactly", () => {
-    // Exact: both integrals reduce to ∫₀^{π/2} dθ at k = 0 (A&S 17.3.11).
+    // Exact: both integrals reduce to ∫₀^{π/2} dθ at k = 0 (A&S 17.3.11, equation number from memory).
     expect(completeEllipticK(0)).toBe(Math.PI / 2);
     expect(completeEllipticE(0)).toBe(Math.PI / 2);
   });
@@ -49,7 +49,7 @@ describe("complete elliptic integrals by the AGM", () => {
   });
 
   it("satisfy Legendre's relation E K′ + E′ K − K K′ = π/2", () => {
-    // Exact identity (A&S 17.3.13); K′ = K(k′), E′ = E(k′).
+    // Exact identity (Legendre's relation, A&S 17.3.13, from memory); K′ = K(k′), E′ = E(k′).
     fc.assert(
       fc.property(fc.double({ min: 0.001, max: 0.999, noNaN: true }), (k) => {
         const kp = Math.sqrt(1 - k * k);
@@ -61,7 +61,7 @@ describe("complete elliptic integrals by the AGM", () => {
   });
 
   it("give K − E without cancellation for tiny k", () => {
-    // Exact series (A&S 17.3.11–12): K − E = (π/2)(k²/2 + 3k⁴/16 + 15k⁶/128 + O(k⁸)).
+    // Exact series (A&S 17.3.11–12, from memory): K − E = (π/2)(k²/2 + 3k⁴/16 + 15k⁶/128 + O(k⁸)).
     for (const k of [1e-3, 1e-5, 1e-8]) {
       const series = (Math.PI / 2) * ((k * k) / 2 + (3 * k ** 4) / 16 + (15 * k ** 6) / 128);
       expect(relativeError(completeEllipticIntegrals(k).KminusE, series)).toBeLessThan(1e-14);
@@ -69,11 +69,11 @@ describe("complete elliptic integrals by the AGM", () => {
   });
 
   it("follow the logarithmic singularity K ≈ ln(4/k′) as k → 1", () => {
-    // A&S 17.3.26: K = ln(4/k′) + O(k′² ln k′).
+    // A&S 17.3.26 (from memory): K = ln(4/k′) + O(k′² ln k′).
     const kp = 1e-9;
     const k = Math.sqrt((1 - kp) * (1 + kp));
     expect(relativeError(completeEllipticIntegrals(k, kp).K, Math.log(4 / kp))).toBeLessThan(1e-14);
-    // A&S 17.3.26: E → 1 as k → 1.
+    // A&S 17.3.26 (from memory): E → 1 as k → 1.
     expect(completeEllipticIntegrals(k, kp).E).toBeCloseTo(1, 12);
   });
 

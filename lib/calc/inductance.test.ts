@@ -57,7 +57,7 @@ describe("Nagaoka's coefficient", () => {
   });
 
   it("tends to 1 − 4D/(3πℓ) for long coils and hence to 1", () => {
-    // Exact asymptote of Nagaoka's formula for k → 0 (series of K and E, A&S 17.3.11–12): K ≈ 1 − 4D/(3πℓ) + O((D/ℓ)²).
+    // Exact asymptote of Nagaoka's formula for k → 0 (series of K and E, A&S 17.3.11–12, from memory): K ≈ 1 − 4D/(3πℓ) + O((D/ℓ)²).
     for (const lengthOverDiameter of [1e2, 1e3, 1e4, 1e6]) {
       const x = 1 / lengthOverDiameter;
       expect(Math.abs(nagaokaCoefficient(1, lengthOverDiameter) - (1 - (4 * x) / (3 * Math.PI)))).toBeLessThan(x * x);

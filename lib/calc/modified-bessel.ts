@@ -2,7 +2,7 @@
  * Exponentially scaled modified Bessel functions of order 0 and 1: e^{−x} I_n(x) and e^{x} K_n(x), x > 0.
  * The scaling keeps products such as I_0(x) K_0(x) finite for large x, which is all the sheath-helix model needs.
  *
- * Methods (chosen for robustness over speed; about 1e-14 relative, checked against mpmath in the tests):
+ * Equation numbers below are from memory. Methods (chosen for robustness over speed; about 1e-14 relative, checked against mpmath in the tests):
  * - I_n, x ≤ 2: the ascending series Σ (x/2)^{2k+n}/(k!(k+n)!) (A&S 9.6.10).
  * - I_n, x > 2: the integral (1/π)∫₀^π e^{x cos θ} cos(nθ) dθ (A&S 9.6.19) by the trapezoidal rule, which
  *   converges geometrically for a smooth periodic integrand.
