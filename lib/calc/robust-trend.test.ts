@@ -160,11 +160,19 @@ describe("theilSenTrend", () => {
 });
 
 describe("projectCrossing", () => {
-  const falling = { slope: -0.01, intercept: 0.5, slopeLow: -0.02, slopeHigh: -0.005 };
+  // y = 0.5 − 0.01x; the data's median x is 10, where the line is at 0.4
+  const falling = { slope: -0.01, intercept: 0.5, slopeLow: -0.02, slopeHigh: -0.005, xMedian: 10 };
 
   it("projects the fitted line forward to the threshold, with the range from the slope bounds", () => {
-    // derived: at x = 10 the line is at 0.4; 0.2 lies 0.2 below, reached after 20 (central), 10 (−0.02), 40 (−0.005)
+    // derived: 0.2 lies 0.2 below the pivot (10, 0.4): reached 20 on (central), 10 on at −0.02, 40 on at −0.005
     expect(projectCrossing(falling, 0.2, { fromX: 10 })).toEqual({ x: 30, xEarliest: 20, xLatest: 50 });
+  });
+
+  it("widens the range the further the projection runs from the data's centre", () => {
+    // derived: pivot (5, 0.45), 0.25 above the threshold: 5 + 12.5 = 17.5 at −0.02, 5 + 50 = 55 at −0.005
+    expect(projectCrossing({ ...falling, xMedian: 5 }, 0.2, { fromX: 10 })).toEqual({ x: 30, xEarliest: 17.5, xLatest: 55 });
+    // pivot (0, 0.5): the steep bound line is already at 0.2 by x = 15, so the earliest is "now"
+    expect(projectCrossing({ ...falling, xMedian: 0 }, 0.2, { fromX: 20 })).toEqual({ x: 30, xEarliest: 20, xLatest: 60 });
   });
 
   it("reports an unbounded latest crossing when the slow bound heads away", () => {
@@ -182,10 +190,7 @@ describe("projectCrossing", () => {
   });
 
   it("works for a rising quantity toward an upper threshold", () => {
-    expect(projectCrossing({ slope: 2, intercept: 100, slopeLow: 1, slopeHigh: 4 }, 140, { fromX: 0 })).toEqual({
-      x: 20,
-      xEarliest: 10,
-      xLatest: 40,
-    });
+    const rising = { slope: 2, intercept: 100, slopeLow: 1, slopeHigh: 4, xMedian: 0 };
+    expect(projectCrossing(rising, 140, { fromX: 0 })).toEqual({ x: 20, xEarliest: 10, xLatest: 40 });
   });
 });

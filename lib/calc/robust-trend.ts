@@ -22,6 +22,8 @@ export interface TheilSenTrend {
   slope: number;
   /** Median of yᵢ − slope·xᵢ, so the line is y = intercept + slope·x. */
   intercept: number;
+  /** Median of x: where the fitted line is best determined, and the pivot for the slope bounds' lines. */
+  xMedian: number;
   /** Sen's confidence bounds on the slope; ±Infinity when the data are too few to bound that side. */
   slopeLow: number;
   slopeHigh: number;
@@ -84,7 +86,8 @@ export function theilSenTrend(
   const residuals = points.map((p) => p.y - slope * p.x);
   return {
     slope,
-    intercept: medianOf(residuals),
+    intercept: computeMedian(residuals),
+    xMedian: computeMedian(points.map((p) => p.x)),
     slopeLow,
     slopeHigh,
     confidence,
@@ -102,9 +105,10 @@ export interface ThresholdCrossing {
   /** Where the fitted line reaches the threshold, ≥ fromX. */
   x: number;
   /**
-   * The same projection with the slope at each confidence bound, pivoting on the fitted value at fromX (so the
-   * range reflects the uncertainty of the rate, not of today's level). xLatest is Infinity when the slower
-   * bound is flat or heads away: at that plausible rate the threshold is never reached.
+   * The same with the slope at each confidence bound, the bound lines pivoting on the fit at xMedian (where
+   * the line is best determined), so the range widens the further the projection runs beyond the data.
+   * xEarliest is fromX when a bound line is already at the threshold; xLatest is Infinity when a bound line
+   * is flat or heads away: at that plausible rate the threshold is never reached.
    */
   xEarliest: number;
   xLatest: number;
@@ -115,27 +119,32 @@ export interface ThresholdCrossing {
  * Returns null when the line is flat, or when it reached the threshold before fromX and is moving away from it.
  */
 export function projectCrossing(
-  trend: Pick<TheilSenTrend, "slope" | "intercept" | "slopeLow" | "slopeHigh">,
+  trend: Pick<TheilSenTrend, "slope" | "intercept" | "slopeLow" | "slopeHigh" | "xMedian">,
   threshold: number,
   { fromX }: { fromX: number },
 ): ThresholdCrossing | null {
   requireFinite("threshold", threshold);
   requireFinite("fromX", fromX);
-  const gap = threshold - (trend.intercept + trend.slope * fromX);
-  if (trend.slope === 0) return gap === 0 ? { x: fromX, xEarliest: fromX, xLatest: fromX } : null;
-  const dx = gap / trend.slope;
-  if (dx < 0) return null;
-  const reachAt = (slope: number): number => {
-    if (gap === 0) return 0;
-    if (slope === 0 || Math.sign(slope) !== Math.sign(gap)) return Number.POSITIVE_INFINITY;
-    return gap / slope; // 0 for an infinite bound: at that rate it is reached at once
+  const { slope, intercept, xMedian } = trend;
+  if (slope === 0) return intercept === threshold ? { x: fromX, xEarliest: fromX, xLatest: fromX } : null;
+  const x = (threshold - intercept) / slope;
+  if (x < fromX) return null;
+  const direction = Math.sign(slope);
+  const pivotY = intercept + slope * xMedian;
+  const reachAt = (bound: number): number => {
+    if (!Number.isFinite(bound)) return bound * direction > 0 ? fromX : Number.POSITIVE_INFINITY;
+    if ((pivotY + bound * (fromX - xMedian) - threshold) * direction >= 0) return fromX; // already there
+    if (bound * direction <= 0) return Number.POSITIVE_INFINITY;
+    return xMedian + (threshold - pivotY) / bound;
   };
   const a = reachAt(trend.slopeLow);
   const b = reachAt(trend.slopeHigh);
-  return { x: fromX + dx, xEarliest: fromX + Math.min(a, b, dx), xLatest: fromX + Math.max(a, b, dx) };
+  return { x, xEarliest: Math.min(a, b, x), xLatest: Math.max(a, b, x) };
 }
 
-function medianOf(values: readonly number[]): number {
+/** Median of a non-empty list (the middle value, or the mean of the middle two). */
+export function computeMedian(values: readonly number[]): number {
+  if (values.length === 0) throw new CalcInputError("values", "at least one value", 0);
   const sorted = Float64Array.from(values).sort();
   const mid = sorted.length >> 1;
   return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
