@@ -1,0 +1,171 @@
+/**
+ * One coil's health across its logbook: are its margins holding, drifting toward their limits, or already
+ * past them; has its supply current at like supply voltage, its running frequency or its measured first
+ * resonance moved from where it started. The answer is a status a steward acts on, with reasons carrying the
+ * figures, and "not enough data" instead of a verdict the logbook cannot support.
+ *
+ * Status rule (first that applies):
+ *  hold   — a margin's latest reading is below its threshold; or a margin has a significant falling trend
+ *           (Mann–Kendall p < 1 − confidence) whose fitted line reaches the threshold within holdWithinDays.
+ *  watch  — a significant falling margin trend reaching the threshold within watchWithinDays; a latest margin
+ *           within nearMargin of its threshold; supply current at comparable voltage shifted more than
+ *           currentShift from baseline; running frequency or first resonance shifted more than frequencyShift;
+ *           heat-sink rise per watt up more than heatRiseShift.
+ *  not enough data — none of the above, and no margin has MIN_OBSERVATIONS_FOR_TREND readings to judge a trend.
+ *  fine   — otherwise.
+ * A real but slow decline (limit more than watchWithinDays away) is reported without raising the status: with
+ * three margins tested at 5 %, flagging every significant slope would raise false alarms on healthy coils.
+ */
+import {
+  requireDate,
+  validateLogbook,
+  validateThresholds,
+  type CoilSession,
+  type CoilSweep,
+  type HealthBaseline,
+} from "./coil-logbook";
+import { assessComparableCurrent, assessHeatRise } from "./comparable-levels";
+import { CalcInputError } from "./errors";
+import { daysBetween, type DatedValue } from "./drift-series";
+import { formatFrequency } from "./health-reasons";
+import {
+  DEFAULT_HEALTH_THRESHOLDS,
+  type FindingSeverity,
+  type HealthFinding,
+  type HealthThresholds,
+} from "./health-thresholds";
+import { assessLevelDrift, type LevelHealth } from "./level-drift";
+import { assessMarginDrift, type MarginHealth } from "./margin-drift";
+
+export type HealthStatus = "fine" | "watch" | "hold" | "not enough data";
+
+export interface CoilHealth {
+  status: HealthStatus;
+  /** The findings' sentences, most severe first. */
+  reasons: string[];
+  findings: HealthFinding[];
+  margins: { voltage: MarginHealth; current: MarginHealth; thermal: MarginHealth };
+  /** Supply current scaled to the reference voltage (I·V_ref/V) over sessions within the voltage band. */
+  supplyCurrent: LevelHealth & { referenceVoltageV: number | null };
+  runningFrequency: LevelHealth;
+  firstSeriesResonance: LevelHealth;
+  /** Heat-sink rise per watt of DC input (K/W) over runs within the duration band. */
+  heatSinkRisePerWatt: LevelHealth & { referenceDurationS: number | null };
+  sessionCount: number;
+  /** Average sessions per day over the logged span; null with fewer than two sessions or a span under a day. */
+  sessionsPerDay: number | null;
+  confidence: number;
+}
+
+export interface CoilHealthInput {
+  sessions: readonly CoilSession[];
+  sweeps: readonly CoilSweep[];
+  baseline?: HealthBaseline;
+  thresholds?: Partial<HealthThresholds>;
+  /** When the assessment is made; projections run from here. */
+  now: Date;
+  /** Two-sided confidence for trend ranges and the significance test (default 0.95). */
+  confidence?: number;
+}
+
+/** Assesses one coil (methods: Theil–Sen with Sen's interval and Mann–Kendall, robust-trend.ts). */
+export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
+  const confidence = input.confidence ?? 0.95;
+  if (!Number.isFinite(confidence) || confidence <= 0 || confidence >= 1) {
+    throw new CalcInputError("confidence", "a fraction strictly between 0 and 1, e.g. 0.95", confidence);
+  }
+  const now = requireDate("now", input.now);
+  const thresholds = validateThresholds({ ...DEFAULT_HEALTH_THRESHOLDS, ...input.thresholds });
+  const { sessions, sweeps, baseline } = validateLogbook(input);
+
+  const first = sessions[0];
+  const last = sessions[sessions.length - 1];
+  const spanDays = first && last ? daysBetween(first.startedAt, last.startedAt) : 0;
+  const sessionsPerDay = sessions.length >= 2 && spanDays >= 1 ? (sessions.length - 1) / spanDays : null;
+  const common = { confidence, now, thresholds, sessionsPerDay };
+
+  const margin = (
+    name: MarginHealth["margin"],
+    key: "voltageHeadroom" | "currentHeadroom" | "thermalHeadroom",
+    threshold: number,
+  ) => assessMarginDrift({ ...common, name, threshold, series: datedSeries(sessions, (s) => s[key]) });
+  const margins = {
+    voltage: margin("voltage", "voltageHeadroom", thresholds.voltageHeadroom),
+    current: margin("current", "currentHeadroom", thresholds.currentHeadroom),
+    thermal: margin("thermal", "thermalHeadroom", thresholds.thermalHeadroom),
+  };
+
+  const supplyCurrent = assessComparableCurrent(sessions, baseline, common);
+  const runningFrequency = assessLevelDrift({
+    confidence,
+    subject: "running frequency",
+    unit: "sessions",
+    series: datedSeries(sessions, (s) => s.runningFrequencyHz),
+    count: baseline.sessionCount,
+    explicitBaseline: baseline.runningFrequencyHz,
+    tolerance: thresholds.frequencyShift,
+    formatValue: formatFrequency,
+  });
+  const firstSeriesResonance = assessLevelDrift({
+    confidence,
+    subject: "measured first series resonance",
+    unit: "sweeps",
+    series: sweeps.flatMap((s) => (s.firstSeriesResonanceHz == null ? [] : [{ at: s.takenAt, value: s.firstSeriesResonanceHz }])),
+    count: baseline.sweepCount,
+    explicitBaseline: baseline.firstSeriesResonanceHz,
+    tolerance: thresholds.frequencyShift,
+    formatValue: formatFrequency,
+  });
+  const heatSinkRisePerWatt = assessHeatRise(sessions, baseline, common);
+
+  const findings = [
+    ...margins.voltage.findings,
+    ...margins.current.findings,
+    ...margins.thermal.findings,
+    ...supplyCurrent.findings,
+    ...runningFrequency.findings,
+    ...firstSeriesResonance.findings,
+    ...heatSinkRisePerWatt.findings,
+  ];
+  const severityOrder: Record<FindingSeverity, number> = { hold: 0, watch: 1, info: 2 };
+  findings.sort((a, b) => severityOrder[a.severity] - severityOrder[b.severity]);
+  const anyTrend = Object.values(margins).some((m) => m.trend !== null);
+  const status: HealthStatus = findings.some((f) => f.severity === "hold")
+    ? "hold"
+    : findings.some((f) => f.severity === "watch")
+      ? "watch"
+      : anyTrend
+        ? "fine"
+        : "not enough data";
+  if (status === "fine") {
+    findings.unshift({
+      severity: "info",
+      subject: "summary",
+      text: `Every margin with a trend is above its limit and not heading for it within ${thresholds.watchWithinDays} days (${sessions.length} sessions).`,
+    });
+  }
+  return {
+    status,
+    reasons: findings.map((f) => f.text),
+    findings,
+    margins,
+    supplyCurrent,
+    runningFrequency,
+    firstSeriesResonance,
+    heatSinkRisePerWatt,
+    sessionCount: sessions.length,
+    sessionsPerDay,
+    confidence,
+  };
+}
+
+function datedSeries(
+  sessions: readonly CoilSession[],
+  pick: (s: CoilSession) => number | null | undefined,
+): DatedValue[] {
+  return sessions.flatMap((s) => {
+    const value = pick(s);
+    return value == null ? [] : [{ at: s.startedAt, value }];
+  });
+}
+

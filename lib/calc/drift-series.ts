@@ -1,0 +1,117 @@
+/**
+ * Turning one coil's logbook into drift series: a dated value per session or sweep, fitted against time in
+ * days, compared with a baseline, and restricted to comparable conditions where the value depends on them.
+ *
+ * Time, not session index, is the x-axis: stewards plan in dates and months, sessions come in bursts with long
+ * gaps (term breaks), and Theil–Sen copes with uneven spacing, whereas an index would squeeze a summer's idle
+ * ageing into one step. Session counts are derived from the coil's average session rate where wanted.
+ */
+import { CalcInputError } from "./errors";
+import { computeMedian, theilSenTrend, type TheilSenTrend } from "./robust-trend";
+
+export const MS_PER_DAY = 86_400_000;
+/** "A month" in every rate this library reports. */
+export const DAYS_PER_MONTH = 30;
+
+export interface DatedValue {
+  at: Date;
+  value: number;
+}
+
+export interface DriftTrend {
+  /** The fit of value against days since `origin`. */
+  fit: TheilSenTrend;
+  /** Date of x = 0: the series' first observation. */
+  origin: Date;
+  /** Slope and its confidence bounds in value-units per 30 days. */
+  perMonth: number;
+  perMonthLow: number;
+  perMonthHigh: number;
+  /** Mann–Kendall p-value below 1 − confidence. */
+  significant: boolean;
+}
+
+/** Days from `from` to `to`, fractional, UTC instants (time zones cannot enter). */
+export function daysBetween(from: Date, to: Date): number {
+  return (to.getTime() - from.getTime()) / MS_PER_DAY;
+}
+
+/** The instant `days` after `origin`. */
+export function addDays(origin: Date, days: number): Date {
+  return new Date(origin.getTime() + days * MS_PER_DAY);
+}
+
+/** Theil–Sen trend of a chronological series against days since its first point. */
+export function fitDriftTrend(series: readonly DatedValue[], confidence: number): DriftTrend {
+  const origin = series[0]?.at;
+  if (origin === undefined) throw new CalcInputError("series", "at least one observation", 0);
+  const fit = theilSenTrend(
+    series.map((p) => ({ x: daysBetween(origin, p.at), y: p.value })),
+    { confidence },
+  );
+  return {
+    fit,
+    origin,
+    perMonth: fit.slope * DAYS_PER_MONTH,
+    perMonthLow: fit.slopeLow * DAYS_PER_MONTH,
+    perMonthHigh: fit.slopeHigh * DAYS_PER_MONTH,
+    significant: fit.pValue < 1 - confidence,
+  };
+}
+
+/**
+ * The most common operating condition: the band of ±bandFraction around some observed value that holds the most
+ * observations (ties go to the later value), its members' indices, and their median as the reference. Used to
+ * compare sessions run at like supply voltage or like run length, so a change of set-up is not read as drift.
+ */
+export function findModalBand(
+  values: readonly number[],
+  bandFraction: number,
+): { reference: number; members: number[] } | null {
+  let best: number[] = [];
+  values.forEach((centre) => {
+    const members: number[] = [];
+    values.forEach((w, i) => {
+      if (Math.abs(w - centre) <= bandFraction * centre) members.push(i);
+    });
+    if (members.length >= best.length) best = members;
+  });
+  if (best.length === 0) return null;
+  return { reference: computeMedian(best.map((i) => values[i]!)), members: best };
+}
+
+export interface LevelShift {
+  baseline: number;
+  baselineSource: "explicit" | "first observations";
+  /** Observations the baseline median was taken over (0 for an explicit baseline). */
+  baselineCount: number;
+  /** Median of the most recent `recentCount` observations. */
+  recent: number;
+  recentCount: number;
+  /** recent/baseline − 1. */
+  shiftFraction: number;
+}
+
+/**
+ * Recent level against the baseline, both as medians of `count` observations so a single odd session moves
+ * neither. Without an explicit baseline it needs 2·count observations, so the two groups never overlap;
+ * returns null when there are fewer.
+ */
+export function measureLevelShift(
+  values: readonly number[],
+  { count, explicitBaseline }: { count: number; explicitBaseline?: number },
+): LevelShift | null {
+  const explicit = explicitBaseline !== undefined;
+  if (values.length === 0 || (!explicit && values.length < 2 * count)) return null;
+  const baseline = explicit ? explicitBaseline : computeMedian(values.slice(0, count));
+  const recentValues = values.slice(-count);
+  const recent = computeMedian(recentValues);
+  return {
+    baseline,
+    baselineSource: explicit ? "explicit" : "first observations",
+    baselineCount: explicit ? 0 : count,
+    recent,
+    recentCount: recentValues.length,
+    shiftFraction: recent / baseline - 1,
+  };
+}
