@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import {
+  describeBaseline,
   describeFallingMargin,
   describeMarginBelowLimit,
   describeShift,
@@ -59,16 +60,21 @@ describe("sentences", () => {
     );
   });
 
+  it("name what a baseline comparison compares", () => {
+    expect(describeBaseline("first observations", 1, 1, "sweeps")).toBe("the latest sweep against the first");
+    expect(describeBaseline("explicit", 0, 3, "sessions")).toBe("the median of the last 3 sessions against the recorded baseline");
+  });
+
   it("state a shift with its sign and rate", () => {
     expect(
       describeShift({
         subject: "supply current at comparable supply voltage",
         shiftFraction: 0.14,
-        baselineWords: "median of the last 3 sessions against the first 3",
+        baselineWords: describeBaseline("first observations", 3, 3, "sessions"),
         trend: { perMonth: 0.021, perMonthLow: 0.012, perMonthHigh: 0.03, confidence: 0.95 },
       }),
     ).toBe(
-      "Supply current at comparable supply voltage is up 14 % since the baseline (median of the last 3 sessions " +
+      "Supply current at comparable supply voltage is up 14 % since the baseline (the median of the last 3 sessions " +
         "against the first 3), changing about +2.1 % a month (95 % range +1.2 % to +3 %).",
     );
   });

@@ -115,10 +115,16 @@ export function describeShift(args: {
   return `${capitalise(args.subject)} is ${direction} ${formatPercent(Math.abs(args.shiftFraction))} since the baseline (${args.baselineWords})${rate}.`;
 }
 
-export function describeBaseline(source: "explicit" | "first observations", count: number, recentCount: number, unit: string): string {
-  return source === "explicit"
-    ? `median of the last ${recentCount} ${unit} against the recorded baseline`
-    : `median of the last ${recentCount} ${unit} against the first ${count}`;
+/** "the median of the last 3 sessions against the first 3", "the latest sweep against the first", … */
+export function describeBaseline(
+  source: "explicit" | "first observations",
+  count: number,
+  recentCount: number,
+  unit: "sessions" | "sweeps",
+): string {
+  const recent = recentCount === 1 ? `the latest ${unit.slice(0, -1)}` : `the median of the last ${recentCount} ${unit}`;
+  const baseline = source === "explicit" ? "the recorded baseline" : count === 1 ? "the first" : `the first ${count}`;
+  return `${recent} against ${baseline}`;
 }
 
 function signedPercent(fraction: number): string {

@@ -24,8 +24,8 @@ export interface LevelHealth {
 export function assessLevelDrift(args: {
   /** Lower-case noun phrase for sentences, e.g. "running frequency". */
   subject: string;
-  /** What one observation is, plural: "sessions" or "sweeps". */
-  unit: string;
+  /** What one observation is. */
+  unit: "sessions" | "sweeps";
   series: readonly DatedValue[];
   /** Observations in the baseline and in the recent level. */
   count: number;
