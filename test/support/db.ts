@@ -4,31 +4,12 @@
  */
 import { prisma } from "../../lib/db/client";
 import { hashPassword } from "../../lib/auth/password";
+import { emptyDatabase } from "../../lib/db/demo-loader";
 
 export const testDb = prisma;
 
-/** Empties every table, children first, so each test starts from nothing. */
-export async function resetDatabase(): Promise<void> {
-  await prisma.$transaction([
-    prisma.auditEvent.deleteMany(),
-    prisma.runSession.updateMany({ data: { loanId: null } }),
-    prisma.loan.deleteMany(),
-    prisma.clearance.deleteMany(),
-    prisma.clearancePolicy.deleteMany(),
-    prisma.failure.deleteMany(),
-    prisma.heatSinkSample.deleteMany(),
-    prisma.runSession.deleteMany(),
-    prisma.sweepResonance.deleteMany(),
-    prisma.sweepPoint.deleteMany(),
-    prisma.sweep.deleteMany(),
-    prisma.component.updateMany({ data: { replacedById: null } }),
-    prisma.component.deleteMany(),
-    prisma.topLoad.deleteMany(),
-    prisma.coil.deleteMany(),
-    prisma.signInThrottle.deleteMany(),
-    prisma.user.deleteMany(),
-  ]);
-}
+/** Empties every table so each test starts from nothing (the same routine the demo reset uses). */
+export const resetDatabase = emptyDatabase;
 
 // One hash reused by every test user: bcrypt at cost 12 takes ~0.25 s a hash.
 let cachedHash: Promise<string> | undefined;

@@ -1,0 +1,92 @@
+/**
+ * Writes a generated demo dataset (prisma/demo/generate.ts) in one transaction: either the whole
+ * demo club lands or nothing does. Also empties the database for `db:reset-demo`.
+ */
+import { prisma } from "./client";
+import type { Prisma } from "./generated/client";
+
+export interface DemoDataset {
+  users: Prisma.UserCreateManyInput[];
+  coils: Prisma.CoilCreateManyInput[];
+  topLoads: Prisma.TopLoadCreateManyInput[];
+  components: Prisma.ComponentCreateManyInput[];
+  /** Replacement links, applied after every component exists. */
+  componentReplacements: { id: string; replacedById: string }[];
+  sweeps: Prisma.SweepCreateManyInput[];
+  sweepPoints: Prisma.SweepPointCreateManyInput[];
+  sweepResonances: Prisma.SweepResonanceCreateManyInput[];
+  sessions: Prisma.RunSessionCreateManyInput[];
+  samples: Prisma.HeatSinkSampleCreateManyInput[];
+  failures: Prisma.FailureCreateManyInput[];
+  policies: Prisma.ClearancePolicyCreateManyInput[];
+  clearances: Prisma.ClearanceCreateManyInput[];
+  loans: Prisma.LoanCreateManyInput[];
+  /** Sessions run while out on loan: session id → loan id. */
+  sessionLoans: { sessionId: string; loanId: string }[];
+  audit: Prisma.AuditEventCreateManyInput[];
+}
+
+export function countUsersForSeed(): Promise<number> {
+  return prisma.user.count();
+}
+
+const CHUNK = 2_000;
+
+async function inChunks<T>(rows: T[], write: (chunk: T[]) => Promise<unknown>) {
+  for (let i = 0; i < rows.length; i += CHUNK) await write(rows.slice(i, i + CHUNK));
+}
+
+export async function loadDemoDataset(data: DemoDataset): Promise<void> {
+  await prisma.$transaction(
+    async (tx) => {
+      await tx.user.createMany({ data: data.users });
+      await tx.coil.createMany({ data: data.coils });
+      await tx.topLoad.createMany({ data: data.topLoads });
+      await tx.component.createMany({ data: data.components });
+      for (const link of data.componentReplacements) {
+        await tx.component.update({ where: { id: link.id }, data: { replacedById: link.replacedById } });
+      }
+      await tx.sweep.createMany({ data: data.sweeps });
+      await inChunks(data.sweepPoints, (chunk) => tx.sweepPoint.createMany({ data: chunk }));
+      await tx.sweepResonance.createMany({ data: data.sweepResonances });
+      await inChunks(data.sessions, (chunk) => tx.runSession.createMany({ data: chunk }));
+      await inChunks(data.samples, (chunk) => tx.heatSinkSample.createMany({ data: chunk }));
+      await tx.failure.createMany({ data: data.failures });
+      await tx.clearancePolicy.createMany({ data: data.policies });
+      await tx.clearance.createMany({ data: data.clearances });
+      await tx.loan.createMany({ data: data.loans });
+      for (const link of data.sessionLoans) {
+        await tx.runSession.update({ where: { id: link.sessionId }, data: { loanId: link.loanId } });
+      }
+      await tx.auditEvent.createMany({ data: data.audit });
+    },
+    { timeout: 120_000 },
+  );
+}
+
+/** Empties every table (children first). Only for the demo reset. */
+export async function emptyDatabase(): Promise<void> {
+  await prisma.$transaction([
+    prisma.auditEvent.deleteMany(),
+    prisma.runSession.updateMany({ data: { loanId: null } }),
+    prisma.loan.deleteMany(),
+    prisma.clearance.deleteMany(),
+    prisma.clearancePolicy.deleteMany(),
+    prisma.failure.deleteMany(),
+    prisma.heatSinkSample.deleteMany(),
+    prisma.runSession.deleteMany(),
+    prisma.sweepResonance.deleteMany(),
+    prisma.sweepPoint.deleteMany(),
+    prisma.sweep.deleteMany(),
+    prisma.component.updateMany({ data: { replacedById: null } }),
+    prisma.component.deleteMany(),
+    prisma.topLoad.deleteMany(),
+    prisma.coil.deleteMany(),
+    prisma.signInThrottle.deleteMany(),
+    prisma.user.deleteMany(),
+  ]);
+}
+
+export async function disconnect(): Promise<void> {
+  await prisma.$disconnect();
+}
