@@ -48,7 +48,6 @@ export interface GenerateOptions {
 }
 
 export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions): DemoDataset {
-  const rng = createSeededRandom(DEMO_SEED);
   const at = (day: number, hourUtc = 17, minute = 0) => new Date(anchor.getTime() + day * DAY_MS + hourUtc * 3_600_000 + minute * 60_000);
   const userId = (key: DemoPersonKey) => `user-${key}`;
   const loggers: DemoPersonKey[] = ["member", "member2", "member3", "steward"];
