@@ -3,6 +3,7 @@
  * resonance refinement, kept apart so it can be checked on its own.
  */
 import { CalcInputError } from "./errors";
+import { invertSymmetric3 } from "./invert-symmetric-3";
 
 export interface QuadraticFit {
   /** v ≈ a + b·u + c·u² */
@@ -42,20 +43,12 @@ export function fitWeightedQuadratic(u: Float64Array, v: Float64Array, w: Float6
     t1 += wi * vi * ui;
     t2 += wi * vi * u2;
   }
-  // Inverse of the symmetric normal matrix [s0 s1 s2; s1 s2 s3; s2 s3 s4] by cofactors.
-  const c00 = s2 * s4 - s3 * s3;
-  const c01 = s2 * s3 - s1 * s4;
-  const c02 = s1 * s3 - s2 * s2;
-  const c11 = s0 * s4 - s2 * s2;
-  const c12 = s1 * s2 - s0 * s3;
-  const c22 = s0 * s2 - s1 * s1;
-  const det = s0 * c00 + s1 * c01 + s2 * c02;
-  if (!(Math.abs(det) > 1e-12 * Math.abs(s0 * s2 * s4)) || !Number.isFinite(det)) return null;
-  const inverse = [c00, c01, c02, c01, c11, c12, c02, c12, c22].map((x) => x / det);
-  const [i00, i01, i02, , i11, i12, , , i22] = inverse as [number, number, number, number, number, number, number, number, number];
-  const a = i00 * t0 + i01 * t1 + i02 * t2;
-  const b = i01 * t0 + i11 * t1 + i12 * t2;
-  const c = i02 * t0 + i12 * t1 + i22 * t2;
+  const inverse = invertSymmetric3(s0, s1, s2, s2, s3, s4);
+  if (inverse === null) return null;
+  const at = (k: number) => inverse[k] as number;
+  const a = at(0) * t0 + at(1) * t1 + at(2) * t2;
+  const b = at(3) * t0 + at(4) * t1 + at(5) * t2;
+  const c = at(6) * t0 + at(7) * t1 + at(8) * t2;
   if (count === 3) return { a, b, c, covariance: null };
   let weightedSquares = 0;
   for (let i = 0; i < count; i++) {
@@ -64,5 +57,5 @@ export function fitWeightedQuadratic(u: Float64Array, v: Float64Array, w: Float6
     weightedSquares += (w[i] as number) * r * r;
   }
   const residualVariance = weightedSquares / (count - 3);
-  return { a, b, c, covariance: Float64Array.from(inverse, (x) => x * residualVariance) };
+  return { a, b, c, covariance: inverse.map((x) => x * residualVariance) };
 }
