@@ -51,6 +51,6 @@ test("an admin adds a user and the change is audited", async ({ page }) => {
   await page.getByRole("button", { name: "Add user" }).click();
   await expect(page.getByText("Added Nova Quist as member.")).toBeVisible();
   await page.reload();
-  await expect(page.getByRole("cell", { name: "nova@kettlewell.example" })).toBeVisible();
+  await expect(page.getByRole("cell", { name: "nova@kettlewell.example", exact: true })).toBeVisible();
   await expect(page.getByText(/Added Nova Quist <nova@kettlewell.example> as member/)).toBeVisible();
 });

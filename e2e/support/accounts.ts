@@ -24,7 +24,7 @@ export class SignInPage {
   }
 
   error() {
-    return this.page.getByRole("alert");
+    return this.page.locator("#sign-in-error");
   }
 }
 

@@ -7,7 +7,8 @@ import type { z } from "zod";
 
 export type FieldErrors = Record<string, string[]>;
 
-export type ActionFailure = { ok: false; message: string; fieldErrors: FieldErrors };
+/** `values` echoes what was submitted (never passwords) so a refused form can show it again. */
+export type ActionFailure = { ok: false; message: string; fieldErrors: FieldErrors; values?: Record<string, string> };
 export type ActionResult<T = unknown> = { ok: true; data: T; message?: string } | ActionFailure;
 
 export function fieldErrorsOf(error: z.ZodError): FieldErrors {
@@ -19,10 +20,17 @@ export function fieldErrorsOf(error: z.ZodError): FieldErrors {
   return out;
 }
 
-export function invalid(error: z.ZodError, message = "Some fields need attention."): ActionFailure {
-  return { ok: false, message, fieldErrors: fieldErrorsOf(error) };
+export function invalid(error: z.ZodError, message = "Some fields need attention.", values?: Record<string, string>): ActionFailure {
+  return { ok: false, message, fieldErrors: fieldErrorsOf(error), values };
 }
 
-export function refused(message: string, fieldErrors: FieldErrors = {}): ActionFailure {
-  return { ok: false, message, fieldErrors };
+/** The text fields of a submitted form, minus the ones that must never be echoed back (passwords). */
+export function echoForm(form: FormData, omit: readonly string[] = ["password"]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const [key, value] of form) if (typeof value === "string" && !omit.includes(key) && !key.startsWith("$ACTION")) out[key] = value;
+  return out;
+}
+
+export function refused(message: string, fieldErrors: FieldErrors = {}, values?: Record<string, string>): ActionFailure {
+  return { ok: false, message, fieldErrors, values };
 }

@@ -5,18 +5,18 @@ import { guardAction } from "@/lib/auth/guard";
 import { hashPassword } from "@/lib/auth/password";
 import { createUser, DuplicateEmailError, LastAdminError, updateUserAccess } from "@/lib/db/users";
 import { newUserSchema, updateAccessSchema } from "@/lib/validation/user";
-import { invalid, refused, type ActionResult } from "@/lib/validation/action-result";
+import { echoForm, invalid, refused, type ActionResult } from "@/lib/validation/action-result";
 
 export async function addUser(_previous: ActionResult<null> | null, form: FormData): Promise<ActionResult<null>> {
   return guardAction("admin", async (admin) => {
     const parsed = newUserSchema.safeParse(Object.fromEntries(form));
-    if (!parsed.success) return invalid(parsed.error);
+    if (!parsed.success) return invalid(parsed.error, undefined, echoForm(form));
     try {
       const user = await createUser(admin.id, { ...parsed.data, passwordHash: await hashPassword(parsed.data.password) });
       revalidatePath("/admin");
       return { ok: true, data: null, message: `Added ${user.name} as ${user.role}.` };
     } catch (error) {
-      if (error instanceof DuplicateEmailError) return refused(error.message, { email: [error.message] });
+      if (error instanceof DuplicateEmailError) return refused(error.message, { email: [error.message] }, echoForm(form));
       throw error;
     }
   });

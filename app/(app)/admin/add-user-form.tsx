@@ -7,22 +7,24 @@ import { FieldError, FormStatus } from "@/app/ui/form-status";
 export function AddUserForm() {
   const [state, action, pending] = useActionState(addUser, null);
   const invalid = (field: string) => (state && !state.ok && state.fieldErrors[field] ? true : undefined);
+  // React resets a form after its action runs; a refused form shows what was typed again.
+  const typed = (field: string) => (state && !state.ok ? state.values?.[field] : undefined);
   return (
     <form action={action} className="stack" aria-labelledby="add-user-heading" noValidate>
       <h2 id="add-user-heading">Add a user</h2>
       <div className="field">
         <label htmlFor="new-name">Name</label>
-        <input id="new-name" name="name" required aria-invalid={invalid("name")} aria-describedby="new-name-error" />
+        <input id="new-name" name="name" defaultValue={typed("name")} required aria-invalid={invalid("name")} aria-describedby="new-name-error" />
         <FieldError id="new-name-error" state={state} field="name" />
       </div>
       <div className="field">
         <label htmlFor="new-email">E-mail</label>
-        <input id="new-email" name="email" type="email" required aria-invalid={invalid("email")} aria-describedby="new-email-error" />
+        <input id="new-email" name="email" type="email" defaultValue={typed("email")} required aria-invalid={invalid("email")} aria-describedby="new-email-error" />
         <FieldError id="new-email-error" state={state} field="email" />
       </div>
       <div className="field">
         <label htmlFor="new-role">Role</label>
-        <select id="new-role" name="role" defaultValue="member" aria-describedby="new-role-error">
+        <select id="new-role" name="role" defaultValue={typed("role") ?? "member"} aria-describedby="new-role-error">
           <option value="member">Member — logs sweeps, sessions and failures</option>
           <option value="steward">Steward — also manages coils, clearances and loans</option>
           <option value="admin">Admin — also manages users and the policy</option>

@@ -1,7 +1,0 @@
-export default function Loading() {
-  return (
-    <p aria-live="polite" className="muted">
-      Loading…
-    </p>
-  );
-}
