@@ -1,5 +1,9 @@
 import { defineConfig } from "@playwright/test";
 
+// E2E_PORT lets two checkouts run their browser tests side by side.
+const port = Number(process.env.E2E_PORT ?? 3100);
+const baseURL = `http://localhost:${port}`;
+
 // Browser tests run the production build against Debian's Chromium (no browser download).
 export default defineConfig({
   testDir: "e2e",
@@ -10,7 +14,7 @@ export default defineConfig({
   expect: { timeout: 10_000 },
   reporter: [["list"]],
   use: {
-    baseURL: "http://localhost:3100",
+    baseURL,
     trace: "retain-on-failure",
     launchOptions: {
       executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
@@ -22,10 +26,10 @@ export default defineConfig({
     { name: "phone", use: { viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true }, testMatch: /phone\.spec\.ts/ },
   ],
   webServer: {
-    command: "bash scripts/e2e-server.sh",
-    url: "http://localhost:3100/sign-in",
+    command: `bash scripts/e2e-server.sh ${port}`,
+    url: `${baseURL}/sign-in`,
     timeout: 180_000,
     reuseExistingServer: false,
-    env: { NEXTAUTH_URL: "http://localhost:3100", NEXT_TELEMETRY_DISABLED: "1" },
+    env: { NEXTAUTH_URL: baseURL, NEXT_TELEMETRY_DISABLED: "1" },
   },
 });
