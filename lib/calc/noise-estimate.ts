@@ -12,8 +12,14 @@ import { selectMedianInPlace } from "./select-median";
  */
 export const NOISE_SCALE_FLOOR = 1e-3;
 
-/** Residuals per block for the local scale: small enough to follow a changing noise level, large enough for a stable median. */
-export const NOISE_BLOCK_SIZE = 32;
+/** log₂ of the points per block for the local scale (128: short enough to follow a changing noise level). */
+export const NOISE_BLOCK_SHIFT = 7;
+export const NOISE_BLOCK_SIZE = 1 << NOISE_BLOCK_SHIFT;
+/**
+ * Within a block only every STRIDE-th residual enters the median: 32 residuals per block scatter by
+ * about 20 %, which the widening to neighbouring blocks absorbs, at a quarter of the cost.
+ */
+const STRIDE = 4;
 
 /** MAD → standard deviation for Gaussian noise: 1/Φ⁻¹(3/4) (Hampel, J. Amer. Statist. Assoc. 69, 1974 — from memory). */
 const MAD_TO_SIGMA = 1.482_602_218_505_602;
@@ -31,7 +37,7 @@ export interface NoiseScale {
 
 /** Index into NoiseScale.block for point i of a curve. */
 export function noiseBlockOf(scale: NoiseScale, i: number): number {
-  const k = (i - 1) >> 5; // NOISE_BLOCK_SIZE = 2⁵
+  const k = (i - 1) >> NOISE_BLOCK_SHIFT;
   const last = scale.block.length - 1;
   return k < 0 ? 0 : k > last ? last : k;
 }
@@ -46,10 +52,10 @@ export function noiseBlockOf(scale: NoiseScale, i: number): number {
  * no array of length n.
  * The scale is 1.4826 × a median |e|: the few large residuals where the curve bends sharply
  * (at resonances) barely move a median. Exact zeros are left out so that readings quantised to a few
- * digits, which often repeat, do not report zero noise. Local scales come from blocks of 32
- * residuals; the global one is the median of the block scales (or of all residuals when there are
- * fewer than four blocks), so noise that grows in one region — a scope's fixed noise floor at the
- * bottom of a deep dip — is judged there by its own size.
+ * digits, which often repeat, do not report zero noise. Local scales come from blocks of 128
+ * points (32 residuals each); the global one is the median of the block scales (or of all
+ * residuals when there are fewer than four blocks), so noise that grows in one region — a scope's
+ * fixed noise floor at the bottom of a deep dip — is judged there by its own size.
  */
 export function estimateNoiseScale(x: Float64Array, y: Float64Array, length = x.length): NoiseScale {
   if (!Number.isInteger(length) || length < 3 || length > x.length || length > y.length) {
@@ -57,15 +63,16 @@ export function estimateNoiseScale(x: Float64Array, y: Float64Array, length = x.
   }
   const count = length - 2;
   const blocks = count < 4 * NOISE_BLOCK_SIZE ? 1 : Math.ceil(count / NOISE_BLOCK_SIZE);
+  // A short curve gets one block and every residual; a long one, strided blocks.
   const blockLength = blocks === 1 ? count : NOISE_BLOCK_SIZE;
-  // Residuals are streamed block by block into a small buffer; only block scales are kept.
-  const scratch = new Float64Array(blockLength);
+  const stride = blocks === 1 ? 1 : STRIDE;
+  const scratch = new Float64Array(Math.ceil(blockLength / stride));
   const raw = new Float64Array(blocks);
   for (let k = 0; k < blocks; k++) {
     const first = 1 + k * blockLength;
     const last = Math.min(length - 2, first + blockLength - 1);
     let used = 0;
-    for (let i = first; i <= last; i++) {
+    for (let i = first; i <= last; i += stride) {
       // Squared residuals: the median of e² is the square of the median |e|, and squaring saves a
       // square root per point. With h₁, h₂ the two steps, a = h₂/(h₁ + h₂), b = h₁/(h₁ + h₂), so
       // e² = (h₂y₀ + h₁y₂ − (h₁ + h₂)y₁)² / (y₁²·(h₁² + h₂² + (h₁ + h₂)²)): one division.

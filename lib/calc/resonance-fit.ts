@@ -16,6 +16,7 @@
  * minimum, which underestimates Q unless R ≫ |Z| (references.md, "Sweeps through a series resistor").
  * The three-point log–log parabola remains the fallback for resonances only a sample or two wide.
  */
+import { borrowScratch } from "./scratch-buffers";
 import { fitWeightedQuadratic } from "./weighted-quadratic-fit";
 
 export type ResonanceKind = "series" | "parallel";
@@ -81,7 +82,7 @@ export function fitResonance(
   while (lo > from && inside(lo - 1)) lo--;
   while (hi < to && inside(hi + 1)) hi++;
 
-  const scratch = new Float64Array(3 * (to - from + 1));
+  const scratch = borrowScratch("resonance-fit.window", 3 * (to - from + 1));
   let fit = fitWindow(series, f, ratio, lo, hi, scratch);
   // Refits on f₀ ± Δf of the previous fit (|X| ≤ 2R_s), where the Lorentzian form holds.
   // Converged: the last fit was made on its own f₀ ± Δf window (give or take a sample at each end

@@ -9,14 +9,15 @@
  *    ln|Z| = ln R + y − ln(1 − Vout/Vin) it is stretched many times near a parallel resonance.
  *    |Z| rises with the reading, so the extrema of the readings are exactly the extrema of |Z|.
  * 2. The noise scale σ (relative) comes from the data: a robust median of the residuals of each
- *    point against the straight line through its neighbours, per block of 32 points and overall
+ *    point against the straight line through its neighbours, per block of 128 points and overall
  *    (see noise-estimate.ts).
  * 3. A minimum counts only if the curve rises from it by more than z·√2·σ in y on BOTH sides
  *    before the next counted maximum (and vice versa), σ the larger local scale of the two samples
- *    compared: a hysteresis ("zig-zag") walk through the data, one pass. z is set so that pure Gaussian noise produces a false pair with probability
- *    below 0.1 % over the whole sweep: a union bound over all n(n−1)/2 pairs of samples gives
- *    z = Φ⁻¹(1 − 0.001/(n(n−1)/2)), about 5.8 for 200 points and 7.3 for 100 000.
- *    Minima and maxima therefore alternate, as the resonances of a passive one-port must
+ *    compared: a hysteresis ("zig-zag") walk through the data, one pass. z is set so that pure
+ *    Gaussian noise produces a false pair with probability below 0.1 % over the whole sweep: a
+ *    union bound over all n(n−1)/2 pairs of samples gives z = Φ⁻¹(1 − 0.001/(n(n−1)/2)), about 5.3
+ *    for 200 points and 7.3 for 100 000 (the bound is loose: 3 000 pure-noise sweeps gave none).
+ *    Minima and maxima therefore alternate, as the resonances of a lossless one-port must
  *    (Foster's reactance theorem, R. M. Foster, Bell Syst. Tech. J. 3, 1924 — from memory).
  * 4. Extrema at the ends of the sweep are not reported: without data on both sides they are not
  *    known to be resonances.
@@ -25,8 +26,9 @@
  */
 import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
 import { CalcInputError, requirePositive } from "./errors";
-import { estimateNoiseScale, noiseBlockOf } from "./noise-estimate";
+import { estimateNoiseScale, NOISE_BLOCK_SHIFT, noiseBlockOf } from "./noise-estimate";
 import { fitResonance } from "./resonance-fit";
+import { borrowScratch } from "./scratch-buffers";
 
 /** One reading: frequency in Hz, amplitude across the device in V (same measure as sourceAmplitude). */
 export interface SweepPoint {
@@ -84,7 +86,7 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
     (ratio[high] as number) > (ratio[low] as number) * Math.max(factorAt(high), factorAt(low));
 
   // Hysteresis walk. turns: every confirmed turning point; kinds: +1 max, −1 min, 0 not reported.
-  // fHi, fLo, fI: threshold factors of the running maximum, the running minimum and the current sample.
+  // mHi/fHi, mLo/fLo: reading and threshold factor of the running maximum and minimum.
   const turns: number[] = [];
   const kinds: number[] = [];
   let mode = 0; // 0: no turn yet; 1: after a minimum, seeking a maximum; −1: the reverse
@@ -94,13 +96,16 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
   let mLo = mHi;
   let fHi = factorAt(0);
   let fLo = fHi;
+  let i = 1;
+  // Until the first turn, also track how far the curve had come down (up) before the running
+  // maximum (minimum): the first turn is a resonance only if it stands out on its left side too.
   let runMin = 0;
   let runMax = 0;
   let hiLeftMin = 0;
   let loLeftMax = 0;
-  for (let i = 1; i < n; i++) {
+  for (; i < n && mode === 0; i++) {
     const mi = ratio[i] as number;
-    const fI = factors[noiseBlockOf(noise, i)] as number;
+    const fI = factorAt(i);
     if (mi < (ratio[runMin] as number)) runMin = i;
     if (mi > (ratio[runMax] as number)) runMax = i;
     if (mi > mHi) {
@@ -115,16 +120,47 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
       fLo = fI;
       loLeftMax = runMax;
     }
-    if (mode >= 0 && mHi > mi * (fHi > fI ? fHi : fI)) {
+    if (mHi > mi * (fHi > fI ? fHi : fI)) {
       turns.push(hi);
-      kinds.push(mode === 1 || clears(hi, hiLeftMin) ? 1 : 0);
+      kinds.push(clears(hi, hiLeftMin) ? 1 : 0);
       mode = -1;
       lo = i;
       mLo = mi;
       fLo = fI;
-    } else if (mode <= 0 && mi > mLo * (fLo > fI ? fLo : fI)) {
+    } else if (mi > mLo * (fLo > fI ? fLo : fI)) {
       turns.push(lo);
-      kinds.push(mode === -1 || clears(loLeftMax, lo) ? -1 : 0);
+      kinds.push(clears(loLeftMax, lo) ? -1 : 0);
+      mode = 1;
+      hi = i;
+      mHi = mi;
+      fHi = fI;
+    }
+  }
+  const lastBlock = factors.length - 1;
+  for (; i < n; i++) {
+    const mi = ratio[i] as number;
+    const block = (i - 1) >> NOISE_BLOCK_SHIFT; // noiseBlockOf, inlined for the hot loop
+    const fI = factors[block > lastBlock ? lastBlock : block] as number;
+    if (mode === 1) {
+      if (mi > mHi) {
+        hi = i;
+        mHi = mi;
+        fHi = fI;
+      } else if (mHi > mi * (fHi > fI ? fHi : fI)) {
+        turns.push(hi);
+        kinds.push(1);
+        mode = -1;
+        lo = i;
+        mLo = mi;
+        fLo = fI;
+      }
+    } else if (mi < mLo) {
+      lo = i;
+      mLo = mi;
+      fLo = fI;
+    } else if (mi > mLo * (fLo > fI ? fLo : fI)) {
+      turns.push(lo);
+      kinds.push(-1);
       mode = 1;
       hi = i;
       mHi = mi;
@@ -159,8 +195,8 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
 function readSortedPoints(points: readonly SweepPoint[], source: number): { f: Float64Array; ratio: Float64Array } {
   const n = points.length;
   if (n < 3) throw new CalcInputError("points", "at least 3 readings", n);
-  const f = new Float64Array(n);
-  const ratio = new Float64Array(n);
+  const f = borrowScratch("sweep.frequency", n);
+  const ratio = borrowScratch("sweep.ratio", n);
   let sorted = true;
   for (let i = 0; i < n; i++) {
     const point = points[i] as SweepPoint;
@@ -186,8 +222,8 @@ function readSortedPoints(points: readonly SweepPoint[], source: number): { f: F
   const order = new Uint32Array(n);
   for (let i = 0; i < n; i++) order[i] = i;
   order.sort((a, b) => (f[a] as number) - (f[b] as number) || a - b);
-  const fs = new Float64Array(n);
-  const rs = new Float64Array(n);
+  const fs = borrowScratch("sweep.sortedFrequency", n);
+  const rs = borrowScratch("sweep.sortedRatio", n);
   for (let k = 0; k < n; k++) {
     const i = order[k] as number;
     fs[k] = f[i] as number;
