@@ -21,6 +21,18 @@ function idealReadings(kind: "series" | "parallel", r: number, f0: number, q: nu
 
 describe("fitResonance", () => {
   const r = 10_000;
+  const input = (kind: "series" | "parallel", f: Float64Array, ratio: Float64Array, peak: number, from: number, to: number) => ({
+    kind,
+    f,
+    ratio,
+    peak,
+    from,
+    to,
+    seriesResistance: r,
+    noiseMargin: 1e-4,
+    relativeNoise: 0.01,
+    absoluteNoise: 0,
+  });
   const f0 = 312_345;
   const fs = Array.from({ length: 201 }, (_, i) => f0 * (0.9 + (0.2 * i) / 200 + 0.0003 * Math.sin(7 * i)));
   const f = Float64Array.from(fs);
@@ -29,7 +41,7 @@ describe("fitResonance", () => {
     // derived: m²/(1 − m²) is exactly a parabola in f for this resonance
     const ratio = idealReadings("series", r, f0, 40, 350, fs);
     const peak = ratio.indexOf(Math.min(...ratio));
-    const fit = fitResonance("series", f, ratio, peak, 0, f.length - 1, r, 0.01);
+    const fit = fitResonance(input("series", f, ratio, peak, 0, f.length - 1));
     expect(fit.method).toBe("lorentzian");
     expect(fit.frequency / f0).toBeCloseTo(1, 9);
     expect(fit.impedance / 350).toBeCloseTo(1, 8);
@@ -40,7 +52,7 @@ describe("fitResonance", () => {
     // derived: 1/m² is exactly a parabola in f for this resonance
     const ratio = idealReadings("parallel", r, f0, 25, 60_000, fs);
     const peak = ratio.indexOf(Math.max(...ratio));
-    const fit = fitResonance("parallel", f, ratio, peak, 0, f.length - 1, r, 0.01);
+    const fit = fitResonance(input("parallel", f, ratio, peak, 0, f.length - 1));
     expect(fit.frequency / f0).toBeCloseTo(1, 9);
     expect(fit.impedance / 60_000).toBeCloseTo(1, 8);
     expect((fit.q ?? 0) / 25).toBeCloseTo(1, 8);
@@ -49,7 +61,7 @@ describe("fitResonance", () => {
   it("still places a resonance sampled by three points, but gives no Q", () => {
     const coarse = Float64Array.from([0.8, 0.97, 1.05, 1.2].map((k) => k * f0));
     const ratio = idealReadings("series", r, f0, 40, 350, Array.from(coarse));
-    const fit = fitResonance("series", coarse, ratio, 1, 0, 3, r, 0.01);
+    const fit = fitResonance(input("series", coarse, ratio, 1, 0, 3));
     expect(fit.q).toBeUndefined();
     // the three samples around the minimum straddle f0 by ±3–5 %; the vertex lands much closer
     expect(Math.abs(fit.frequency / f0 - 1)).toBeLessThan(0.01);

@@ -44,26 +44,37 @@ export const MAX_Q_RELATIVE_ERROR = 0.1;
 /** Refits on f₀ ± Δf until the window stops changing, at most this often. */
 const MAX_REFITS = 4;
 
+export interface ResonanceFitInput {
+  kind: ResonanceKind;
+  /** Frequencies, Hz, strictly increasing. */
+  f: Float64Array;
+  /** Readings as Vout/Vin, 0 < ratio < 1. */
+  ratio: Float64Array;
+  /** Index of the extremum sample. */
+  peak: number;
+  /** Samples from … to (inclusive) may be used; the neighbouring turning points bound them. from < peak < to. */
+  from: number;
+  to: number;
+  /** R of the divider, Ω. */
+  seriesResistance: number;
+  /**
+   * The change in the reading (as a ratio) that noise alone cannot produce near the peak, i.e. the
+   * detection threshold: the first window spans at least the samples within it, so a flat, noisy
+   * top is fitted on enough samples rather than on its noisiest few.
+   */
+  noiseMargin: number;
+  /** Noise model of the ratio readings (noise-estimate.ts): σ = √((relative·m)² + absolute²). */
+  relativeNoise: number;
+  absoluteNoise: number;
+}
+
 /**
- * Refines the extremum at sample `peak` of a sorted sweep (f in Hz, ratio = Vout/Vin) using only
- * samples `from` … `to` (inclusive; the neighbouring turning points bound it). `noiseDrop` is the
- * change in ln(reading) that noise alone cannot produce (the detection threshold at the peak): the
- * first window spans at least the samples within it, so a flat, noisy top is fitted on enough
- * samples rather than on its noisiest few.
- * Callers guarantee from < peak < to, strictly increasing f and 0 < ratio < 1.
+ * Refines one extremum of a sorted sweep; see the module comment for the method.
  * Sources: the resonance forms above (derived; references.md, "Sweeps through a series resistor");
  * Q = f₀/Δf at half power (textbook definition).
  */
-export function fitResonance(
-  kind: ResonanceKind,
-  f: Float64Array,
-  ratio: Float64Array,
-  peak: number,
-  from: number,
-  to: number,
-  seriesResistance: number,
-  noiseDrop: number,
-): ResonanceEstimate {
+export function fitResonance(input: ResonanceFitInput): ResonanceEstimate {
+  const { kind, f, ratio, peak, from, to, seriesResistance, noiseMargin } = input;
   const series = kind === "series";
   const transform = series ? seriesTransform : parallelTransform;
   // Pass 1: samples within about twice the half-power reactance of the raw extremum, or within
@@ -72,7 +83,7 @@ export function fitResonance(
   const vPeak = transform(mPeak);
   const rg = Math.sqrt(vPeak) - 1;
   const vLimit = series ? 5 * vPeak : (1 + rg) * (1 + rg) + 4 * rg * rg;
-  const mLimit = series ? mPeak * Math.exp(noiseDrop) : mPeak * Math.exp(-noiseDrop);
+  const mLimit = series ? mPeak + noiseMargin : mPeak - noiseMargin;
   const inside = (i: number) => {
     const m = ratio[i] as number;
     return transform(m) <= vLimit || (series ? m <= mLimit : m >= mLimit);
@@ -83,7 +94,8 @@ export function fitResonance(
   while (hi < to && inside(hi + 1)) hi++;
 
   const scratch = borrowScratch("resonance-fit.window", 3 * (to - from + 1));
-  let fit = fitWindow(series, f, ratio, lo, hi, scratch);
+  const noise = { relative: input.relativeNoise, absolute: input.absoluteNoise };
+  let fit = fitWindow(series, f, ratio, lo, hi, scratch, noise);
   // Refits on f₀ ± Δf of the previous fit (|X| ≤ 2R_s), where the Lorentzian form holds.
   // Converged: the last fit was made on its own f₀ ± Δf window (give or take a sample at each end
   // of a well-filled window, which noise can toggle). Otherwise the window was not the
@@ -97,7 +109,7 @@ export function fitResonance(
       break;
     }
     if (nextHi - nextLo < 2 || pass === MAX_REFITS) break;
-    const next = fitWindow(series, f, ratio, nextLo, nextHi, scratch);
+    const next = fitWindow(series, f, ratio, nextLo, nextHi, scratch, noise);
     if (next === null) break;
     fit = next;
     lo = nextLo;
@@ -156,11 +168,19 @@ interface WindowFit {
 }
 
 /**
- * The transformed readings of samples lo … hi against u = (f − centre)/half-width, weighted for
- * noise proportional to the reading: σ_v ∝ 2v/(1 − m²) (series), 2v (parallel).
- * Null unless the vertex is a minimum inside the window and physically possible.
+ * The transformed readings of samples lo … hi against u = (f − centre)/half-width, weighted by
+ * 1/σ_v², σ_v = |dv/dm|·σ_m with σ_m² = (relative·m)² + absolute²: dv/dm = 2m/(1 − m²)² (series),
+ * −2/m³ (parallel). Null unless the vertex is a minimum inside the window and physically possible.
  */
-function fitWindow(series: boolean, f: Float64Array, ratio: Float64Array, lo: number, hi: number, scratch: Float64Array): WindowFit | null {
+function fitWindow(
+  series: boolean,
+  f: Float64Array,
+  ratio: Float64Array,
+  lo: number,
+  hi: number,
+  scratch: Float64Array,
+  noise: { relative: number; absolute: number },
+): WindowFit | null {
   const count = hi - lo + 1;
   if (count < 3) return null;
   const u = scratch.subarray(0, count);
@@ -173,15 +193,16 @@ function fitWindow(series: boolean, f: Float64Array, ratio: Float64Array, lo: nu
   for (let k = 0; k < count; k++) {
     const m = ratio[lo + k] as number;
     u[k] = ((f[lo + k] as number) - centre) / scale;
+    const sigmaM2 = noise.relative * noise.relative * m * m + noise.absolute * noise.absolute;
     if (series) {
       const oneMinus = 1 - m * m;
-      const value = (m * m) / oneMinus;
-      v[k] = value;
-      w[k] = (oneMinus / value) ** 2;
+      v[k] = (m * m) / oneMinus;
+      const slope = (2 * m) / (oneMinus * oneMinus);
+      w[k] = 1 / (slope * slope * sigmaM2);
     } else {
-      const value = 1 / (m * m);
-      v[k] = value;
-      w[k] = 1 / (value * value);
+      v[k] = 1 / (m * m);
+      const m3 = m * m * m;
+      w[k] = (m3 * m3) / (4 * sigmaM2);
     }
   }
   const fit = fitWeightedQuadratic(u, v, w, count);

@@ -145,8 +145,8 @@ describe("analyzeSweep on synthetic coils", () => {
       });
       if (count >= 3_000) {
         // dense enough that the curve is locally straight between neighbours (noise-estimate.ts)
-        expect(result.readingNoise / noise).toBeGreaterThan(0.85);
-        expect(result.readingNoise / noise).toBeLessThan(1.2);
+        expect(result.readingNoise.relative / noise).toBeGreaterThan(0.85);
+        expect(result.readingNoise.relative / noise).toBeLessThan(1.2);
       }
     }
   });
@@ -201,6 +201,45 @@ describe("analyzeSweep on synthetic coils", () => {
         },
       ),
       { numRuns: 60 },
+    );
+  });
+
+  it("is not fooled by the scope's noise floor at the bottom of deep dips", () => {
+    // high-Q dips reach about 30 mV of 20 V, where a 10 mV floor is a third of the reading
+    const sharp = createLineModel({
+      firstSeriesResonance: 180e3,
+      characteristicImpedance: 5e3,
+      topCapacitance: 12e-12,
+      dispersionExponent: 0.15,
+      q: 150,
+    });
+    const sharpTruth = trueExtrema(sharp, fLow, fHigh);
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 2 ** 31 }), fc.constantFrom(300, 1_000, 5_000, 20_000), (seed, count) => {
+        const points = simulateSweep({
+          model: sharp,
+          seriesResistance: R,
+          sourceAmplitude: VIN,
+          frequencies: unevenFrequencies(count, fLow, fHigh, seed),
+          noise: { relative: 0.003, absolute: 0.01 },
+          rng: createSeededRandom(seed + 1),
+        });
+        const result = analyzeSweep({ seriesResistance: R, sourceAmplitude: VIN, points });
+        expect(result.seriesResonances.length).toBeLessThanOrEqual(sharpTruth.series.length);
+        expect(result.parallelResonances.length).toBeLessThanOrEqual(sharpTruth.parallel.length);
+        for (const r of [...result.seriesResonances, ...result.parallelResonances]) {
+          const all = [...sharpTruth.series, ...sharpTruth.parallel];
+          const t = all[nearest(all, r.frequency)];
+          expect(Math.abs(r.frequency / (t?.frequency ?? 0) - 1)).toBeLessThan(0.02);
+        }
+        if (count >= 5_000) {
+          // dense sweeps resolve every resonance, and the floor is recognised as such
+          expect(result.seriesResonances.length).toBe(sharpTruth.series.length);
+          expect(result.readingNoise.absolute / 0.01).toBeGreaterThan(0.7);
+          expect(result.readingNoise.absolute / 0.01).toBeLessThan(1.4);
+        }
+      }),
+      { numRuns: 40 },
     );
   });
 

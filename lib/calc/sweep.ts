@@ -4,19 +4,18 @@
  * impedance and, where the data resolve it, its Q.
  *
  * The rule for "is this a resonance or a wiggle" (documented here because a steward relies on it):
- * 1. Readings are compared in ratio, i.e. as y = ln(Vout/Vin). Noise lives in the readings, roughly
- *    in proportion to them, so it is about equally large everywhere in y, whereas in
- *    ln|Z| = ln R + y − ln(1 − Vout/Vin) it is stretched many times near a parallel resonance.
- *    |Z| rises with the reading, so the extrema of the readings are exactly the extrema of |Z|.
- * 2. The noise scale σ (relative) comes from the data: a robust median of the residuals of each
- *    point against the straight line through its neighbours, per block of 128 points and overall
- *    (see noise-estimate.ts).
- * 3. A minimum counts only if the curve rises from it by more than z·√2·σ in y on BOTH sides
- *    before the next counted maximum (and vice versa), σ the larger local scale of the two samples
- *    compared: a hysteresis ("zig-zag") walk through the data, one pass. z is set so that pure
- *    Gaussian noise produces a false pair with probability below 0.1 % over the whole sweep: a
- *    union bound over all n(n−1)/2 pairs of samples gives z = Φ⁻¹(1 − 0.001/(n(n−1)/2)), about 5.3
- *    for 200 points and 7.3 for 100 000 (the bound is loose: 3 000 pure-noise sweeps gave none).
+ * 1. Readings are compared as they were taken, Vout/Vin. |Z| rises with the reading, so the
+ *    extrema of the readings are exactly the extrema of |Z|, and the noise is judged where it
+ *    arises instead of being stretched by the conversion to |Z| (many times, near a parallel peak).
+ * 2. The noise comes from the data (noise-estimate.ts): residuals of each point against the straight
+ *    line through its neighbours give, robustly, a part proportional to the reading and a fixed
+ *    floor, σ_i = √((relative·m_i)² + absolute²), times a factor for noisier stretches (blocks of
+ *    128 points). The floor matters at the bottom of a deep dip, where it may be most of the reading.
+ * 3. A minimum counts only if the curve rises from it by more than z·√(σ_a² + σ_b²) on BOTH sides
+ *    before the next counted maximum (and vice versa): a hysteresis ("zig-zag") walk through the
+ *    data, one pass. z is set so that pure Gaussian noise produces a false pair with probability
+ *    below 0.1 % over the whole sweep: a union bound over all n(n−1)/2 pairs of samples gives
+ *    z = Φ⁻¹(1 − 0.001/(n(n−1)/2)), about 5.3 for 200 points and 7.3 for 100 000 (the bound is loose).
  *    Minima and maxima therefore alternate, as the resonances of a lossless one-port must
  *    (Foster's reactance theorem, R. M. Foster, Bell Syst. Tech. J. 3, 1924 — from memory).
  * 4. Extrema at the ends of the sweep are not reported: without data on both sides they are not
@@ -26,7 +25,7 @@
  */
 import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
 import { CalcInputError, requirePositive } from "./errors";
-import { estimateNoiseScale, NOISE_BLOCK_SHIFT, noiseBlockOf } from "./noise-estimate";
+import { estimateNoise, NOISE_BLOCK_SHIFT, noiseBlockOf } from "./noise-estimate";
 import { fitResonance } from "./resonance-fit";
 import { borrowScratch } from "./scratch-buffers";
 
@@ -62,8 +61,11 @@ export interface SweepAnalysis {
   seriesResonances: SeriesResonance[];
   /** Sorted by frequency. */
   parallelResonances: ParallelResonance[];
-  /** Estimated standard deviation of the readings' noise, as a fraction of the reading (0.01 = 1 %). */
-  readingNoise: number;
+  /**
+   * Noise on the readings as estimated from the sweep itself: standard deviation
+   * √((relative·Vout)² + absolute²), relative a fraction of the reading (0.01 = 1 %), absolute in V.
+   */
+  readingNoise: { relative: number; absolute: number };
 }
 
 /** Probability that pure noise yields one false resonance pair anywhere in a sweep. */
@@ -75,18 +77,27 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
   const { f, ratio } = readSortedPoints(input.points, source);
   const n = f.length;
 
-  const noise = estimateNoiseScale(f, ratio, n);
+  const noise = estimateNoise(f, ratio, n);
+  const rel2 = noise.relative * noise.relative;
+  const abs2 = noise.absolute * noise.absolute;
+  const factor2 = noise.blockFactor.map((x) => x * x);
+  const lastBlock = factor2.length - 1;
   const pairs = (n * (n - 1)) / 2;
   const z = -normalQuantile(FALSE_ALARM_PROBABILITY / pairs, 0, 1);
-  // Threshold as a factor on the reading per noise block: ln(a/b) > z·√2·σ ⟺ a > b·e^(z√2σ).
-  // Taking the larger σ of the two samples compared (rather than √(σa² + σb²)/√2) errs on the safe side.
-  const factors = noise.block.map((sigma) => Math.exp(z * Math.SQRT2 * sigma));
-  const factorAt = (i: number) => factors[noiseBlockOf(noise, i)] as number;
-  const clears = (high: number, low: number) =>
-    (ratio[high] as number) > (ratio[low] as number) * Math.max(factorAt(high), factorAt(low));
+  const z2 = z * z;
+  /** Noise variance of reading i (as a ratio). */
+  const varianceAt = (i: number) => {
+    const m = ratio[i] as number;
+    return (factor2[noiseBlockOf(noise, i)] as number) * (rel2 * m * m + abs2);
+  };
+  /** True when reading `high` exceeds reading `low` by more than noise can: m_h − m_l > z·√(σ_h² + σ_l²). */
+  const clears = (high: number, low: number) => {
+    const d = (ratio[high] as number) - (ratio[low] as number);
+    return d > 0 && d * d > z2 * (varianceAt(high) + varianceAt(low));
+  };
 
   // Hysteresis walk. turns: every confirmed turning point; kinds: +1 max, −1 min, 0 not reported.
-  // mHi/fHi, mLo/fLo: reading and threshold factor of the running maximum and minimum.
+  // mHi/vHi, mLo/vLo: reading and noise variance of the running maximum and minimum.
   const turns: number[] = [];
   const kinds: number[] = [];
   let mode = 0; // 0: no turn yet; 1: after a minimum, seeking a maximum; −1: the reverse
@@ -94,8 +105,8 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
   let lo = 0;
   let mHi = ratio[0] as number;
   let mLo = mHi;
-  let fHi = factorAt(0);
-  let fLo = fHi;
+  let vHi = varianceAt(0);
+  let vLo = vHi;
   let i = 1;
   // Until the first turn, also track how far the curve had come down (up) before the running
   // maximum (minimum): the first turn is a resonance only if it stands out on its left side too.
@@ -105,66 +116,71 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
   let loLeftMax = 0;
   for (; i < n && mode === 0; i++) {
     const mi = ratio[i] as number;
-    const fI = factorAt(i);
+    const vI = varianceAt(i);
     if (mi < (ratio[runMin] as number)) runMin = i;
     if (mi > (ratio[runMax] as number)) runMax = i;
     if (mi > mHi) {
       hi = i;
       mHi = mi;
-      fHi = fI;
+      vHi = vI;
       hiLeftMin = runMin;
     }
     if (mi < mLo) {
       lo = i;
       mLo = mi;
-      fLo = fI;
+      vLo = vI;
       loLeftMax = runMax;
     }
-    if (mHi > mi * (fHi > fI ? fHi : fI)) {
+    const dHi = mHi - mi;
+    const dLo = mi - mLo;
+    if (dHi * dHi > z2 * (vHi + vI)) {
       turns.push(hi);
       kinds.push(clears(hi, hiLeftMin) ? 1 : 0);
       mode = -1;
       lo = i;
       mLo = mi;
-      fLo = fI;
-    } else if (mi > mLo * (fLo > fI ? fLo : fI)) {
+      vLo = vI;
+    } else if (dLo * dLo > z2 * (vLo + vI)) {
       turns.push(lo);
       kinds.push(clears(loLeftMax, lo) ? -1 : 0);
       mode = 1;
       hi = i;
       mHi = mi;
-      fHi = fI;
+      vHi = vI;
     }
   }
-  const lastBlock = factors.length - 1;
   for (; i < n; i++) {
     const mi = ratio[i] as number;
     const block = (i - 1) >> NOISE_BLOCK_SHIFT; // noiseBlockOf, inlined for the hot loop
-    const fI = factors[block > lastBlock ? lastBlock : block] as number;
+    const vI = (factor2[block > lastBlock ? lastBlock : block] as number) * (rel2 * mi * mi + abs2);
     if (mode === 1) {
-      if (mi > mHi) {
+      const d = mHi - mi;
+      if (d < 0) {
         hi = i;
         mHi = mi;
-        fHi = fI;
-      } else if (mHi > mi * (fHi > fI ? fHi : fI)) {
+        vHi = vI;
+      } else if (d * d > z2 * (vHi + vI)) {
         turns.push(hi);
         kinds.push(1);
         mode = -1;
         lo = i;
         mLo = mi;
-        fLo = fI;
+        vLo = vI;
       }
-    } else if (mi < mLo) {
-      lo = i;
-      mLo = mi;
-      fLo = fI;
-    } else if (mi > mLo * (fLo > fI ? fLo : fI)) {
-      turns.push(lo);
-      kinds.push(-1);
-      mode = 1;
-      hi = i;
-      mHi = mi;
-      fHi = fI;
+    } else {
+      const d = mi - mLo;
+      if (d < 0) {
+        lo = i;
+        mLo = mi;
+        vLo = vI;
+      } else if (d * d > z2 * (vLo + vI)) {
+        turns.push(lo);
+        kinds.push(-1);
+        mode = 1;
+        hi = i;
+        mHi = mi;
+        vHi = vI;
+      }
     }
   }
   // The extremum still being tracked at the end is unconfirmed, but it still bounds the last fit.
@@ -177,15 +193,27 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
     const kind = kinds[k];
     if (kind === 0) continue;
     const peak = turns[k] as number;
-    const from = k > 0 ? (turns[k - 1] as number) : 0;
-    const to = k + 1 < turns.length ? (turns[k + 1] as number) : n - 1;
-    const noiseDrop = Math.log(factorAt(peak));
-    const fit = fitResonance(kind === -1 ? "series" : "parallel", f, ratio, peak, from, to, resistance, noiseDrop);
+    const fit = fitResonance({
+      kind: kind === -1 ? "series" : "parallel",
+      f,
+      ratio,
+      peak,
+      from: k > 0 ? (turns[k - 1] as number) : 0,
+      to: k + 1 < turns.length ? (turns[k + 1] as number) : n - 1,
+      seriesResistance: resistance,
+      noiseMargin: z * Math.sqrt(2 * varianceAt(peak)),
+      relativeNoise: noise.relative,
+      absoluteNoise: noise.absolute,
+    });
     const resonance: SeriesResonance = { frequency: fit.frequency, impedance: fit.impedance };
     if (fit.q !== undefined) resonance.q = fit.q;
     (kind === -1 ? seriesResonances : parallelResonances).push(resonance);
   }
-  return { seriesResonances, parallelResonances, readingNoise: noise.global };
+  return {
+    seriesResonances,
+    parallelResonances,
+    readingNoise: { relative: noise.relative, absolute: noise.absolute * source },
+  };
 }
 
 /**
