@@ -6,6 +6,7 @@
  */
 import { CalcInputError, requireFinite, requireNonNegative, requirePositive } from "./errors";
 import { invertSymmetric3 } from "./invert-symmetric-3";
+import { minimizeScalar } from "./minimize-scalar";
 
 /** Specific heat of aluminium, J/(kg·K): 0.897 J/(g·K) (references.md, "Heat sink warm-up"; EDN). */
 export const ALUMINIUM_SPECIFIC_HEAT_J_PER_KG_K = 897;
@@ -43,10 +44,10 @@ export interface HeatingCurve {
   explanation: string;
 }
 
-/** Grid density for the bracketing search over ln τ. */
-const GRID_PER_DECADE = 6;
-/** Golden-section steps after bracketing: shrink the ln τ bracket by 0.618³⁵ ≈ 5e-8. */
-const GOLDEN_STEPS = 35;
+/** Grid density for bracketing the minimum over ln τ (the residual is smooth and single-valleyed in ln τ). */
+const GRID_PER_DECADE = 4;
+/** Precision of ln τ in the final search: far below any run's uncertainty in τ. */
+const LOG_TAU_TOLERANCE = 1e-9;
 
 /**
  * Least-squares fit of T(t) = Ta + ΔT∞·(1 − e^(−t/τ)) (lumped-capacitance method; Incropera &
@@ -54,7 +55,7 @@ const GOLDEN_STEPS = 35;
  * Method: variable projection (G. H. Golub & V. Pereyra, SIAM J. Numer. Anal. 10(2), 1973 — from
  * memory). For a fixed τ the model is linear in Ta and ΔT∞, solved exactly by a 2×2 least squares;
  * what remains is a one-dimensional search of the residual over ln τ, bracketed on a grid from
- * below the sampling step to 1000× the run and refined by golden section. Chosen over
+ * below the sampling step to 1000× the run and refined by Brent's method (minimize-scalar.ts). Chosen over
  * Levenberg–Marquardt (ml-levenberg-marquardt) because it needs no starting guess and cannot
  * wander to a negative τ or diverge when τ ≫ the run, which is exactly the short-run case this
  * fit must handle; the grid also finds the global minimum over the whole plausible range.
@@ -89,44 +90,27 @@ export function fitHeatingCurve(samples: readonly HeatingSample[]): HeatingCurve
   const logLow = Math.log(minStep / 20);
   const logHigh = Math.log(1000 * duration);
   const cells = Math.max(2, Math.ceil(((logHigh - logLow) / Math.LN10) * GRID_PER_DECADE));
+  const at = (k: number) => logLow + ((logHigh - logLow) * k) / cells;
   let best = 0;
   let bestRss = Number.POSITIVE_INFINITY;
   for (let k = 0; k <= cells; k++) {
-    const rss = projectedFit(t, centred, Math.exp(logLow + ((logHigh - logLow) * k) / cells)).rss;
+    const rss = projectedFit(t, centred, Math.exp(at(k))).rss;
     if (rss < bestRss) {
       bestRss = rss;
       best = k;
     }
   }
-  const at = (k: number) => logLow + ((logHigh - logLow) * k) / cells;
-  let a = at(Math.max(0, best - 1));
-  let b = at(Math.min(cells, best + 1));
-  const g = (Math.sqrt(5) - 1) / 2;
-  let x1 = b - g * (b - a);
-  let x2 = a + g * (b - a);
-  let f1 = projectedFit(t, centred, Math.exp(x1)).rss;
-  let f2 = projectedFit(t, centred, Math.exp(x2)).rss;
-  for (let step = 0; step < GOLDEN_STEPS; step++) {
-    if (f1 < f2) {
-      b = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b - g * (b - a);
-      f1 = projectedFit(t, centred, Math.exp(x1)).rss;
-    } else {
-      a = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a + g * (b - a);
-      f2 = projectedFit(t, centred, Math.exp(x2)).rss;
-    }
-  }
-  const logTau = (a + b) / 2;
+  const logTau = minimizeScalar(
+    (logT) => projectedFit(t, centred, Math.exp(logT)).rss,
+    at(Math.max(0, best - 1)),
+    at(Math.min(cells, best + 1)),
+    LOG_TAU_TOLERANCE,
+  );
   const tau = Math.exp(logTau);
   const fit = projectedFit(t, centred, tau);
   const ambient = mean + fit.intercept;
   const rise = fit.slope;
-  const atUpperBound = logTau > logHigh - 2 * (logHigh - logLow) / cells;
+  const atUpperBound = logTau > at(cells - 2);
   const errors = standardErrors(t, rise, tau, fit.rss, n);
   const residualStd = n > 3 ? Math.sqrt(fit.rss / (n - 3)) : 0;
   const curve = { ambient, rise, timeConstant: tau, steadyState: ambient + rise, duration };
