@@ -20,8 +20,8 @@ export interface DividerReading {
  * |Z| in Ω from a divider reading.
  *
  * Without a phase this is |Z| = R·m/(1 − m), m = Vout/Vin, which is exact only while Z is purely
- * resistive, i.e. right at a series or parallel resonance; between resonances it misreads |Z|
- * (by up to a factor of √2 at ±45°). With the phase φ of Z known the magnitude is exact.
+ * resistive, i.e. right at a series or parallel resonance; between resonances it overstates |Z|,
+ * by up to 1/cos φ (√2 at ±45°) when |Z| ≫ R. With the phase φ of Z known the magnitude is exact.
  * Refuses m ≥ 1: a passive divider can never show more across Z than the generator gives.
  */
 export function dividerImpedance(reading: DividerReading): number {
