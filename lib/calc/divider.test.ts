@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { dividerImpedance, impedanceFromDividerRatio } from "./divider";
 import { CalcInputError } from "./errors";
@@ -69,6 +70,20 @@ describe("dividerImpedance", () => {
     const withPhase = impedanceFromDividerRatio(r, m, Math.PI / 4);
     expect(Math.abs(amplitudeOnly / Math.hypot(z.re, z.im) - 1)).toBeGreaterThan(0.05);
     expect(withPhase / Math.hypot(z.re, z.im)).toBeCloseTo(1, 10);
+  });
+
+  it("overstates |Z| off resonance, by at most 1/cos φ", () => {
+    // derived: |R + Z| ≤ R + |Z| gives the lower bound; |Z| ≫ R approaches |Z|/cos φ
+    fc.assert(
+      fc.property(fc.double({ min: -1.5, max: 1.5, noNaN: true }), fc.double({ min: -3, max: 3, noNaN: true }), (phase, logRatio) => {
+        const r = 1_000;
+        const magnitude = r * 10 ** logRatio;
+        const h = dividerPhasor(r, magnitude * Math.cos(phase), magnitude * Math.sin(phase));
+        const amplitudeOnly = impedanceFromDividerRatio(r, Math.hypot(h.re, h.im));
+        expect(amplitudeOnly).toBeGreaterThanOrEqual(magnitude * (1 - 1e-9));
+        expect(amplitudeOnly).toBeLessThanOrEqual((magnitude / Math.cos(phase)) * (1 + 1e-9));
+      }),
+    );
   });
 
   it("returns 0 Ω for a zero reading (a short)", () => {
