@@ -67,8 +67,8 @@ export function noiseAt(model: NoiseModel, i: number, y: number): number {
  * (T. Gasser, L. Sroka & C. Jennen-Steinmetz, "Residual variance and residual pattern in nonlinear
  * regression", Biometrika 73(3), 1986 — from memory).
  * Robust throughout: the residuals are grouped into half-octave bins of the reading; in each bin the
- * median e², divided by the χ²₁ median, estimates relative²·y² + absolute², and a weighted
- * non-negative least-squares fit over the bins gives both parts. Medians barely move for the few
+ * median e², divided by the χ²₁ median, estimates relative²·y² + absolute², and a weighted L1 fit
+ * of the logarithms over the bins gives both parts. Medians barely move for the few
  * large residuals where the curve bends sharply (at resonances); where they do (a sparse sweep
  * with most samples on bends) the estimate errs large, which only makes detection more cautious.
  * Exact zeros are left out so that quantised readings, which often repeat, do not report zero
@@ -125,9 +125,10 @@ function fitLevelModel(squares: Float64Array, levels: Float64Array, used: number
     grouped[cursor[b] as number] = squares[k] as number;
     cursor[b] = (cursor[b] as number) + 1;
   }
-  // Weighted least squares of v_b = r·q_b + a over bins (r = relative², a = absolute², q_b = mean y²),
-  // weights n_b/v_b² for medians of n_b values; clipped to r, a ≥ 0.
-  let sw = 0, swq = 0, swqq = 0, swv = 0, swqv = 0, bins = 0;
+  // Per bin: v = median e² / χ²₁ median (an estimate of the noise variance there), q = mean y².
+  const vs: number[] = [];
+  const qs: number[] = [];
+  const ns: number[] = [];
   for (let b = 0; b < BINS; b++) {
     const start = counts[b] as number;
     const n = (counts[b + 1] as number) - start;
@@ -136,39 +137,50 @@ function fitLevelModel(squares: Float64Array, levels: Float64Array, used: number
     const step = Math.ceil(n / MAX_PER_MEDIAN);
     let kept = 0;
     for (let j = start; j < start + n; j += step) grouped[start + kept++] = grouped[j] as number;
-    const v = selectMedianInPlace(grouped.subarray(start, start + kept)) / CHI2_1_MEDIAN;
-    const q = (levelSquares[b] as number) / n;
-    const w = n / (v * v);
-    sw += w;
-    swq += w * q;
-    swqq += w * q * q;
-    swv += w * v;
-    swqv += w * q * v;
-    bins++;
+    vs.push(selectMedianInPlace(grouped.subarray(start, start + kept)) / CHI2_1_MEDIAN);
+    qs.push((levelSquares[b] as number) / n);
+    ns.push(n);
   }
   let r = 0;
   let a = 0;
-  if (bins >= 2) {
-    const det = sw * swqq - swq * swq;
-    r = det > 0 ? (sw * swqv - swq * swv) / det : -1;
-    a = det > 0 ? (swqq * swv - swq * swqv) / det : -1;
-    if (r < 0) {
-      r = 0;
-      a = swv / sw;
-    } else if (a < 0) {
-      a = 0;
-      r = swqv / swqq;
+  if (vs.length >= 2) {
+    // v = r·(q + c), c = (absolute/relative)², the level² where both parts are equal. For each
+    // candidate c (none, or at a bin's level) the best r is the weighted median of ln v − ln(q + c),
+    // and the c with the least weighted absolute deviation wins: an L1 fit in logarithms, which
+    // neither a stray bin nor one with an accidentally tiny median can drag far.
+    let bestCost = Number.POSITIVE_INFINITY;
+    for (const c of [0, ...qs]) {
+      const d = vs.map((v, k) => Math.log(v) - Math.log((qs[k] as number) + c));
+      const centre = weightedMedian(d, ns);
+      const cost = d.reduce((sum, x, k) => sum + (ns[k] as number) * Math.abs(x - centre), 0);
+      if (cost < bestCost * (1 - 1e-12)) {
+        bestCost = cost;
+        r = Math.exp(centre);
+        a = r * c;
+      }
     }
   } else {
     // Too few levels to separate the parts: all of it relative, from every non-zero residual.
     let n = 0;
     for (let k = 0; k < used; k++) {
-      const s = squares[k] as number;
-      if (s > 0) grouped[n++] = s / (levels[k] as number) ** 2;
+      const sq = squares[k] as number;
+      if (sq > 0) grouped[n++] = sq / (levels[k] as number) ** 2;
     }
     r = n === 0 ? 0 : selectMedianInPlace(grouped, n) / CHI2_1_MEDIAN;
   }
   return { relative: Math.max(NOISE_SCALE_FLOOR, Math.sqrt(r)), absolute: Math.sqrt(a) };
+}
+
+/** The value that splits the total weight in half (the lower one on an exact tie). */
+function weightedMedian(values: number[], weights: number[]): number {
+  const order = values.map((_, k) => k).sort((i, j) => (values[i] as number) - (values[j] as number));
+  const half = weights.reduce((sum, w) => sum + w, 0) / 2;
+  let running = 0;
+  for (const k of order) {
+    running += weights[k] as number;
+    if (running >= half) return values[k] as number;
+  }
+  return values[order[order.length - 1] as number] as number;
 }
 
 /** Local excess over the model per block of points, widened to neighbours; [1] for short curves. */
