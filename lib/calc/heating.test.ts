@@ -106,6 +106,22 @@ describe("fitHeatingCurve", () => {
     expect(lm.parameterValues[1] ?? 0).toBeCloseTo(ours.rise, 2);
   });
 
+  it("finds the same τ and steady state when the log starts after switch-on", () => {
+    // derived: Ta + ΔT(1 − e^(−(t−t0)/τ)) is again of the model's form with the same τ and Ta + ΔT
+    const late = warmUp(truth, 2_400, 20, 0, 1).filter((s) => s.time >= 300);
+    const fit = fitHeatingCurve(late);
+    expect(fit.timeConstant / 420).toBeCloseTo(1, 5);
+    expect(fit.steadyState).toBeCloseTo(60, 5);
+    expect(fit.ambient).toBeCloseTo(22, 4);
+  });
+
+  it("fits a cooling run as a negative rise", () => {
+    const fit = fitHeatingCurve(warmUp({ ambient: 70, rise: -45, tau: 300 }, 1_500, 10, 0.1, 8));
+    expect(Math.abs(fit.rise + 45)).toBeLessThan(4 * fit.standardErrors.rise);
+    expect(Math.abs(fit.timeConstant / 300 - 1)).toBeLessThan(0.03);
+    expect(timeToReachTemperature(fit, 40)).toBeCloseTo(-fit.timeConstant * Math.log(1 - (40 - fit.ambient) / fit.rise), 6);
+  });
+
   it("says a run of 0.3 τ is too short, and a run of 4 τ is not", () => {
     // references.md: a short run cannot pin down the asymptote — report the uncertainty
     for (const seed of [1, 2, 3, 4, 5, 6]) {

@@ -22,6 +22,8 @@
  *    known to be resonances.
  * Not covered: a single wild reading (a glitch far outside the noise) looks like a sharp pair of
  * resonances; the fit then reports it with no Q. Repeat such a sweep.
+ * Readings at or above the source amplitude are refused, as in dividerImpedance: a passive divider
+ * cannot show them, so the probe, its attenuation setting or the recorded Vin is wrong.
  */
 import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
 import { CalcInputError, requirePositive } from "./errors";
