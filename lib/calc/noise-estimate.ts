@@ -26,6 +26,8 @@ export const NOISE_BLOCK_SIZE = 1 << NOISE_BLOCK_SHIFT;
 const CHI2_1_MEDIAN = 0.454_936_423_119_572_8;
 /** Fewest residuals for a level bin to enter the fit of the noise model. */
 const MIN_PER_BIN = 12;
+/** Residuals entering the fit of the two-part model at most. */
+const LEVEL_FIT_SAMPLES = 8_192;
 /** Values per bin median at most: its scatter, about 1.9/√n, is then below 5 %. */
 const MAX_PER_MEDIAN = 2_048;
 /** Half-octave bins of the reading, down to 2⁻³⁰ of the largest. */
@@ -104,11 +106,13 @@ export function estimateNoise(x: Float64Array, y: Float64Array, length = x.lengt
 
 /** The two-part model from binned medians; relative only when the readings span too few levels. */
 function fitLevelModel(squares: Float64Array, levels: Float64Array, used: number, top: number): { relative: number; absolute: number } {
-  // Counting sort of the residuals into half-octave bins of the reading.
+  // Counting sort of the residuals into half-octave bins of the reading; two parameters need no
+  // more than LEVEL_FIT_SAMPLES of them, evenly spread.
+  const thin = Math.ceil(used / LEVEL_FIT_SAMPLES);
   const binOf = new Uint8Array(used);
   const counts = new Int32Array(BINS + 1);
   const levelSquares = new Float64Array(BINS);
-  for (let k = 0; k < used; k++) {
+  for (let k = 0; k < used; k += thin) {
     if ((squares[k] as number) === 0) continue;
     const level = levels[k] as number;
     const b = Math.min(BINS - 1, Math.max(0, Math.floor(-2 * Math.log2(level / top))));
@@ -119,7 +123,7 @@ function fitLevelModel(squares: Float64Array, levels: Float64Array, used: number
   for (let b = 0; b < BINS; b++) counts[b + 1] = (counts[b + 1] as number) + (counts[b] as number);
   const grouped = borrowScratch("noise.grouped", Math.max(1, used));
   const cursor = counts.slice(0, BINS);
-  for (let k = 0; k < used; k++) {
+  for (let k = 0; k < used; k += thin) {
     if ((squares[k] as number) === 0) continue;
     const b = binOf[k] as number;
     grouped[cursor[b] as number] = squares[k] as number;
