@@ -90,6 +90,11 @@ export default async function PostMortemPage({ params }: Props) {
       {failure.status === "closed" ? (
         <section aria-labelledby="findings">
           <h2 id="findings">Findings</h2>
+          {/* A live region, so completing the post-mortem (which replaces the form with this section) is announced. */}
+          <p role="status" className="notice ok">
+            Post-mortem completed {formatDateTime(failure.closedAt)} by {failure.closedBy?.name ?? "—"}
+            {failure.replacementComponent ? `; ${failure.replacementComponent.partNumber} recorded as the replacement` : ""}.
+          </p>
           <dl className="facts">
             <dt>Root cause</dt>
             <dd>{failure.rootCause}</dd>
