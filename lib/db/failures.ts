@@ -3,6 +3,9 @@ import { prisma } from "./client";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import type { FailureMode } from "./generated/enums";
+import { recordAudit } from "./audit";
+import { RecordRefusedError } from "./record-refused";
+import type { FailureInput, PostMortemInput } from "../validation/failure";
 
 export async function listFailures(
   filter: { q?: string; status?: "open" | "closed"; mode?: FailureMode } = {},
@@ -25,4 +28,113 @@ export async function listFailures(
     prisma.failure.count({ where }),
   ]);
   return toPage(rows, total, request);
+}
+
+/**
+ * Records a failure with an audit entry. The session and the failed part must belong to the coil,
+ * and the part must have been fitted when the failure occurred. A failure recorded from a session
+ * sets that session's outcome to "failed" in the same transaction.
+ */
+export async function createFailure(actorId: string, input: FailureInput) {
+  return prisma.$transaction(async (tx) => {
+    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
+    if (!coil) throw new RecordRefusedError("coilId", "Coil: that coil does not exist.");
+    if (input.sessionId) {
+      const session = await tx.runSession.findUnique({ where: { id: input.sessionId }, select: { coilId: true, startedAt: true } });
+      if (!session || session.coilId !== coil.id) throw new RecordRefusedError("sessionId", `Session: choose one of ${coil.tag}'s sessions.`);
+      if (session.startedAt.getTime() > input.occurredAt.getTime()) {
+        throw new RecordRefusedError("occurredAt", "Occurred at: the failure cannot come before the session started.");
+      }
+    }
+    if (input.componentId) {
+      const part = await tx.component.findUnique({ where: { id: input.componentId }, select: { coilId: true, installedAt: true, removedAt: true } });
+      const fitted = part && part.installedAt <= input.occurredAt && (part.removedAt === null || part.removedAt > input.occurredAt);
+      if (!part || part.coilId !== coil.id || !fitted) throw new RecordRefusedError("componentId", `Component: choose a part fitted to ${coil.tag} when the failure occurred.`);
+    }
+    const failure = await tx.failure.create({ data: { ...input, reportedById: actorId, status: "open" } });
+    await recordAudit(tx, { actorId, action: "create", entity: "Failure", entityId: failure.id, summary: `Recorded a ${input.mode} failure on ${coil.tag}`, detail: input });
+    if (input.sessionId) {
+      await tx.runSession.update({ where: { id: input.sessionId }, data: { outcome: "failed" } });
+      await recordAudit(tx, { actorId, action: "update", entity: "RunSession", entityId: input.sessionId, summary: `Outcome set to failed by failure ${failure.id}` });
+    }
+    return { ...failure, coilTag: coil.tag };
+  });
+}
+
+/** A failure with its coil's parts, the session it came from and the sessions before it (with samples, for their margins). */
+export async function getFailureDetail(id: string, sessionsBefore = 5) {
+  const failure = await prisma.failure.findUnique({
+    where: { id },
+    include: {
+      coil: { include: { components: { orderBy: { installedAt: "asc" } } } },
+      component: true,
+      replacementComponent: true,
+      session: { select: { id: true, startedAt: true } },
+      reportedBy: { select: { name: true } },
+      closedBy: { select: { name: true } },
+    },
+  });
+  if (!failure) return null;
+  const recentSessions = await prisma.runSession.findMany({
+    where: { coilId: failure.coilId, startedAt: { lte: failure.occurredAt } },
+    orderBy: { startedAt: "desc" },
+    take: sessionsBefore,
+    include: { samples: { orderBy: { elapsedS: "asc" }, select: { elapsedS: true, temperatureC: true } } },
+  });
+  return { ...failure, recentSessions: recentSessions.reverse() };
+}
+
+export type FailureDetail = NonNullable<Awaited<ReturnType<typeof getFailureDetail>>>;
+
+/**
+ * Completes a post-mortem in one transaction: closes the failure with its root cause and corrective
+ * action and, when a replacement is given, creates it and marks the failed part removed and replaced
+ * by it. Any refusal (already closed, part already replaced, replacement fitted before the failure)
+ * rolls back everything, so nothing is half-written.
+ */
+export async function completePostMortem(actorId: string, input: PostMortemInput) {
+  return prisma.$transaction(async (tx) => {
+    const failure = await tx.failure.findUnique({ where: { id: input.failureId }, include: { coil: { select: { tag: true } }, component: true } });
+    if (!failure) throw new RecordRefusedError("failureId", "That failure does not exist.");
+    if (failure.status === "closed") throw new RecordRefusedError("_form", "This post-mortem was already completed.", true);
+    const closedAt = new Date();
+    await tx.failure.update({
+      where: { id: failure.id },
+      data: { rootCause: input.rootCause, correctiveAction: input.correctiveAction, status: "closed", closedAt, closedById: actorId },
+    });
+    await recordAudit(tx, {
+      actorId,
+      action: "update",
+      entity: "Failure",
+      entityId: failure.id,
+      summary: `Completed the post-mortem of the ${failure.mode} failure on ${failure.coil.tag}`,
+      detail: { rootCause: input.rootCause, correctiveAction: input.correctiveAction },
+    });
+    if (!input.replacement) return { failureId: failure.id, replacementId: null };
+
+    const failed = failure.component;
+    if (!failed) throw new RecordRefusedError("replacement.partNumber", "Replacement: this failure names no failed part to replace.");
+    if (failed.removedAt !== null) throw new RecordRefusedError("replacement.partNumber", `Replacement: ${failed.partNumber} was already removed on ${failed.removedAt.toISOString().slice(0, 10)}.`, true);
+    if (input.replacement.installedAt < failure.occurredAt) {
+      throw new RecordRefusedError("replacement.installedAt", "Replacement fitted at: the replacement cannot be fitted before the failure occurred.");
+    }
+    const { installedAt, ...part } = input.replacement;
+    const replacement = await tx.component.create({
+      data: { ...part, coilId: failed.coilId, kind: failed.kind, switchType: failed.switchType, description: failed.description, installedAt },
+    });
+    await tx.component.update({
+      where: { id: failed.id },
+      data: { removedAt: installedAt, removalReason: `Failed (${failure.mode.replace(/_/g, " ")}): ${input.rootCause}`.slice(0, 500), replacedById: replacement.id },
+    });
+    await tx.failure.update({ where: { id: failure.id }, data: { replacementComponentId: replacement.id } });
+    await recordAudit(tx, {
+      actorId,
+      action: "create",
+      entity: "Component",
+      entityId: replacement.id,
+      summary: `${failure.coil.tag}: fitted ${replacement.partNumber} in place of failed ${failed.partNumber}`,
+      detail: { replaces: failed.id, failureId: failure.id, ...part },
+    });
+    return { failureId: failure.id, replacementId: replacement.id };
+  });
 }

@@ -2,6 +2,9 @@
 import { prisma } from "./client";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
+import { recordAudit } from "./audit";
+import { RecordRefusedError } from "./record-refused";
+import type { SessionInput } from "../validation/session";
 
 export interface SessionListFilter {
   coilTag?: string;
@@ -37,3 +40,64 @@ export async function listSessions(filter: SessionListFilter = {}, pageRequest: 
   ]);
   return toPage(rows, total, request);
 }
+
+/** The top load the coil's most recent session used, the form's default. */
+export async function findLastTopLoadId(coilId: string): Promise<string | null> {
+  const last = await prisma.runSession.findFirst({ where: { coilId, topLoadId: { not: null } }, orderBy: { startedAt: "desc" }, select: { topLoadId: true } });
+  return last?.topLoadId ?? null;
+}
+
+/**
+ * Stores one session and its heat-sink samples with an audit entry, all in one transaction. The top
+ * load must belong to the coil; a session run while the coil was out on loan is linked to that loan.
+ */
+export async function createSession(actorId: string, input: SessionInput) {
+  return prisma.$transaction(async (tx) => {
+    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
+    if (!coil) throw new RecordRefusedError("coilId", "Coil: that coil does not exist.");
+    if (input.topLoadId) {
+      const topLoad = await tx.topLoad.findUnique({ where: { id: input.topLoadId }, select: { coilId: true } });
+      if (!topLoad || topLoad.coilId !== coil.id) throw new RecordRefusedError("topLoadId", `Top load: choose one of ${coil.tag}'s top loads.`);
+    }
+    const loan = await tx.loan.findFirst({
+      where: { coilId: coil.id, outAt: { lte: input.startedAt }, OR: [{ returnedAt: null }, { returnedAt: { gt: input.startedAt } }] },
+      select: { id: true },
+    });
+    const { samples, ...fields } = input;
+    const session = await tx.runSession.create({
+      data: {
+        ...fields,
+        topLoadId: fields.topLoadId ?? null,
+        loggedById: actorId,
+        loanId: loan?.id ?? null,
+        samples: { create: samples.map((s) => ({ elapsedS: s.elapsedS, temperatureC: s.temperatureC })) },
+      },
+    });
+    await recordAudit(tx, {
+      actorId,
+      action: "create",
+      entity: "RunSession",
+      entityId: session.id,
+      summary: `Logged a ${Math.round(input.durationS / 60)} min session on ${coil.tag} at ${input.supplyVoltageV} V with ${samples.length} heat-sink samples`,
+      detail: { ...fields, sampleCount: samples.length },
+    });
+    return { ...session, coilTag: coil.tag };
+  });
+}
+
+/** One session with everything its page shows: the coil, its parts (for the parts fitted that day), samples and failures. */
+export function getSessionDetail(id: string) {
+  return prisma.runSession.findUnique({
+    where: { id },
+    include: {
+      coil: { include: { components: { orderBy: { installedAt: "asc" } } } },
+      topLoad: { select: { name: true } },
+      loggedBy: { select: { name: true } },
+      loan: { select: { borrower: true, event: true } },
+      samples: { orderBy: { elapsedS: "asc" }, select: { elapsedS: true, temperatureC: true } },
+      failures: { select: { id: true, mode: true, status: true, occurredAt: true } },
+    },
+  });
+}
+
+export type SessionDetail = NonNullable<Awaited<ReturnType<typeof getSessionDetail>>>;

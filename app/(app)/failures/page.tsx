@@ -15,7 +15,12 @@ export default async function FailuresPage({ searchParams }: { searchParams: Pro
   const result = await listFailures({ q: query.q, status: query.status, mode: query.mode }, { page: query.page });
   return (
     <>
-      <h1>Failures and post-mortems</h1>
+      <div className="page-head">
+        <h1>Failures and post-mortems</h1>
+        <Link className="button" href="/failures/new">
+          Record a failure
+        </Link>
+      </div>
       <form className="filters" method="get" role="search" aria-label="Filter failures">
         <div className="field">
           <label htmlFor="q">Search</label>
@@ -58,7 +63,9 @@ export default async function FailuresPage({ searchParams }: { searchParams: Pro
           <tbody>
             {result.rows.map((f) => (
               <tr key={f.id}>
-                <td>{formatDate(f.occurredAt)}</td>
+                <td>
+                  <Link href={`/failures/${f.id}`}>{formatDate(f.occurredAt)}</Link>
+                </td>
                 <td>
                   <Link href={`/coils/${encodeURIComponent(f.coil.tag)}`}>{f.coil.tag}</Link>
                 </td>
@@ -66,7 +73,9 @@ export default async function FailuresPage({ searchParams }: { searchParams: Pro
                 <td>{FAILURE_MODE_LABEL[f.mode]}</td>
                 <td>{f.symptoms}</td>
                 <td>
-                  <span className={`badge badge-${f.status}`}>{f.status === "open" ? "Open" : "Completed"}</span>
+                  <Link href={`/failures/${f.id}`} aria-label={`Post-mortem of the ${f.coil.tag} failure on ${formatDate(f.occurredAt)}: ${f.status === "open" ? "open" : "completed"}`}>
+                    <span className={`badge badge-${f.status}`}>{f.status === "open" ? "Open" : "Completed"}</span>
+                  </Link>
                 </td>
               </tr>
             ))}

@@ -19,7 +19,12 @@ export default async function SessionsPage({ searchParams }: { searchParams: Pro
   ]);
   return (
     <>
-      <h1>Run sessions</h1>
+      <div className="page-head">
+        <h1>Run sessions</h1>
+        <Link className="button big-button" href={query.coil ? `/sessions/new?coil=${encodeURIComponent(query.coil)}` : "/sessions/new"}>
+          Log a session
+        </Link>
+      </div>
       <form className="filters" method="get" role="search" aria-label="Filter sessions">
         <div className="field">
           <label htmlFor="coil">Coil</label>
@@ -78,7 +83,9 @@ export default async function SessionsPage({ searchParams }: { searchParams: Pro
           <tbody>
             {result.rows.map((s) => (
               <tr key={s.id}>
-                <td>{formatDateTime(s.startedAt)}</td>
+                <td>
+                  <Link href={`/sessions/${s.id}`}>{formatDateTime(s.startedAt)}</Link>
+                </td>
                 <td>
                   <Link href={`/coils/${encodeURIComponent(s.coil.tag)}`}>{s.coil.tag}</Link>
                 </td>

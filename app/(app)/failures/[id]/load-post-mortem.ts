@@ -1,0 +1,11 @@
+/** Reads a failure and its post-mortem analysis; shared by the post-mortem page and its report. */
+import { notFound } from "next/navigation";
+import { getFailureDetail } from "@/lib/db/failures";
+import { analyzePostMortem } from "@/lib/analysis/post-mortem";
+
+export async function loadPostMortem(id: string) {
+  const failure = await getFailureDetail(id);
+  if (!failure) notFound();
+  const analysis = analyzePostMortem({ coil: failure.coil, components: failure.coil.components, failure, sessionsBefore: failure.recentSessions });
+  return { failure, analysis };
+}
