@@ -13,6 +13,8 @@ import { CalcInputError } from "../calc/errors";
 import type { HealthStatus } from "../calc/coil-health";
 import type { SessionMargins } from "../calc/session-margins";
 import type { FleetQuery } from "../validation/fleet-query";
+import { collectPartKinds, computePartExposures } from "../analysis/part-hours";
+import { partReliability } from "../calc/reliability";
 
 export interface FleetRow {
   id: string;
@@ -101,4 +103,15 @@ export function selectFleetRows(rows: readonly FleetRow[], query: FleetQuery): F
     "sweep-age": (a, b) => (b.daysSinceSweep ?? Infinity) - (a.daysSinceSweep ?? Infinity) || byTag(a, b),
   };
   return [...kept].sort(compare[query.sort]);
+}
+
+/** Reliability per part number across the fleet: hours while fitted and failures recorded against the part. */
+export async function getPartReliability() {
+  const [histories, failures] = await Promise.all([getFleetHistory(), prisma.failure.findMany({ select: { componentId: true } })]);
+  const exposures = computePartExposures(histories, failures);
+  const kinds = collectPartKinds(exposures);
+  const shownNumber = new Map(exposures.map((e) => [e.partKey, e.partNumber]));
+  const parts = partReliability(exposures).map((p) => ({ ...p, kinds: kinds.get(p.partKey) ?? [], partNumber: shownNumber.get(p.partKey) ?? p.partKey }));
+  parts.sort((a, b) => b.failures - a.failures || b.operatingHours - a.operatingHours);
+  return { parts, unattributedFailures: failures.filter((f) => !f.componentId).length };
 }
