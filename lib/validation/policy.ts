@@ -83,7 +83,7 @@ export const policyFormSchema = z
     maxSweepAgeDays: numberField("Oldest acceptable sweep"),
     minFailureFreeSessions: numberField("Clean sessions needed"),
     validityDays: numberField("Validity"),
-    checklist: z.string({ error: "Checklist: enter at least one item." }),
+    checklist: z.string({ error: "Checklist: enter at least one item." }).transform((text, ctx) => parseChecklistLines(text, ctx)),
     note: z.string().trim().max(500, { error: "Note: at most 500 characters." }).default(""),
   })
   .transform((form, ctx) => {
@@ -97,7 +97,7 @@ export const policyFormSchema = z
       maxSweepAgeDays: form.maxSweepAgeDays,
       minFailureFreeSessions: form.minFailureFreeSessions,
       validityDays: form.validityDays,
-      requiredChecklist: parseChecklistLines(form.checklist, ctx),
+      requiredChecklist: form.checklist,
     });
     if (!rules.success) {
       // Map the rules' paths back onto the form's field names.
