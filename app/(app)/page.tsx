@@ -81,7 +81,7 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
                   <Link href={`/coils/${encodeURIComponent(row.tag)}`}>{row.tag}</Link> {row.name}
                   <br />
                   <span className="muted">{COIL_STATUS_LABEL[row.status]}</span> ·{" "}
-                  <Link href={`/fleet/${encodeURIComponent(row.tag)}/trends`} aria-label={`Trends for ${row.tag}`}>
+                  <Link href={`/fleet/${encodeURIComponent(row.tag)}/trends`} aria-label={`Trends for ${row.name}`}>
                     Trends
                   </Link>
                 </th>
