@@ -1,61 +1,73 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
-import { getFleetOverview } from "@/lib/db/fleet";
+import { getFleetOverview, selectFleetRows } from "@/lib/db/fleet";
+import { fleetQuerySchema } from "@/lib/validation/fleet-query";
+import type { SearchParams } from "@/lib/validation/list-query";
 import { formatDate, formatNumber } from "@/lib/units/format";
 import { COIL_STATUS_LABEL } from "@/app/ui/labels";
+import { ClearanceBadge } from "./clearances/clearance-badge";
+import { MarginCell } from "./fleet/margin-cell";
+import { FleetFilters } from "./fleet/fleet-filters";
 
 export const metadata: Metadata = { title: "Fleet" };
 
-function clearanceState(row: Awaited<ReturnType<typeof getFleetOverview>>[number], now: Date) {
-  const c = row.latestClearance;
-  if (!c) return { label: "Not cleared", tone: "neutral" };
-  if (c.verdict !== "cleared") return { label: "Refused", tone: "refused" };
-  if (c.lapsedAt) return { label: "Lapsed", tone: "lapsed" };
-  if (c.validUntil < now) return { label: "Expired", tone: "lapsed" };
-  return { label: `Cleared to ${formatDate(c.validUntil)}`, tone: "cleared" };
-}
+const HEALTH_TONE: Record<string, string> = { fine: "fine", watch: "watch", hold: "hold", "not enough data": "neutral" };
 
-export default async function FleetPage() {
+export default async function FleetPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
   await pageUser();
-  const rows = await getFleetOverview();
-  const now = new Date();
-  const out = rows.filter((r) => r.activeLoan);
-  const overdue = out.filter((r) => r.activeLoan!.expectedBackAt < now);
-  const openFailures = rows.reduce((n, r) => n + r.openFailures, 0);
+  const query = fleetQuerySchema.parse(await searchParams);
+  const all = await getFleetOverview();
+  const rows = selectFleetRows(all, query);
+  const out = all.filter((r) => r.activeLoan);
+  const overdue = out.filter((r) => r.activeLoan!.overdue);
   return (
     <>
       <h1>Fleet</h1>
-      <p className="lede">Every build the team keeps, with its running totals, open failures, clearance and loan state.</p>
+      <p className="lede">
+        Every build with its health, latest margins, clearance and loan state. Health compares each coil&apos;s logbook with the lending policy&apos;s limits;
+        it records the team&apos;s checks and does not say a build is safe.
+      </p>
       <div className="cards">
         <div className="card">
-          <div className="figure">{rows.filter((r) => r.status === "active").length}</div>
-          <div className="label">coils in service of {rows.length}</div>
+          <div className="figure">{all.filter((r) => r.health === "hold" || r.health === "watch").length}</div>
+          <div className="label">coils on watch or hold of {all.length}</div>
         </div>
         <div className="card">
           <div className="figure">{out.length}</div>
           <div className="label">out on loan{overdue.length > 0 ? `, ${overdue.length} overdue` : ""}</div>
         </div>
         <div className="card">
-          <div className="figure">{openFailures}</div>
+          <div className="figure">{all.reduce((n, r) => n + r.openFailures, 0)}</div>
           <div className="label">open failures awaiting a post-mortem</div>
         </div>
         <div className="card">
-          <div className="figure">{formatNumber(rows.reduce((h, r) => h + r.hoursRun, 0), 1)}</div>
-          <div className="label">hours run in all</div>
+          <div className="figure">{all.filter((r) => r.clearance.kind === "valid").length}</div>
+          <div className="label">coils cleared for lending now</div>
         </div>
       </div>
+      {overdue.length > 0 && (
+        <p className="notice danger" role="alert">
+          Overdue: {overdue.map((r) => `${r.tag} with ${r.activeLoan!.borrower} (due ${formatDate(r.activeLoan!.expectedBackAt)})`).join("; ")}.
+        </p>
+      )}
+      <p className="no-print">
+        <Link href="/fleet/reliability">Reliability per part</Link> · <Link href="/clearances">Clearance decisions</Link> · <Link href="/loans">Loans</Link>
+      </p>
+      <FleetFilters query={query} />
       <div className="table-wrap">
-        <table>
-          <caption>Coils</caption>
+        <table className="fleet-table">
+          <caption>
+            {rows.length} of {all.length} coils
+          </caption>
           <thead>
             <tr>
-              <th scope="col">Tag</th>
-              <th scope="col">Name</th>
-              <th scope="col">Status</th>
-              <th scope="col" className="num">Sessions</th>
+              <th scope="col">Coil</th>
+              <th scope="col">Health and reasons</th>
+              <th scope="col">Voltage</th>
+              <th scope="col">Current</th>
+              <th scope="col">Thermal</th>
               <th scope="col" className="num">Hours run</th>
-              <th scope="col">Last run</th>
               <th scope="col" className="num">Days since sweep</th>
               <th scope="col" className="num">Open failures</th>
               <th scope="col">Clearance</th>
@@ -63,39 +75,61 @@ export default async function FleetPage() {
             </tr>
           </thead>
           <tbody>
-            {rows.map((row) => {
-              const clearance = clearanceState(row, now);
-              const sweepDays = row.lastSweepAt ? Math.floor((now.getTime() - row.lastSweepAt.getTime()) / 86_400_000) : null;
-              const loanOverdue = row.activeLoan && row.activeLoan.expectedBackAt < now;
-              return (
-                <tr key={row.id}>
-                  <td>
-                    <Link href={`/coils/${encodeURIComponent(row.tag)}`}>{row.tag}</Link>
-                  </td>
-                  <td>{row.name}</td>
-                  <td>
-                    <span className={`badge badge-${row.status}`}>{COIL_STATUS_LABEL[row.status]}</span>
-                  </td>
-                  <td className="num">{row.sessionCount}</td>
-                  <td className="num">{formatNumber(row.hoursRun, 1)}</td>
-                  <td>{formatDate(row.lastSessionAt)}</td>
-                  <td className="num">{sweepDays ?? "never"}</td>
-                  <td className="num">{row.openFailures > 0 ? <span className="badge badge-open">{row.openFailures}</span> : 0}</td>
-                  <td>
-                    <span className={`badge badge-${clearance.tone}`}>{clearance.label}</span>
-                  </td>
-                  <td>
-                    {row.activeLoan ? (
-                      <span className={`badge badge-${loanOverdue ? "overdue" : "out"}`}>
-                        {loanOverdue ? "Overdue" : "Out"}: {row.activeLoan.borrower}, back {formatDate(row.activeLoan.expectedBackAt)}
-                      </span>
-                    ) : (
-                      <span className="muted">In</span>
-                    )}
-                  </td>
-                </tr>
-              );
-            })}
+            {rows.map((row) => (
+              <tr key={row.id} aria-label={`${row.tag} ${row.name}`}>
+                <th scope="row">
+                  <Link href={`/coils/${encodeURIComponent(row.tag)}`}>{row.tag}</Link> {row.name}
+                  <br />
+                  <span className="muted">{COIL_STATUS_LABEL[row.status]}</span> ·{" "}
+                  <Link href={`/fleet/${encodeURIComponent(row.tag)}/trends`} aria-label={`Trends for ${row.name}`}>
+                    Trends
+                  </Link>
+                </th>
+                <td>
+                  <span className={`badge badge-${HEALTH_TONE[row.health]}`}>{row.health}</span>
+                  {row.reasons[0] && <p className="reason">{row.reasons[0]}</p>}
+                  {row.reasons.length > 1 && (
+                    <details>
+                      <summary>All {row.reasons.length} reasons</summary>
+                      <ul>
+                        {row.reasons.map((r, i) => (
+                          <li key={i}>{r}</li>
+                        ))}
+                      </ul>
+                    </details>
+                  )}
+                </td>
+                <td>
+                  <MarginCell margin={row.latestMargins?.voltage} />
+                </td>
+                <td>
+                  <MarginCell margin={row.latestMargins?.current} />
+                </td>
+                <td>
+                  <MarginCell margin={row.latestMargins?.thermal} />
+                </td>
+                <td className="num">{formatNumber(row.hoursRun, 1)}</td>
+                <td className="num">{row.daysSinceSweep ?? "never"}</td>
+                <td className="num">{row.openFailures > 0 ? <span className="badge badge-open">{row.openFailures}</span> : 0}</td>
+                <td>
+                  <ClearanceBadge state={row.clearance} withReason />
+                </td>
+                <td>
+                  {row.activeLoan ? (
+                    <span className={`badge badge-${row.activeLoan.overdue ? "overdue" : "out"}`}>
+                      {row.activeLoan.overdue ? "Overdue" : "Out"}: {row.activeLoan.borrower}, back {formatDate(row.activeLoan.expectedBackAt)}
+                    </span>
+                  ) : (
+                    <span className="muted">In</span>
+                  )}
+                </td>
+              </tr>
+            ))}
+            {rows.length === 0 && (
+              <tr>
+                <td colSpan={10}>No coil matches these filters.</td>
+              </tr>
+            )}
           </tbody>
         </table>
       </div>

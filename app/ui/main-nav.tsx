@@ -9,6 +9,7 @@ const AREAS = [
   { href: "/sweeps", label: "Sweeps" },
   { href: "/sessions", label: "Sessions" },
   { href: "/failures", label: "Failures" },
+  { href: "/clearances", label: "Clearances" },
   { href: "/loans", label: "Loans" },
 ];
 

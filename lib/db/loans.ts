@@ -1,12 +1,37 @@
-/** Loans: reads and writes. */
+/**
+ * Loans: reads and writes. A coil goes out only with a clearance that stands now and only when it is not
+ * already out; both are checked inside the lending transaction, so two stewards cannot lend it twice.
+ */
 import { prisma } from "./client";
+import { recordAudit } from "./audit";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
+import { describeClearanceState, describeLendingBlock, type ClearanceStateKind } from "../analysis/clearance-state";
+import { findPartReplacements } from "../analysis/clearance-facts";
+import type { LoanCreateInput, LoanReturnInput } from "../validation/loan";
 
-export async function listLoans(filter: { state?: "out" | "returned" | "all" } = {}, pageRequest: Partial<PageRequest> = {}) {
+export type LoanRefusalReason = Exclude<ClearanceStateKind, "valid"> | "already-out" | "no-coil" | "bad-date";
+
+export class LoanRefusedError extends Error {
+  constructor(
+    readonly reason: LoanRefusalReason | "not-found" | "already-returned" | "bad-session",
+    message: string,
+    readonly field?: string,
+  ) {
+    super(message);
+  }
+}
+
+export async function listLoans(filter: { state?: "out" | "returned" | "overdue" | "all" } = {}, pageRequest: Partial<PageRequest> = {}, now: Date = new Date()) {
   const request = normalizePage(pageRequest);
   const where: Prisma.LoanWhereInput =
-    filter.state === "out" ? { returnedAt: null } : filter.state === "returned" ? { returnedAt: { not: null } } : {};
+    filter.state === "out"
+      ? { returnedAt: null }
+      : filter.state === "overdue"
+        ? { returnedAt: null, expectedBackAt: { lt: now } }
+        : filter.state === "returned"
+          ? { returnedAt: { not: null } }
+          : {};
   const [rows, total] = await Promise.all([
     prisma.loan.findMany({
       where,
@@ -18,4 +43,94 @@ export async function listLoans(filter: { state?: "out" | "returned" | "all" } =
     prisma.loan.count({ where }),
   ]);
   return toPage(rows, total, request);
+}
+
+export function getLoan(id: string) {
+  return prisma.loan.findUnique({
+    where: { id },
+    include: {
+      coil: { select: { id: true, tag: true, name: true } },
+      lentBy: { select: { name: true } },
+      receivedBy: { select: { name: true } },
+      sessions: { select: { id: true, startedAt: true, durationS: true } },
+    },
+  });
+}
+
+/** Sessions of the loan's coil between going out and `until`, offered when it comes back. */
+export function listSessionsInLoanWindow(loan: { coilId: string; outAt: Date }, until: Date) {
+  return prisma.runSession.findMany({
+    where: { coilId: loan.coilId, startedAt: { gte: loan.outAt, lte: until } },
+    orderBy: { startedAt: "asc" },
+    select: { id: true, startedAt: true, durationS: true, supplyVoltageV: true, outcome: true, loanId: true },
+  });
+}
+
+export async function createLoan(actorId: string, input: LoanCreateInput, now: Date = new Date()) {
+  if (input.expectedBackAt.getTime() <= now.getTime()) {
+    throw new LoanRefusedError("bad-date", "Expected back: the date must be in the future.", "expectedBackAt");
+  }
+  return prisma.$transaction(async (tx) => {
+    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
+    if (!coil) throw new LoanRefusedError("no-coil", "That coil does not exist.");
+    const out = await tx.loan.findFirst({ where: { coilId: coil.id, returnedAt: null }, select: { borrower: true, expectedBackAt: true } });
+    if (out) throw new LoanRefusedError("already-out", `${coil.tag} is already out on loan to ${out.borrower}; it must be returned first.`);
+    const [latest, failures, components] = await Promise.all([
+      tx.clearance.findFirst({ where: { coilId: coil.id }, orderBy: { decidedAt: "desc" }, select: { id: true, decidedAt: true, validUntil: true, verdict: true } }),
+      tx.failure.findMany({ where: { coilId: coil.id }, select: { occurredAt: true, mode: true } }),
+      tx.component.findMany({ where: { coilId: coil.id }, select: { id: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
+    ]);
+    const state = describeClearanceState(latest, failures, findPartReplacements(components), now);
+    const block = describeLendingBlock(state);
+    if (block !== null || !latest) {
+      throw new LoanRefusedError(state.kind === "valid" ? "none" : state.kind, block ?? "This coil has no valid clearance.");
+    }
+    if (state.validUntil && input.expectedBackAt.getTime() > state.validUntil.getTime()) {
+      throw new LoanRefusedError("bad-date", `Expected back: the clearance runs out before then; pick a date on or before its end.`, "expectedBackAt");
+    }
+    const loan = await tx.loan.create({
+      data: {
+        coilId: coil.id,
+        clearanceId: latest.id,
+        borrower: input.borrower,
+        borrowerContact: input.borrowerContact,
+        event: input.event,
+        outAt: now,
+        expectedBackAt: input.expectedBackAt,
+        lentById: actorId,
+      },
+    });
+    await recordAudit(tx, { actorId, action: "create", entity: "Loan", entityId: loan.id, summary: `${coil.tag} lent to ${input.borrower} for ${input.event}`, detail: { clearanceId: latest.id } });
+    return loan;
+  });
+}
+
+export async function returnLoan(actorId: string, input: LoanReturnInput, now: Date = new Date()) {
+  return prisma.$transaction(async (tx) => {
+    const loan = await tx.loan.findUnique({ where: { id: input.loanId }, include: { coil: { select: { tag: true } } } });
+    if (!loan) throw new LoanRefusedError("not-found", "That loan does not exist.");
+    if (loan.returnedAt) throw new LoanRefusedError("already-returned", `This loan was already returned on ${loan.returnedAt.toISOString().slice(0, 10)}.`);
+    if (input.returnedAt.getTime() < loan.outAt.getTime()) throw new LoanRefusedError("bad-date", "Returned at: cannot be before the coil went out.", "returnedAt");
+    if (input.returnedAt.getTime() > now.getTime() + 60_000) throw new LoanRefusedError("bad-date", "Returned at: cannot be in the future.", "returnedAt");
+    if (input.sessionIds.length > 0) {
+      const ok = await tx.runSession.count({
+        where: { id: { in: input.sessionIds }, coilId: loan.coilId, startedAt: { gte: loan.outAt, lte: input.returnedAt } },
+      });
+      if (ok !== new Set(input.sessionIds).size) throw new LoanRefusedError("bad-session", "Sessions: only this coil's sessions run while it was away can be linked.", "sessionIds");
+      await tx.runSession.updateMany({ where: { id: { in: input.sessionIds } }, data: { loanId: loan.id } });
+    }
+    const updated = await tx.loan.update({
+      where: { id: loan.id },
+      data: { returnedAt: input.returnedAt, returnCondition: input.returnCondition, returnNotes: input.returnNotes || null, receivedById: actorId },
+    });
+    await recordAudit(tx, {
+      actorId,
+      action: "update",
+      entity: "Loan",
+      entityId: loan.id,
+      summary: `${loan.coil.tag} returned by ${loan.borrower}`,
+      detail: { returnCondition: input.returnCondition, sessions: input.sessionIds.length },
+    });
+    return updated;
+  });
 }

@@ -40,7 +40,7 @@ export const failureListQuerySchema = z.object({
 });
 
 export const loanListQuerySchema = z.object({
-  state: z.preprocess(first, z.enum(["out", "returned", "all"]).catch("all").default("all")),
+  state: z.preprocess(first, z.enum(["out", "overdue", "returned", "all"]).catch("all").default("all")),
   page,
 });
 

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
 import { listUsers } from "@/lib/db/users";
 import { listAuditEvents } from "@/lib/db/audit";
@@ -14,6 +15,9 @@ export default async function AdminPage() {
   return (
     <>
       <h1>Admin</h1>
+      <p>
+        <Link href="/admin/policy">Lending policy and its versions</Link>
+      </p>
       <section aria-labelledby="users-heading">
         <h2 id="users-heading">Users</h2>
         <div className="table-wrap">

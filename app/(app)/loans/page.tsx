@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
+import { hasRole } from "@/lib/auth/roles";
 import { listLoans } from "@/lib/db/loans";
 import { loanListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDate } from "@/lib/units/format";
@@ -9,10 +10,11 @@ import { Pagination } from "@/app/ui/pagination";
 export const metadata: Metadata = { title: "Loans" };
 
 export default async function LoansPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser();
+  const user = await pageUser();
+  const steward = hasRole(user.role, "steward");
   const query = loanListQuerySchema.parse(await searchParams);
-  const result = await listLoans({ state: query.state }, { page: query.page });
   const now = new Date();
+  const result = await listLoans({ state: query.state }, { page: query.page }, now);
   return (
     <>
       <h1>Loans</h1>
@@ -22,6 +24,7 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
           <select id="state" name="state" defaultValue={query.state}>
             <option value="all">All loans</option>
             <option value="out">Out now</option>
+            <option value="overdue">Overdue</option>
             <option value="returned">Returned</option>
           </select>
         </div>
@@ -39,13 +42,16 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
               <th scope="col">Expected back</th>
               <th scope="col">Returned</th>
               <th scope="col">State</th>
+              <th scope="col">
+                <span className="visually-hidden">Actions</span>
+              </th>
             </tr>
           </thead>
           <tbody>
             {result.rows.map((loan) => {
               const overdue = !loan.returnedAt && loan.expectedBackAt < now;
               return (
-                <tr key={loan.id}>
+                <tr key={loan.id} className={overdue ? "row-overdue" : undefined}>
                   <td>
                     <Link href={`/coils/${encodeURIComponent(loan.coil.tag)}`}>{loan.coil.tag}</Link>
                   </td>
@@ -59,12 +65,23 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
                       {loan.returnedAt ? "Returned" : overdue ? "Overdue" : "Out"}
                     </span>
                   </td>
+                  <td>
+                    <Link href={`/clearances/${loan.clearanceId}`}>Clearance</Link>
+                    {steward && !loan.returnedAt && (
+                      <>
+                        {" "}
+                        <Link href={`/loans/${loan.id}/return`} className="button secondary" aria-label={`Return ${loan.coil.tag}`}>
+                          Return
+                        </Link>
+                      </>
+                    )}
+                  </td>
                 </tr>
               );
             })}
             {result.rows.length === 0 && (
               <tr>
-                <td colSpan={7}>No loans to show.</td>
+                <td colSpan={8}>No loans to show.</td>
               </tr>
             )}
           </tbody>

@@ -40,6 +40,17 @@ export default async function CoilPage({ params }: Props) {
       <p className="lede">
         Built by {coil.builderName}. {TOPOLOGY_LABEL[coil.topology]} driver.
       </p>
+      <p className="no-print">
+        <Link href={`/fleet/${encodeURIComponent(coil.tag)}/trends`}>Trends</Link>
+        {hasRole(user.role, "steward") && (
+          <>
+            {" · "}
+            <Link href={`/clearances/new?coil=${encodeURIComponent(coil.tag)}`}>Clear for lending</Link>
+            {" · "}
+            <Link href={`/loans/new?coil=${encodeURIComponent(coil.tag)}`}>Lend</Link>
+          </>
+        )}
+      </p>
       {hasRole(user.role, "steward") && <CoilStatusForm coilId={coil.id} status={coil.status} />}
 
       <div className="grid-2">

@@ -1,0 +1,63 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { pageUser } from "@/app/ui/page-guard";
+import { SafetyCautions } from "@/app/ui/safety-cautions";
+import { getCoilByTag } from "@/lib/db/coils";
+import { evaluateCoilForClearance } from "@/lib/db/clearances";
+import type { SearchParams } from "@/lib/validation/list-query";
+import { formatDate } from "@/lib/units/format";
+import { RuleResultsTable } from "../rule-results-table";
+import { ClearanceForm } from "./clearance-form";
+
+export const metadata: Metadata = { title: "Clear a coil for lending" };
+
+export default async function NewClearancePage({ searchParams }: { searchParams: Promise<SearchParams> }) {
+  await pageUser("steward");
+  const tag = (await searchParams).coil;
+  if (typeof tag !== "string" || tag === "") notFound();
+  const coil = await getCoilByTag(tag);
+  if (!coil) notFound();
+  const evaluated = await evaluateCoilForClearance(coil.id, {}, new Date());
+  if (!evaluated) notFound();
+  const { policy, evaluation, latestSession, latestAnalysis, latestSweep } = evaluated;
+  const dataRules = evaluation.rules.filter((r) => !r.id.startsWith("checklist:"));
+  const dataRulesPass = dataRules.every((r) => r.pass);
+  const runS = latestAnalysis?.warmUp?.longestRunBelowLimitS;
+  return (
+    <>
+      <h1>
+        Clearance for {coil.tag} — {coil.name}
+      </h1>
+      <p className="lede">
+        Lending policy version {policy.version} (ITU Region {policy.rules.ituRegion}; valid {policy.rules.validityDays} days once signed). Latest session{" "}
+        {formatDate(latestSession?.startedAt)}, latest sweep with the current top load {formatDate(latestSweep?.takenAt)}.
+      </p>
+      <SafetyCautions context="lend" />
+      <h2>Recorded checks</h2>
+      <p className={`notice ${dataRulesPass ? "ok" : "danger"}`}>
+        {dataRulesPass
+          ? "Every recorded check passes. Work through the checklist below; all items must be confirmed to clear."
+          : `${dataRules.filter((r) => !r.pass).length} recorded check(s) fail, so this coil cannot be cleared now. You may record a refusal with these reasons.`}
+      </p>
+      <RuleResultsTable rules={dataRules} caption="Rules evaluated from the logbook (checked again on the server when you sign)" />
+      {latestAnalysis?.warmUp && (
+        <p className="muted">Warm-up of the latest session: {latestAnalysis.warmUp.explanations[0]}</p>
+      )}
+      <h2>Checklist, conditions and signature</h2>
+      <ClearanceForm
+        coilId={coil.id}
+        checklist={policy.rules.requiredChecklist}
+        rulesPass={dataRulesPass}
+        defaults={{
+          maxSupplyVoltageV: latestSession ? `${latestSession.supplyVoltageV} V` : "",
+          maxRunS: runS !== undefined && Number.isFinite(runS) && runS > 0 ? `${Math.max(1, Math.floor(runS / 60))} min` : "",
+          conditions: "",
+        }}
+      />
+      <p>
+        <Link href={`/coils/${encodeURIComponent(coil.tag)}`}>Back to {coil.tag}</Link>
+      </p>
+    </>
+  );
+}

@@ -1,0 +1,55 @@
+/** A small coil with a clean logbook that passes the default lending policy, built straight in the test database. */
+import { testDb } from "./support/db";
+import { DEFAULT_LENDING_CHECKLIST } from "@/lib/calc/lending-checklist";
+
+const DAY = 86_400_000;
+
+export const ALL_YES: Record<string, boolean> = Object.fromEntries(DEFAULT_LENDING_CHECKLIST.map((i) => [i.id, true]));
+
+export async function makeCleanCoil(tag: string, now: Date, createdById?: string) {
+  const coil = await testDb.coil.create({
+    data: { tag, name: `Coil ${tag}`, builderName: "Test", formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002, createdById },
+  });
+  const topLoad = await testDb.topLoad.create({ data: { coilId: coil.id, name: "Small toroid", shape: "toroid", diameterM: 0.1, tubeDiameterM: 0.025 } });
+  const built = new Date(now.getTime() - 30 * DAY);
+  await testDb.component.create({
+    data: {
+      coilId: coil.id,
+      kind: "switch",
+      partNumber: "MJE13009",
+      switchType: "bjt",
+      voltageRatingV: 400,
+      continuousCurrentA: 12,
+      peakCurrentA: 24,
+      powerRating25CW: 100,
+      maxJunctionTempC: 150,
+      thermalResistanceJcKPerW: 1.25,
+      caseToSinkKPerW: 0.5,
+      installedAt: built,
+    },
+  });
+  await testDb.component.create({ data: { coilId: coil.id, kind: "heat_sink", partNumber: "HS-1", sinkThermalResistanceKPerW: 1.5, installedAt: built } });
+  await testDb.component.create({ data: { coilId: coil.id, kind: "clamp", partNumber: "TVS-1", clampVoltageV: 150, installedAt: built } });
+  for (let i = 0; i < 5; i++) {
+    await testDb.runSession.create({
+      data: {
+        coilId: coil.id,
+        topLoadId: topLoad.id,
+        startedAt: new Date(now.getTime() - (10 - i) * DAY),
+        supplyVoltageV: 24,
+        supplyCurrentA: 2,
+        durationS: 600,
+        ambientTempC: 22,
+        heatSinkStartC: 22,
+        heatSinkEndC: 35,
+        runningFrequencyHz: 300_000,
+        peakSwitchVoltageV: 100,
+        dutyCycle: 0.5,
+      },
+    });
+  }
+  await testDb.sweep.create({
+    data: { coilId: coil.id, topLoadId: topLoad.id, takenAt: new Date(now.getTime() - 7 * DAY), seriesResistanceOhm: 10_000, sourceAmplitudeV: 10, firstSeriesResonanceHz: 305_000 },
+  });
+  return coil;
+}
