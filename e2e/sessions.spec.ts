@@ -6,7 +6,7 @@ test("a member logs a session with pasted samples and sees its margins, warm-up 
   await signInAs(page, "member");
   await page.goto("/sessions");
   await page.getByRole("link", { name: "Log a session" }).click();
-  await page.getByLabel("Coil").selectOption("KM-06");
+  await page.getByLabel("Coil", { exact: true }).selectOption("KM-06");
   await page.getByRole("button", { name: "Continue" }).click();
   await expect(page.getByRole("complementary", { name: "Safety cautions" })).toBeVisible();
 
