@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { checkSweepReadings, detectSweepCsvLayout, readDecimal, readSweepCsv, SweepRowReader, suggestMapping } from "./sweep-csv";
+import { checkSweepReadings, detectSweepCsvLayout, readDecimal, readSweepCsv, SweepRowReader, type suggestMapping } from "./sweep-csv";
 
 function readAll(text: string, mapping?: Partial<ReturnType<typeof suggestMapping>>) {
   const layout = detectSweepCsvLayout(text);
