@@ -2,6 +2,8 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { expect, test, type Page } from "@playwright/test";
 import { signInAs } from "./support/accounts";
+import { createLineModel, simulateSweep } from "../lib/calc/line-model";
+import { createSeededRandom } from "../lib/calc/seeded-random";
 
 const fixture = (name: string) => fileURLToPath(new URL(`./fixtures/${name}`, import.meta.url));
 /** The first series resonance the fixture's readings were generated with (e2e/fixtures/make-sweep-csv.ts). */
@@ -137,4 +139,29 @@ test("the what-if form predicts a lower first resonance for a bigger top load", 
   const big = await predict("0.4 m", "10 cm");
   expect(big).toBeLessThan(small);
   await expect(page).toHaveURL(/shape=toroid/);
+});
+
+test("a 100 000-row file is read with a progress bar and imported whole", async ({ page }) => {
+  test.setTimeout(180_000);
+  const count = 100_000;
+  const model = createLineModel({ firstSeriesResonance: 480_000, characteristicImpedance: 60_000, topCapacitance: 6e-12, dispersionExponent: 0.12, q: 90 });
+  const frequencies = Array.from({ length: count }, (_, i) => 240_000 * 8 ** (i / (count - 1)));
+  const readings = simulateSweep({ model, seriesResistance: 22_000, sourceAmplitude: 20, frequencies, noise: { relative: 0.005 }, rng: createSeededRandom(99) });
+  const csv = ["frequency_hz\tvout_v", ...readings.map((p) => `${p.frequency.toFixed(2)}\t${Math.min(p.amplitude, 19.9).toFixed(5)}`)].join("\n");
+
+  await signInAs(page, "member");
+  await page.goto("/sweeps/import?coil=KM-06");
+  await page.getByLabel("CSV file").setInputFiles({ name: "long-sweep.tsv", mimeType: "text/plain", buffer: Buffer.from(csv) });
+  await page.getByRole("button", { name: "Read the file" }).click();
+  await expect(page.getByRole("status")).toContainText("tab-separated, with a header row");
+  await fillSettings(page);
+  await page.getByRole("button", { name: "Preview" }).click();
+  await expect(page.getByRole("status")).toContainText(`${count} readings understood`, { timeout: 60_000 });
+  await expect(page.getByLabel("Reading the file")).toHaveAttribute("value", "1");
+  await page.getByRole("button", { name: `Import ${count} readings` }).click();
+  await expect(page.getByRole("heading", { level: 1, name: /Sweep of KM-06/ })).toBeVisible({ timeout: 90_000 });
+  await expect(page.locator("dl.facts").first().locator("dt:text-is('Readings') + dd")).toHaveText(String(count));
+  await expect(page.getByText(/The chart shows \d+ of 100000 readings/)).toBeVisible();
+  const first = readHz(await page.locator("dl.facts").first().locator("dt:text-is('First series resonance') + dd").innerText());
+  expect(Math.abs(first / 480_000 - 1)).toBeLessThan(0.03);
 });
