@@ -165,3 +165,20 @@ test("a 100 000-row file is read with a progress bar and imported whole", async 
   const first = readHz(await page.locator("dl.facts").first().locator("dt:text-is('First series resonance') + dd").innerText());
   expect(Math.abs(first / 480_000 - 1)).toBeLessThan(0.03);
 });
+
+test("the import route refuses anonymous callers and answers bad readings with the field, storing nothing", async ({ page, request }) => {
+  const anonymous = await request.post("/api/sweeps/import", { data: {} });
+  expect(anonymous.status()).toBe(401);
+  expect(await anonymous.json()).toMatchObject({ ok: false });
+
+  await signInAs(page, "member");
+  const before = await sweepCount(page, "KM-07");
+  const coilId = "coil-KM-07"; // the demo loader's id for KM-07 (prisma/demo/generate.ts)
+  const response = await page.request.post("/api/sweeps/import", {
+    data: { coilId, topLoadId: "", takenAt: new Date().toISOString(), seriesResistanceOhm: "22k", sourceAmplitudeV: "20", amplitudeConvention: "peak", frequenciesHz: [1000, 2000, -5], amplitudesV: [1, 2, 3] },
+  });
+  expect(response.status()).toBe(422);
+  const body = await response.json();
+  expect(body).toMatchObject({ ok: false, fieldErrors: { "frequenciesHz.2": [expect.stringMatching(/^Reading 3: frequency must be between 1 Hz and 100 MHz/)] } });
+  expect(await sweepCount(page, "KM-07")).toBe(before);
+});

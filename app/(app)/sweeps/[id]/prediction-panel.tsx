@@ -1,6 +1,12 @@
 import { formatPercent, formatQuantity } from "@/lib/units/format";
 import type { PredictionComparison } from "@/lib/analysis/sweep-report";
 
+/** "+2.3 %", "−1.0 %", and "0.0 %" rather than "-0.0 %" for a deviation that rounds to nothing. */
+function signedPercent(fraction: number): string {
+  const rounded = Math.round(fraction * 1000) / 1000;
+  return rounded === 0 ? "0.0 %" : `${rounded > 0 ? "+" : ""}${formatPercent(rounded, 1)}`;
+}
+
 export function PredictionPanel({ comparison }: { comparison: PredictionComparison }) {
   return (
     <section aria-labelledby="prediction">
@@ -14,8 +20,7 @@ export function PredictionPanel({ comparison }: { comparison: PredictionComparis
             <dd>{formatQuantity(comparison.predictedHz, "Hz", 4)}</dd>
             <dt>Deviation</dt>
             <dd>
-              {comparison.comparison.deviation > 0 ? "+" : ""}
-              {formatPercent(comparison.comparison.deviation, 1)} ({comparison.comparison.withinTolerance ? "within" : "outside"} the ±{formatPercent(comparison.comparison.tolerance)} tolerance)
+              {signedPercent(comparison.comparison.deviation)} ({comparison.comparison.withinTolerance ? "within" : "outside"} the ±{formatPercent(comparison.comparison.tolerance)} tolerance)
             </dd>
           </dl>
           <p className="muted">

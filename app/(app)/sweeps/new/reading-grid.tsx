@@ -114,16 +114,22 @@ export function ReadingGrid({
 
   return (
     <div className="table-wrap">
-      <table ref={table} className="reading-grid">
+      {/* Fixed layout with narrow cells, so two columns fit a phone-width screen. */}
+      <table ref={table} className="reading-grid" style={{ tableLayout: "fixed", width: "100%" }}>
         <caption>
           Readings ({rows.filter((r) => !isBlankReading(r)).length}) — Enter or arrow keys move between cells; paste two columns to fill rows
         </caption>
+        <colgroup>
+          <col style={{ width: "3rem" }} />
+          <col />
+          <col />
+        </colgroup>
         <thead>
           <tr>
             <th scope="col">#</th>
             {COLUMNS.map((c) => (
               <th scope="col" key={c.key}>
-                {c.label} <span className="muted">({c.hint})</span>
+                {c.label} <span className="muted hint">({c.hint})</span>
               </th>
             ))}
           </tr>
@@ -144,6 +150,7 @@ export function ReadingGrid({
                       data-col={col}
                       value={value}
                       autoComplete="off"
+                      style={{ minWidth: 0 }}
                       aria-label={`${column.label}, row ${row + 1}`}
                       aria-invalid={Boolean(shown)}
                       aria-describedby={`${key}-error`}
