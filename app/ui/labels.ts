@@ -42,3 +42,5 @@ export const TOP_LOAD_SHAPE_LABEL: Record<string, string> = {
   cylinder: "Closed can",
   measured: "Measured capacitance",
 };
+
+export const AMPLITUDE_CONVENTION_LABEL: Record<string, string> = { peak_to_peak: "Peak-to-peak", peak: "Peak", rms: "RMS" };

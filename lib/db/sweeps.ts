@@ -1,5 +1,10 @@
 /** Resonance sweeps: reads and writes. */
-import { prisma } from "./client";
+import { prisma, type Tx } from "./client";
+import { recordAudit } from "./audit";
+import { analyzeSweep, type SweepAnalysis } from "../calc/sweep";
+import { CalcInputError } from "../calc/errors";
+import { calibrateCoilFromSweeps } from "../analysis/sweep-calibration";
+import type { SweepRecordInput } from "../validation/sweep";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 
@@ -22,4 +27,142 @@ export async function listSweeps(
     prisma.sweep.count({ where }),
   ]);
   return toPage(rows, total, request);
+}
+
+/** A sweep with everything its page shows. Points come sorted by frequency. */
+export function getSweep(id: string) {
+  return prisma.sweep.findUnique({
+    where: { id },
+    include: {
+      coil: true,
+      topLoad: true,
+      takenBy: { select: { name: true } },
+      points: { orderBy: { frequencyHz: "asc" }, select: { frequencyHz: true, amplitudeV: true } },
+      resonances: { orderBy: [{ kind: "asc" }, { ordinal: "asc" }] },
+    },
+  });
+}
+
+/** A coil and its top loads, for the sweep forms. */
+export function getCoilForSweepEntry(tag: string) {
+  return prisma.coil.findUnique({
+    where: { tag },
+    select: { id: true, tag: true, name: true, topLoads: { orderBy: { createdAt: "asc" }, select: { id: true, name: true, shape: true, retiredAt: true } } },
+  });
+}
+
+const CALIBRATION_TOP_LOAD = { select: { shape: true, diameterM: true, tubeDiameterM: true, heightM: true, measuredCapacitanceF: true } } as const;
+
+/** Every sweep of a coil with what its calibration needs, oldest first. */
+export function listCalibrationSweeps(coilId: string, db: Pick<Tx, "sweep"> = prisma) {
+  return db.sweep.findMany({
+    where: { coilId },
+    orderBy: { takenAt: "asc" },
+    select: { id: true, takenAt: true, firstSeriesResonanceHz: true, topLoad: CALIBRATION_TOP_LOAD },
+  });
+}
+
+/** Refusals of a sweep that the form shows against a field ("points.3.amplitude", "topLoadId"…). */
+export class SweepRefusedError extends Error {
+  constructor(
+    readonly field: string,
+    message: string,
+  ) {
+    super(message);
+  }
+}
+
+export interface RecordedSweep {
+  id: string;
+  firstSeriesResonanceHz: number | null;
+  resonanceCount: number;
+  /** Why the coil's calibration was not updated, when it was not. */
+  calibrationNote: string | null;
+}
+
+/** Rows per INSERT: 3 bound values a row stays well under SQLite's 32 766-variable limit. */
+const POINTS_PER_INSERT = 5_000;
+
+/**
+ * Store a sweep: the sweep, all its points, the resonances lib/calc finds, its first series resonance,
+ * the coil's environment capacitance recalibrated over all its sweeps, and the audit entry — in one
+ * transaction, so a refusal anywhere leaves nothing behind.
+ */
+export async function recordSweep(actorId: string, input: SweepRecordInput, how: "hand" | "import" = "hand"): Promise<RecordedSweep> {
+  const analysis = analyzeReadings(input);
+  const firstSeries = analysis.seriesResonances[0]?.frequency ?? null;
+  return prisma.$transaction(
+    async (tx) => {
+      const coil = await tx.coil.findUnique({ where: { id: input.coilId } });
+      if (!coil) throw new SweepRefusedError("coilId", "Coil: that coil does not exist.");
+      if (input.topLoadId !== null) {
+        const topLoad = await tx.topLoad.findUnique({ where: { id: input.topLoadId }, select: { coilId: true } });
+        if (!topLoad || topLoad.coilId !== coil.id) throw new SweepRefusedError("topLoadId", `Top load: choose one of ${coil.tag}'s top loads.`);
+      }
+      const { points, ...settings } = input;
+      const sweep = await tx.sweep.create({
+        data: { ...settings, takenById: actorId, pointCount: points.length, firstSeriesResonanceHz: firstSeries },
+      });
+      for (let start = 0; start < points.length; start += POINTS_PER_INSERT) {
+        await tx.sweepPoint.createMany({ data: points.slice(start, start + POINTS_PER_INSERT).map((p) => ({ sweepId: sweep.id, ...p })) });
+      }
+      const resonances = [
+        ...analysis.seriesResonances.map((r, i) => ({ kind: "series" as const, ordinal: i + 1, r })),
+        ...analysis.parallelResonances.map((r, i) => ({ kind: "parallel" as const, ordinal: i + 1, r })),
+      ];
+      if (resonances.length > 0) {
+        await tx.sweepResonance.createMany({
+          data: resonances.map(({ kind, ordinal, r }) => ({ sweepId: sweep.id, kind, ordinal, frequencyHz: r.frequency, impedanceOhm: r.impedance, q: r.q ?? null })),
+        });
+      }
+      const calibrationNote = await recalibrateCoil(tx, coil);
+      await recordAudit(tx, {
+        actorId,
+        action: how === "import" ? "import" : "create",
+        entity: "Sweep",
+        entityId: sweep.id,
+        summary: `${how === "import" ? "Imported" : "Recorded"} a ${points.length}-point sweep of ${coil.tag}${firstSeries === null ? " (no series resonance found)" : `, first series resonance ${Math.round(firstSeries)} Hz`}`,
+        detail: { ...settings, pointCount: points.length, resonances: resonances.length, calibrationNote },
+      });
+      return { id: sweep.id, firstSeriesResonanceHz: firstSeries, resonanceCount: resonances.length, calibrationNote };
+    },
+    // A 100 000-point import takes a few seconds to write; the default 5 s would cut it off.
+    { timeout: 120_000, maxWait: 20_000 },
+  );
+}
+
+function analyzeReadings(input: SweepRecordInput): SweepAnalysis {
+  try {
+    return analyzeSweep({
+      seriesResistance: input.seriesResistanceOhm,
+      sourceAmplitude: input.sourceAmplitudeV,
+      points: input.points.map((p) => ({ frequency: p.frequencyHz, amplitude: p.amplitudeV })),
+    });
+  } catch (error) {
+    if (error instanceof CalcInputError) {
+      // lib/calc names a reading "points[3].amplitude"; the forms key it "points.3.amplitude".
+      const match = /^points\[(\d+)\]\.(frequency|amplitude)$/.exec(error.field);
+      if (match) {
+        const row = Number(match[1]) + 1;
+        throw new SweepRefusedError(`points.${match[1]}.${match[2]}`, `Reading ${row}, ${match[2]}: expected ${error.expected}, got ${String(error.received)}.`);
+      }
+      throw new SweepRefusedError("points", `Readings: expected ${error.expected}.`);
+    }
+    throw error;
+  }
+}
+
+/** Recalibrate the coil's environment capacitance over all its sweeps; returns why not when it cannot. */
+async function recalibrateCoil(tx: Tx, coil: { id: string; formDiameterM: number; windingLengthM: number; turns: number; wireDiameterM: number }): Promise<string | null> {
+  const sweeps = await listCalibrationSweeps(coil.id, tx);
+  try {
+    const result = calibrateCoilFromSweeps(coil, sweeps);
+    if (!result) return "No sweep of this coil shows a series resonance yet, so its environment capacitance is not calibrated.";
+    await tx.coil.update({ where: { id: coil.id }, data: { environmentCapacitanceF: result.calibration.environmentCapacitance, environmentCalibratedAt: new Date() } });
+    return null;
+  } catch (error) {
+    // The sweep itself is sound; a build lib/calc cannot model should not lose it.
+    if (error instanceof CalcInputError) return `The environment capacitance was not recalibrated: ${error.message}.`;
+    throw error;
+  }
 }

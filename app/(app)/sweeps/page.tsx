@@ -15,7 +15,17 @@ export default async function SweepsPage({ searchParams }: { searchParams: Promi
   const [result, coils] = await Promise.all([listSweeps({ coilTag: query.coil, sort: query.sort }, { page: query.page }), listCoilChoices()]);
   return (
     <>
-      <h1>Resonance sweeps</h1>
+      <div className="page-head">
+        <h1>Resonance sweeps</h1>
+        <p className="inline-form no-print">
+          <Link className="button" href={query.coil ? `/sweeps/new?coil=${encodeURIComponent(query.coil)}` : "/sweeps/new"}>
+            New sweep
+          </Link>
+          <Link className="button secondary" href={query.coil ? `/sweeps/import?coil=${encodeURIComponent(query.coil)}` : "/sweeps/import"}>
+            Import CSV
+          </Link>
+        </p>
+      </div>
       <form className="filters" method="get" role="search" aria-label="Filter sweeps">
         <div className="field">
           <label htmlFor="coil">Coil</label>
@@ -55,7 +65,9 @@ export default async function SweepsPage({ searchParams }: { searchParams: Promi
           <tbody>
             {result.rows.map((s) => (
               <tr key={s.id}>
-                <td>{formatDateTime(s.takenAt)}</td>
+                <td>
+                  <Link href={`/sweeps/${encodeURIComponent(s.id)}`}>{formatDateTime(s.takenAt)}</Link>
+                </td>
                 <td>
                   <Link href={`/coils/${encodeURIComponent(s.coil.tag)}`}>{s.coil.tag}</Link>
                 </td>

@@ -1,0 +1,55 @@
+import { describe, expect, it } from "vitest";
+import { compareWithPrediction, impedanceCurve, predictWhatIf, summarizeCalibration } from "./sweep-report";
+import { topLoadSpecOf } from "./sweep-calibration";
+
+// A build like the demo club's KM-02 (invented): 50 mm form, 200 mm winding, 880 turns of 0.202 mm wire.
+const coil = { formDiameterM: 0.05, windingLengthM: 0.2, turns: 880, wireDiameterM: 0.000202, environmentCapacitanceF: 3e-12 };
+const toroid = { shape: "toroid" as const, diameterM: 0.15, tubeDiameterM: 0.04, heightM: null, measuredCapacitanceF: null };
+
+describe("topLoadSpecOf", () => {
+  it("maps stored shapes to lib/calc's specs and a bare or incomplete row to none", () => {
+    expect(topLoadSpecOf(toroid)).toEqual({ kind: "toroid", outerDiameter: 0.15, tubeDiameter: 0.04 });
+    expect(topLoadSpecOf({ ...toroid, shape: "measured", measuredCapacitanceF: 9e-12 })).toEqual({ capacitance: 9e-12 });
+    expect(topLoadSpecOf({ ...toroid, shape: "none" })).toBeNull();
+    expect(topLoadSpecOf({ ...toroid, shape: "cylinder" })).toBeNull();
+  });
+});
+
+describe("predictWhatIf", () => {
+  it("predicts a lower first resonance for a bigger toroid, and flags the broadcast band", () => {
+    const bigger = predictWhatIf(coil, toroid, { shape: "toroid", diameter: 0.4, tubeDiameter: 0.1 });
+    expect(bigger.ok && bigger.prediction.shift).toBeLessThan(0);
+    const tiny = predictWhatIf({ ...coil, turns: 300 }, null, { shape: "sphere", diameter: 0.005 });
+    expect(tiny.ok && tiny.prediction.predictedFirstResonance).toBeGreaterThan(0);
+    if (tiny.ok) expect(tiny.inBand).toBe(tiny.prediction.predictedFirstResonance >= tiny.band.lowerEdge && tiny.prediction.predictedFirstResonance <= tiny.band.upperEdge);
+  });
+
+  it("names the field of a toroid without a hole", () => {
+    expect(predictWhatIf(coil, toroid, { shape: "toroid", diameter: 0.1, tubeDiameter: 0.06 })).toMatchObject({ ok: false, field: "tubeDiameter" });
+  });
+});
+
+describe("compareWithPrediction and summarizeCalibration", () => {
+  it("compares against the calibrated prediction, which the calibration sweep itself reproduces", () => {
+    const sweeps = [{ id: "s1", takenAt: new Date("2025-01-01T00:00:00Z"), firstSeriesResonanceHz: 300_000, topLoad: toroid }];
+    const summary = summarizeCalibration(coil, sweeps);
+    expect(summary.ok).toBe(true);
+    if (!summary.ok) return;
+    const calibrated = { ...coil, environmentCapacitanceF: summary.calibration.environmentCapacitance };
+    const comparison = compareWithPrediction(calibrated, toroid, 300_000);
+    expect(comparison.ok && comparison.comparison.deviation).toBeCloseTo(0, 9);
+    expect(compareWithPrediction(calibrated, toroid, null).ok).toBe(false);
+    expect(summarizeCalibration(coil, [{ ...sweeps[0]!, firstSeriesResonanceHz: null }])).toMatchObject({ ok: false });
+  });
+});
+
+describe("impedanceCurve", () => {
+  it("turns readings into |Z| = R·m/(1 − m) and thins long sweeps", () => {
+    const curve = impedanceCurve({ seriesResistanceOhm: 1000, sourceAmplitudeV: 10, points: [{ frequencyHz: 1, amplitudeV: 5 }] });
+    expect(curve.points).toEqual([{ x: 1, y: 1000 }]);
+    const long = impedanceCurve({ seriesResistanceOhm: 1000, sourceAmplitudeV: 10, points: Array.from({ length: 5000 }, (_, i) => ({ frequencyHz: 1000 + i, amplitudeV: 1 + (i % 5) })) });
+    expect(long.decimated).toBe(true);
+    expect(long.total).toBe(5000);
+    expect(long.points.length).toBeLessThanOrEqual(1200);
+  });
+});

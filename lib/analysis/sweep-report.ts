@@ -1,0 +1,99 @@
+/**
+ * What the sweep page shows, computed from the stored sweep: the |Z| curve (thinned for display),
+ * the first series resonance against the build's prediction, the coil's calibration, and the
+ * "what would this top load do?" prediction.
+ */
+import { predictBuild, predictTopLoadChange, type TopLoadChangePrediction, type TopLoadSpec } from "../calc/build-prediction";
+import { broadcastBand, inBroadcastBand, type BroadcastBand } from "../calc/broadcast-band";
+import { DEFAULT_CLEARANCE_POLICY } from "../calc/clearance-policy";
+import { compareMeasured, type Comparison } from "../calc/comparison";
+import { dividerImpedance } from "../calc/divider";
+import { CalcInputError } from "../calc/errors";
+import { decimateMinMax, type XY } from "./decimate-min-max";
+import { calibrateCoilFromSweeps, secondaryBuildOf, topLoadSpecOf, type CalibrationSweep, type CoilCalibration, type SecondaryRecord } from "./sweep-calibration";
+import type { TopLoadRecord } from "./records";
+import type { WhatIfTopLoad } from "../validation/sweep";
+
+/** Pixel columns the chart is thinned to: about a wide screen's plot width. */
+export const CHART_BUCKETS = 600;
+
+export interface ImpedanceCurve {
+  points: XY[];
+  /** Points in the stored sweep. */
+  total: number;
+  decimated: boolean;
+}
+
+/** |Z| = R·m/(1 − m) for each reading (dividerImpedance without phase: Z taken as in phase). */
+export function impedanceCurve(sweep: { seriesResistanceOhm: number; sourceAmplitudeV: number; points: readonly { frequencyHz: number; amplitudeV: number }[] }): ImpedanceCurve {
+  const points = sweep.points.map((p) => ({
+    x: p.frequencyHz,
+    y: dividerImpedance({ seriesResistance: sweep.seriesResistanceOhm, sourceAmplitude: sweep.sourceAmplitudeV, measuredAmplitude: p.amplitudeV }),
+  }));
+  const thinned = decimateMinMax(points, CHART_BUCKETS, true);
+  return { points: thinned, total: points.length, decimated: thinned.length < points.length };
+}
+
+export type PredictionComparison =
+  | { ok: true; predictedHz: number; measuredHz: number; comparison: Comparison; calibrated: boolean }
+  | { ok: false; reason: string };
+
+type CoilForPrediction = SecondaryRecord & { environmentCapacitanceF: number | null };
+
+/** The first series resonance measured against predictBuild with the coil's calibrated environment and this sweep's top load. */
+export function compareWithPrediction(coil: CoilForPrediction, topLoad: Omit<TopLoadRecord, "id"> | null, measuredHz: number | null): PredictionComparison {
+  if (measuredHz === null) return { ok: false, reason: "This sweep shows no series resonance, so there is nothing to compare." };
+  try {
+    const predicted = predictBuild(secondaryBuildOf(coil, topLoadSpecOf(topLoad), coil.environmentCapacitanceF)).firstResonance;
+    const comparison = compareMeasured({ quantity: "firstResonance", predicted, measured: measuredHz });
+    return { ok: true, predictedHz: predicted, measuredHz, comparison, calibrated: coil.environmentCapacitanceF !== null };
+  } catch (error) {
+    if (error instanceof CalcInputError) return { ok: false, reason: `No prediction: ${error.message}.` };
+    throw error;
+  }
+}
+
+export type CalibrationSummary = ({ ok: true } & CoilCalibration) | { ok: false; reason: string };
+
+export function summarizeCalibration(coil: SecondaryRecord, sweeps: readonly CalibrationSweep[]): CalibrationSummary {
+  try {
+    const result = calibrateCoilFromSweeps(coil, sweeps);
+    return result ? { ok: true, ...result } : { ok: false, reason: "No sweep of this coil shows a series resonance yet." };
+  } catch (error) {
+    if (error instanceof CalcInputError) return { ok: false, reason: `Cannot calibrate: ${error.message}.` };
+    throw error;
+  }
+}
+
+export function whatIfSpec(input: WhatIfTopLoad): TopLoadSpec {
+  switch (input.shape) {
+    case "sphere":
+    case "disc":
+      return { kind: input.shape, diameter: input.diameter };
+    case "toroid":
+      return { kind: "toroid", outerDiameter: input.diameter, tubeDiameter: input.tubeDiameter };
+    case "cylinder":
+      return { kind: "cylinder", diameter: input.diameter, height: input.height };
+    case "measured":
+      return { capacitance: input.capacitance };
+  }
+}
+
+export type WhatIfResult =
+  | { ok: true; prediction: TopLoadChangePrediction; inBand: boolean; band: BroadcastBand; region: number }
+  | { ok: false; field: string; reason: string };
+
+/** The first resonance with a different top load, holding the coil's calibrated environment (0 F when not calibrated). */
+export function predictWhatIf(coil: CoilForPrediction, currentTopLoad: Omit<TopLoadRecord, "id"> | null, input: WhatIfTopLoad): WhatIfResult {
+  const region = DEFAULT_CLEARANCE_POLICY.ituRegion;
+  try {
+    const prediction = predictTopLoadChange(secondaryBuildOf(coil, topLoadSpecOf(currentTopLoad)), coil.environmentCapacitanceF ?? 0, whatIfSpec(input));
+    return { ok: true, prediction, inBand: inBroadcastBand(prediction.predictedFirstResonance, region), band: broadcastBand(region), region };
+  } catch (error) {
+    if (error instanceof CalcInputError) {
+      const field = error.field.replace(/^newTopLoad\./, "").replace(/^outerDiameter$/, "diameter");
+      return { ok: false, field, reason: `That top load cannot be modelled: expected ${error.expected}.` };
+    }
+    throw error;
+  }
+}
