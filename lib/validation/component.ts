@@ -14,10 +14,13 @@ export const switchTypeSchema = z.enum(["bjt", "mosfet", "igbt"], { error: "Swit
 const text = (label: string, max: number) =>
   z.preprocess((v) => (v === null || v === undefined ? "" : v), z.string().trim().max(max, `${label}: at most ${max} characters.`));
 
-/** A date typed in a form ("2024-05-01") or an ISO time from JSON; empty means now. */
+/**
+ * A date typed in a form ("2024-05-01") or an ISO time from JSON; empty means now, and so does
+ * today's date, so a part swapped today sorts after one fitted earlier today.
+ */
 export const dateField = (label: string) =>
   z.preprocess(
-    (v) => (v === "" || v === null || v === undefined ? new Date() : v),
+    (v) => (v === "" || v === null || v === undefined || v === new Date().toISOString().slice(0, 10) ? new Date() : v),
     z.coerce.date({ error: `${label}: enter a date like 2024-05-01.` }).refine((d) => !Number.isNaN(d.getTime()), `${label}: enter a date like 2024-05-01.`),
   );
 
