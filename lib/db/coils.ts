@@ -3,7 +3,7 @@ import { prisma } from "./client";
 import { recordAudit } from "./audit";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
-import type { CoilInput } from "../validation/coil";
+import type { CoilInput, CoilUpdateInput } from "../validation/coil";
 
 export interface CoilListFilter {
   q?: string;
@@ -70,6 +70,33 @@ export async function setCoilStatus(actorId: string, coilId: string, status: "ac
     if (before.status !== status) {
       await recordAudit(tx, { actorId, action: "update", entity: "Coil", entityId: coilId, summary: `${before.tag}: status ${before.status} → ${status}` });
     }
+    return coil;
+  });
+}
+
+export class CoilNotFoundError extends Error {
+  constructor(readonly ref: string) {
+    super(`No coil ${ref} on this install`);
+  }
+}
+
+/** Changes a coil's build record (not its tag: printed labels point to the tag). Audited with what changed. */
+export async function updateCoil(actorId: string, input: CoilUpdateInput) {
+  const { coilId, ...data } = input;
+  return prisma.$transaction(async (tx) => {
+    const before = await tx.coil.findUnique({ where: { id: coilId } });
+    if (!before) throw new CoilNotFoundError(coilId);
+    const next = { ...data, wireGaugeAwg: data.wireGaugeAwg ?? null, measuredDcResistanceOhm: data.measuredDcResistanceOhm ?? null, measuredInductanceH: data.measuredInductanceH ?? null, primaryTurns: data.primaryTurns ?? null, primaryDiameterM: data.primaryDiameterM ?? null };
+    const changed = Object.entries(next).filter(([key, value]) => before[key as keyof typeof before] !== value).map(([key]) => key);
+    const coil = await tx.coil.update({ where: { id: coilId }, data: next });
+    await recordAudit(tx, {
+      actorId,
+      action: "update",
+      entity: "Coil",
+      entityId: coilId,
+      summary: changed.length > 0 ? `${before.tag}: changed ${changed.join(", ")}` : `${before.tag}: saved without changes`,
+      detail: Object.fromEntries(changed.map((key) => [key, { from: before[key as keyof typeof before], to: next[key as keyof typeof next] }])),
+    });
     return coil;
   });
 }

@@ -1,22 +1,16 @@
 /**
- * The coil (build) schema in SI units, shared by the JSON API, the coil forms and imports.
+ * The coil (build) schema, shared by the JSON API, the coil forms and imports. Every numeric field
+ * goes through quantityField, so a form may send what people type ("75 mm", "3 in", "AWG 28",
+ * "900 turns") and the JSON API may send SI numbers; both end up in SI.
  * Ranges are what a hobby-scale build can plausibly be; anything outside is almost always a unit
- * slip (millimetres typed as metres), so the message names the field and the expected range.
+ * slip (millimetres typed as metres), so the message names the field and what was understood.
  */
 import { z } from "zod";
-
-function si(label: string, unit: string, min: number, max: number) {
-  return z.coerce
-    .number({ error: `${label}: enter a number in ${unit}.` })
-    .refine(Number.isFinite, `${label}: enter a finite number in ${unit}.`)
-    .refine((v) => v >= min && v <= max, `${label} must be between ${min} and ${max} ${unit}.`);
-}
-
-const optional = <T extends z.ZodType>(schema: T) =>
-  z.preprocess((v) => (v === "" || v === null ? undefined : v), schema.optional());
+import { closeWoundTurns, DEFAULT_INSULATION_BUILD_FACTOR } from "../calc/secondary-geometry";
+import { optionalQuantityField, quantityField } from "./quantity";
 
 export const coilTagSchema = z
-  .string()
+  .string({ error: "Tag: enter a tag like CY-07." })
   .trim()
   .toUpperCase()
   .regex(/^[A-Z0-9][A-Z0-9-]{1,15}$/, "Tag: 2–16 letters, digits or dashes, like CY-07.");
@@ -26,25 +20,102 @@ export const topologySchema = z.enum(["single_switch", "push_pull", "half_bridge
   error: "Driver: choose single switch, push-pull, half bridge or full bridge.",
 });
 
-export const coilSchema = z.object({
-  tag: coilTagSchema,
-  name: z.string().trim().min(1, "Name: enter a name.").max(80, "Name: at most 80 characters."),
-  builderName: z.string().trim().min(1, "Builder: enter who built it.").max(80, "Builder: at most 80 characters."),
+/** Typed into the turns field to have the turns counted from the winding length and the wire. */
+export const COUNT_TURNS_PHRASE = "count from winding length";
+const COUNT_TURNS = /^\s*(count|count from (the )?winding( length)?|from (winding )?length|auto)\s*$/i;
+
+export function asksToCountTurns(value: unknown): boolean {
+  return typeof value === "string" && COUNT_TURNS.test(value);
+}
+
+/** The AWG number when a wire was typed as a gauge ("AWG 28", "28 ga", "4/0"), so it can be stored as entered. */
+export function gaugeTyped(value: unknown): number | undefined {
+  if (typeof value !== "string") return undefined;
+  const match = /^\s*(?:awg|#)\s*(\d{1,2}|0{1,4}|[1-4]\/0)\s*$|^\s*(\d{1,2}|0{1,4}|[1-4]\/0)\s*(?:awg|ga|gauge)\s*$/i.exec(value);
+  const text = match?.[1] ?? match?.[2];
+  if (text === undefined) return undefined;
+  if (/^0+$/.test(text)) return 1 - text.length; // 0 → 0, 00 → −1, 000 → −2, 0000 → −3
+  if (text.includes("/")) return 1 - Number(text[0]);
+  return Number(text);
+}
+
+/** Whole turns of a close-wound winding (rounded down: a part turn is not a turn). */
+export function countCloseWoundTurns(windingLengthM: number, wireDiameterM: number): number {
+  return Math.floor(closeWoundTurns({ windingLength: windingLengthM, wireDiameter: wireDiameterM }));
+}
+
+export function describeTurnsCount(windingLengthM: number, wireDiameterM: number): string {
+  const turns = countCloseWoundTurns(windingLengthM, wireDiameterM);
+  return `${turns} turns, counted as winding length ÷ (wire diameter × ${DEFAULT_INSULATION_BUILD_FACTOR} for the enamel), rounded down`;
+}
+
+const turnsField = z.union([z.literal("count"), quantityField({ label: "Turns", kind: "count", min: 10, max: 20_000 })]);
+
+const notesField = z.preprocess((v) => (v === null || v === undefined ? "" : v), z.string().max(5_000, "Notes: at most 5 000 characters."));
+
+const coilFields = {
+  name: z.string({ error: "Name: enter a name." }).trim().min(1, "Name: enter a name.").max(80, "Name: at most 80 characters."),
+  builderName: z.string({ error: "Builder: enter who built it." }).trim().min(1, "Builder: enter who built it.").max(80, "Builder: at most 80 characters."),
   status: coilStatusSchema.default("active"),
   topology: topologySchema.default("single_switch"),
-  formDiameterM: si("Form diameter", "m", 0.005, 1),
-  windingLengthM: si("Winding length", "m", 0.01, 3),
-  turns: z.coerce.number({ error: "Turns: enter a whole number." }).int("Turns: enter a whole number.").min(10, "Turns: at least 10.").max(20_000, "Turns: at most 20 000."),
-  wireDiameterM: si("Wire diameter", "m", 0.00005, 0.005),
-  wireGaugeAwg: optional(z.coerce.number().int("AWG: a whole gauge number.").min(-3).max(56)),
-  wireMaterial: z.enum(["copper", "aluminium"]).default("copper"),
-  measuredDcResistanceOhm: optional(si("Measured DC resistance", "Ω", 0.001, 10_000)),
-  measuredInductanceH: optional(si("Measured inductance", "H", 1e-6, 10)),
-  primaryTurns: optional(si("Primary turns", "turns", 0.5, 100)),
-  primaryDiameterM: optional(si("Primary diameter", "m", 0.005, 2)),
-  notes: z.string().max(5_000, "Notes: at most 5 000 characters.").default(""),
-});
+  formDiameterM: quantityField({ label: "Form diameter", kind: "length", min: 0.005, max: 1, defaultUnit: "mm" }),
+  windingLengthM: quantityField({ label: "Winding length", kind: "length", min: 0.01, max: 3, defaultUnit: "mm" }),
+  turns: z.preprocess((v) => (asksToCountTurns(v) ? "count" : v), turnsField),
+  wireDiameterM: quantityField({ label: "Wire diameter", kind: "wireDiameter", min: 0.00005, max: 0.005, defaultUnit: "mm" }),
+  wireGaugeAwg: z.preprocess(
+    (v) => (v === "" || v === null ? undefined : v),
+    z.coerce.number({ error: "AWG: a whole gauge number." }).int("AWG: a whole gauge number.").min(-3, "AWG: 0000 (−3) or finer.").max(56, "AWG: 56 or coarser.").optional(),
+  ),
+  wireMaterial: z.enum(["copper", "aluminium"], { error: "Wire material: copper or aluminium." }).default("copper"),
+  measuredDcResistanceOhm: optionalQuantityField({ label: "Measured DC resistance", kind: "resistance", min: 0.001, max: 10_000 }),
+  measuredInductanceH: optionalQuantityField({ label: "Measured inductance", kind: "inductance", min: 1e-6, max: 10 }),
+  // Primary turns may end part-way round ("2.5"), so not a whole-number count.
+  primaryTurns: z.preprocess(
+    (v) => (v === "" || v === null ? undefined : typeof v === "string" ? v.replace(/\s*turns?\s*$/i, "").trim() : v),
+    z.coerce.number({ error: "Primary turns: enter a number like 3 or 2.5." }).min(0.5, "Primary turns: at least 0.5.").max(100, "Primary turns: at most 100.").optional(),
+  ),
+  primaryDiameterM: optionalQuantityField({ label: "Primary diameter", kind: "length", min: 0.005, max: 2, defaultUnit: "mm" }),
+  notes: notesField,
+};
 
-export type CoilInput = z.infer<typeof coilSchema>;
+type RawCoil = z.infer<z.ZodObject<typeof coilFields>>;
+
+/** Resolve "count from winding length" and record the gauge when the wire was given as one. */
+function finishCoil<T extends RawCoil>(value: T, ctx: z.RefinementCtx, wireTyped: unknown) {
+  let turns: number;
+  if (value.turns === "count") {
+    turns = countCloseWoundTurns(value.windingLengthM, value.wireDiameterM);
+    if (turns < 10 || turns > 20_000) {
+      ctx.addIssue({ code: "custom", path: ["turns"], message: `Turns: counting from the winding length gives ${turns}, outside 10 to 20 000; type the turns instead.` });
+      return z.NEVER;
+    }
+  } else {
+    turns = value.turns;
+  }
+  if (turns * value.wireDiameterM > value.windingLengthM * 1.000001) {
+    ctx.addIssue({
+      code: "custom",
+      path: ["turns"],
+      message: `Turns: ${turns} turns of this wire need at least ${Math.round(turns * value.wireDiameterM * 1000)} mm of winding, more than the winding length.`,
+    });
+    return z.NEVER;
+  }
+  return { ...value, turns, wireGaugeAwg: value.wireGaugeAwg ?? gaugeTyped(wireTyped) };
+}
+
+/** A new coil: tag plus the build. Output is what the database stores (SI). */
+export const coilSchema = z.preprocess(
+  (v) => (v && typeof v === "object" ? { ...v, __wire: (v as Record<string, unknown>).wireDiameterM } : v),
+  z.object({ tag: coilTagSchema, ...coilFields, __wire: z.unknown() }).transform(({ __wire, ...value }, ctx) => finishCoil(value, ctx, __wire)),
+);
+
+/** An edit: the tag stays (printed labels point to it), everything else may change. */
+export const coilUpdateSchema = z.preprocess(
+  (v) => (v && typeof v === "object" ? { ...v, __wire: (v as Record<string, unknown>).wireDiameterM } : v),
+  z.object({ coilId: z.string().min(1), ...coilFields, __wire: z.unknown() }).transform(({ __wire, ...value }, ctx) => finishCoil(value, ctx, __wire)),
+);
+
+export type CoilInput = z.output<typeof coilSchema>;
+export type CoilUpdateInput = z.output<typeof coilUpdateSchema>;
 
 export const coilStatusChangeSchema = z.object({ coilId: z.string().min(1), status: coilStatusSchema });

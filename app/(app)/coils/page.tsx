@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
+import { hasRole } from "@/lib/auth/roles";
 import { listCoils } from "@/lib/db/coils";
 import { coilListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDate, formatQuantity } from "@/lib/units/format";
@@ -10,13 +11,25 @@ import { COIL_STATUS_LABEL, TOPOLOGY_LABEL } from "@/app/ui/labels";
 export const metadata: Metadata = { title: "Coils" };
 
 export default async function CoilsPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser();
+  const user = await pageUser();
   const query = coilListQuerySchema.parse(await searchParams);
   const result = await listCoils({ q: query.q, status: query.status, sort: query.sort }, { page: query.page });
   return (
     <>
       <div className="page-head">
         <h1>Coils</h1>
+        <div className="inline-form no-print">
+          {hasRole(user.role, "steward") && (
+            <>
+              <Link href="/coils/new" className="button">
+                New coil
+              </Link>
+              <Link href="/coils/import">Import</Link>
+            </>
+          )}
+          <a href="/api/export/fleet.json">Fleet JSON</a>
+          <a href="/api/export/fleet.csv">Fleet summary CSV</a>
+        </div>
       </div>
       <form className="filters" method="get" role="search" aria-label="Filter coils">
         <div className="field">

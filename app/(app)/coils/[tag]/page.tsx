@@ -4,31 +4,52 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
 import { getCoilByTag } from "@/lib/db/coils";
-import { listSessions } from "@/lib/db/sessions";
-import { listSweeps } from "@/lib/db/sweeps";
-import { listFailures } from "@/lib/db/failures";
-import { formatDate, formatDateTime, formatNumber, formatQuantity } from "@/lib/units/format";
-import { COIL_STATUS_LABEL, COMPONENT_KIND_LABEL, FAILURE_MODE_LABEL, TOP_LOAD_SHAPE_LABEL, TOPOLOGY_LABEL } from "@/app/ui/labels";
+import { getCoilHistory } from "@/lib/db/coil-history";
+import { getCoilTimeline } from "@/lib/db/coil-timeline";
+import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
+import { compareCoil } from "@/lib/analysis/coil-comparison";
+import { CalcInputError } from "@/lib/calc/errors";
+import { describeTurnsCount } from "@/lib/validation/coil";
+import { formatDate, formatQuantity } from "@/lib/units/format";
+import { COIL_STATUS_LABEL, TOP_LOAD_SHAPE_LABEL, TOPOLOGY_LABEL } from "@/app/ui/labels";
 import { CoilStatusForm } from "./status-form";
+import { PredictionSection } from "./prediction-section";
+import { HealthSection } from "./health-section";
+import { PartsSection } from "./parts-section";
+import { TimelineSection } from "./timeline-section";
+import { RetireTopLoadButton } from "./top-load-forms";
 
-type Props = { params: Promise<{ tag: string }> };
+type Props = { params: Promise<{ tag: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: decodeURIComponent((await params).tag) };
 }
 
-export default async function CoilPage({ params }: Props) {
+function assess(history: NonNullable<Awaited<ReturnType<typeof getCoilHistory>>>) {
+  try {
+    const analyzed = analyzeSessions(history.coil, history.sessions, history.components);
+    const last = analyzed.at(-1);
+    return { health: assessCoil(analyzed, history.sweeps, new Date()), latest: last ? { id: last.session.id, startedAt: last.session.startedAt, analysis: last.analysis } : null };
+  } catch (error) {
+    if (error instanceof CalcInputError) return { health: null, latest: null };
+    throw error;
+  }
+}
+
+export default async function CoilPage({ params, searchParams }: Props) {
   const user = await pageUser();
   const tag = decodeURIComponent((await params).tag);
+  const query = await searchParams;
   const coil = await getCoilByTag(tag);
   if (!coil) notFound();
-  const [sessions, sweeps, failures] = await Promise.all([
-    listSessions({ coilTag: coil.tag }, { pageSize: 10 }),
-    listSweeps({ coilTag: coil.tag }, { pageSize: 10 }),
-    listFailures({ q: coil.tag }, { pageSize: 10 }),
-  ]);
-  const fitted = coil.components.filter((c) => !c.removedAt);
-  const removed = coil.components.filter((c) => c.removedAt);
+  const [history, timeline] = await Promise.all([getCoilHistory(coil.id), getCoilTimeline(coil.id, 25)]);
+  if (!history) notFound();
+  const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.sessions);
+  const { health, latest } = assess(history);
+  const canEdit = hasRole(user.role, "steward");
+  const base = `/coils/${encodeURIComponent(coil.tag)}`;
+  const justSaved = query.added ?? query.saved;
+
   return (
     <>
       <div className="page-head">
@@ -39,19 +60,28 @@ export default async function CoilPage({ params }: Props) {
       </div>
       <p className="lede">
         Built by {coil.builderName}. {TOPOLOGY_LABEL[coil.topology]} driver.
+        {coil.createdBy ? ` Recorded by ${coil.createdBy.name}.` : ""}
       </p>
-      <p className="no-print">
+      {justSaved && (
+        <div className="notice ok" role="status">
+          {query.added ? "Coil added." : "Changes saved."} Read as: form {formatQuantity(coil.formDiameterM, "m", 4)}, winding {formatQuantity(coil.windingLengthM, "m", 4)}, wire{" "}
+          {formatQuantity(coil.wireDiameterM, "m", 4)}
+          {coil.wireGaugeAwg !== null ? ` (AWG ${coil.wireGaugeAwg})` : ""},{" "}
+          {justSaved === "counted" ? describeTurnsCount(coil.windingLengthM, coil.wireDiameterM) : `${coil.turns} turns`}.
+        </div>
+      )}
+      <nav aria-label="Coil actions" className="no-print inline-form">
+        {canEdit && <Link href={`${base}/edit`}>Edit the build</Link>}
+        {canEdit && <Link href={`${base}/top-loads/new`}>Add a top load</Link>}
+        {canEdit && <Link href={`${base}/parts/new`}>Fit a part</Link>}
+        <Link href={`${base}/label`}>Print label</Link>
         <Link href={`/fleet/${encodeURIComponent(coil.tag)}/trends`}>Trends</Link>
-        {hasRole(user.role, "steward") && (
-          <>
-            {" · "}
-            <Link href={`/clearances/new?coil=${encodeURIComponent(coil.tag)}`}>Clear for lending</Link>
-            {" · "}
-            <Link href={`/loans/new?coil=${encodeURIComponent(coil.tag)}`}>Lend</Link>
-          </>
-        )}
-      </p>
-      {hasRole(user.role, "steward") && <CoilStatusForm coilId={coil.id} status={coil.status} />}
+        {canEdit && <Link href={`/clearances/new?coil=${encodeURIComponent(coil.tag)}`}>Clear for lending</Link>}
+        {canEdit && <Link href={`/loans/new?coil=${encodeURIComponent(coil.tag)}`}>Lend</Link>}
+      </nav>
+      {canEdit && <CoilStatusForm coilId={coil.id} status={coil.status} />}
+
+      <HealthSection health={health} latest={latest} />
 
       <div className="grid-2">
         <section aria-labelledby="geometry">
@@ -93,7 +123,9 @@ export default async function CoilPage({ params }: Props) {
                 {t.tubeDiameterM ? ` × ${formatQuantity(t.tubeDiameterM, "m")} tube` : ""}
                 {t.heightM ? `, ${formatQuantity(t.heightM, "m")} high` : ""}
                 {t.measuredCapacitanceF ? `, measured ${formatQuantity(t.measuredCapacitanceF, "F")}` : ""}
+                {t.id === comparison.currentTopLoad?.id ? " (fitted now)" : ""}
                 {t.retiredAt ? ` (retired ${formatDate(t.retiredAt)})` : ""}
+                {canEdit && !t.retiredAt && <RetireTopLoadButton topLoadId={t.id} name={t.name} />}
               </li>
             ))}
             {coil.topLoads.length === 0 && <li>No top loads recorded.</li>}
@@ -101,91 +133,29 @@ export default async function CoilPage({ params }: Props) {
         </section>
       </div>
 
-      <section aria-labelledby="parts">
-        <h2 id="parts">Fitted parts</h2>
-        <div className="table-wrap">
-          <table>
-            <thead>
-              <tr>
-                <th scope="col">Part</th>
-                <th scope="col">Kind</th>
-                <th scope="col">Ratings</th>
-                <th scope="col">Installed</th>
-              </tr>
-            </thead>
-            <tbody>
-              {fitted.map((c) => (
-                <tr key={c.id}>
-                  <td>
-                    {c.partNumber}
-                    {c.manufacturer ? ` (${c.manufacturer})` : ""}
-                  </td>
-                  <td>{COMPONENT_KIND_LABEL[c.kind]}</td>
-                  <td>
-                    {c.kind === "switch"
-                      ? `${c.switchType?.toUpperCase() ?? ""} ${formatNumber(c.voltageRatingV, 0, "V")}, ${formatNumber(c.continuousCurrentA, 0, "A")} cont. / ${formatNumber(c.peakCurrentA, 0, "A")} peak, ${formatNumber(c.powerRating25CW, 0, "W")} at 25 °C, Tj max ${formatNumber(c.maxJunctionTempC, 0, "°C")}`
-                      : c.kind === "heat_sink"
-                        ? `${formatNumber(c.sinkThermalResistanceKPerW, 2, "K/W")}`
-                        : [c.resistanceOhm ? formatQuantity(c.resistanceOhm, "Ω") : "", c.capacitanceF ? formatQuantity(c.capacitanceF, "F") : "", c.description]
-                            .filter(Boolean)
-                            .join(", ")}
-                  </td>
-                  <td>{formatDate(c.installedAt)}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
-        </div>
-        {removed.length > 0 && (
-          <>
-            <h3>Removed parts</h3>
-            <ul>
-              {removed.map((c) => (
-                <li key={c.id}>
-                  {c.partNumber} ({COMPONENT_KIND_LABEL[c.kind]}), {formatDate(c.installedAt)} to {formatDate(c.removedAt)}
-                  {c.removalReason ? `: ${c.removalReason}` : ""}
-                </li>
-              ))}
-            </ul>
-          </>
-        )}
-      </section>
+      <PredictionSection comparison={comparison} />
+      <PartsSection tag={coil.tag} parts={coil.components} canEdit={canEdit} />
+      <TimelineSection tag={coil.tag} events={timeline.events} truncated={timeline.truncated} counts={timeline.counts} />
 
-      <div className="grid-2">
-        <section aria-labelledby="recent-sessions">
-          <h2 id="recent-sessions">Recent sessions</h2>
-          <ul>
-            {sessions.rows.map((s) => (
-              <li key={s.id}>
-                {formatDateTime(s.startedAt)}: {formatNumber(s.supplyVoltageV, 1, "V")}, {formatNumber(s.supplyCurrentA, 2, "A")}, sink{" "}
-                {formatNumber(s.heatSinkEndC, 1, "°C")}
-              </li>
-            ))}
-            {sessions.total === 0 && <li>No sessions yet.</li>}
-          </ul>
-          {sessions.total > 10 && <Link href={`/sessions?coil=${encodeURIComponent(coil.tag)}`}>All {sessions.total} sessions</Link>}
-        </section>
-        <section aria-labelledby="recent-sweeps">
-          <h2 id="recent-sweeps">Sweeps</h2>
-          <ul>
-            {sweeps.rows.map((s) => (
-              <li key={s.id}>
-                {formatDate(s.takenAt)}: first series resonance {formatQuantity(s.firstSeriesResonanceHz, "Hz")} ({s.topLoad?.name ?? "no top load"})
-              </li>
-            ))}
-            {sweeps.total === 0 && <li>No sweeps yet.</li>}
-          </ul>
-        </section>
-      </div>
-      <section aria-labelledby="coil-failures">
-        <h2 id="coil-failures">Failures</h2>
+      <section aria-labelledby="export" className="no-print">
+        <h2 id="export">Export</h2>
         <ul>
-          {failures.rows.map((f) => (
-            <li key={f.id}>
-              {formatDate(f.occurredAt)}: {FAILURE_MODE_LABEL[f.mode]} — {f.symptoms} ({f.status === "open" ? "post-mortem open" : "post-mortem done"})
+          <li>
+            <a href={`/api/export/coils/${encodeURIComponent(coil.tag)}.json`} download>
+              Whole logbook as JSON
+            </a>{" "}
+            (re-importable on any Coilyard install)
+          </li>
+          <li>
+            CSV tables: <a href={`/api/export/coils/${encodeURIComponent(coil.tag)}/sessions.csv`}>sessions</a>,{" "}
+            <a href={`/api/export/coils/${encodeURIComponent(coil.tag)}/sweep-points.csv`}>sweep points</a>,{" "}
+            <a href={`/api/export/coils/${encodeURIComponent(coil.tag)}/parts.csv`}>parts</a>
+          </li>
+          {canEdit && (
+            <li>
+              <Link href="/coils/import">Import a logbook file</Link> (for example a copy of this coil under a new tag)
             </li>
-          ))}
-          {failures.total === 0 && <li>No failures recorded.</li>}
+          )}
         </ul>
       </section>
     </>

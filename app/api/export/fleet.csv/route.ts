@@ -1,0 +1,13 @@
+/** GET /api/export/fleet.csv — one summary row per coil (any member). */
+import { guardRoute } from "@/lib/auth/guard";
+import { exportFleet } from "@/lib/db/export";
+import { fleetSummaryCsv } from "@/lib/export/logbook-csv";
+
+export async function GET() {
+  return guardRoute("member", async () => {
+    const doc = await exportFleet();
+    return new Response(fleetSummaryCsv(doc), {
+      headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": `attachment; filename="coilyard-fleet-summary-${doc.exportedAt.slice(0, 10)}.csv"` },
+    });
+  });
+}

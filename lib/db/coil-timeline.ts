@@ -1,0 +1,47 @@
+/**
+ * One coil's logbook as a single timeline, newest first: sessions, sweeps, failures, parts fitted
+ * and removed, clearances and loans. Each kind is read newest-first up to the cap, then merged, so
+ * the page costs a handful of small queries however long the coil's history is.
+ */
+import { prisma } from "./client";
+
+export type TimelineKind = "session" | "sweep" | "failure" | "part-fitted" | "part-removed" | "clearance" | "loan-out" | "loan-back";
+
+export interface TimelineEvent {
+  kind: TimelineKind;
+  at: Date;
+  title: string;
+  detail: string;
+  /** The record's own page, when it has one. */
+  href: string | null;
+}
+
+export async function getCoilTimeline(coilId: string, limit = 25) {
+  const take = limit;
+  const [sessions, sweeps, failures, fitted, removed, clearances, loansOut, loansBack, counts] = await Promise.all([
+    prisma.runSession.findMany({ where: { coilId }, orderBy: { startedAt: "desc" }, take, select: { id: true, startedAt: true, supplyVoltageV: true, supplyCurrentA: true, durationS: true, outcome: true } }),
+    prisma.sweep.findMany({ where: { coilId }, orderBy: { takenAt: "desc" }, take, select: { id: true, takenAt: true, firstSeriesResonanceHz: true, topLoad: { select: { name: true } } } }),
+    prisma.failure.findMany({ where: { coilId }, orderBy: { occurredAt: "desc" }, take, select: { id: true, occurredAt: true, mode: true, symptoms: true, status: true } }),
+    prisma.component.findMany({ where: { coilId }, orderBy: { installedAt: "desc" }, take, select: { id: true, installedAt: true, partNumber: true, kind: true } }),
+    prisma.component.findMany({ where: { coilId, removedAt: { not: null } }, orderBy: { removedAt: "desc" }, take, select: { id: true, removedAt: true, partNumber: true, kind: true, removalReason: true } }),
+    prisma.clearance.findMany({ where: { coilId }, orderBy: { decidedAt: "desc" }, take, select: { id: true, decidedAt: true, verdict: true, validUntil: true, lapsedAt: true } }),
+    prisma.loan.findMany({ where: { coilId }, orderBy: { outAt: "desc" }, take, select: { id: true, outAt: true, borrower: true, event: true } }),
+    prisma.loan.findMany({ where: { coilId, returnedAt: { not: null } }, orderBy: { returnedAt: "desc" }, take, select: { id: true, returnedAt: true, borrower: true, returnCondition: true } }),
+    prisma.coil.findUnique({ where: { id: coilId }, select: { _count: { select: { sessions: true, sweeps: true, failures: true, components: true, clearances: true, loans: true } } } }),
+  ]);
+
+  const events: TimelineEvent[] = [
+    ...sessions.map((s) => ({ kind: "session" as const, at: s.startedAt, title: "Run session", detail: `${s.supplyVoltageV} V, ${s.supplyCurrentA} A for ${Math.round(s.durationS)} s (${s.outcome})`, href: `/sessions/${s.id}` })),
+    ...sweeps.map((s) => ({ kind: "sweep" as const, at: s.takenAt, title: "Sweep", detail: `${s.firstSeriesResonanceHz === null ? "no resonance found" : `first series resonance ${(s.firstSeriesResonanceHz / 1000).toFixed(1)} kHz`} (${s.topLoad?.name ?? "no top load"})`, href: `/sweeps/${s.id}` })),
+    ...failures.map((f) => ({ kind: "failure" as const, at: f.occurredAt, title: "Failure", detail: `${f.mode.replace(/_/g, " ")}: ${f.symptoms} (${f.status === "open" ? "post-mortem open" : "post-mortem done"})`, href: `/failures/${f.id}` })),
+    ...fitted.map((c) => ({ kind: "part-fitted" as const, at: c.installedAt, title: "Part fitted", detail: `${c.partNumber} (${c.kind.replace(/_/g, " ")})`, href: null })),
+    ...removed.map((c) => ({ kind: "part-removed" as const, at: c.removedAt!, title: "Part removed", detail: `${c.partNumber} (${c.kind.replace(/_/g, " ")})${c.removalReason ? `: ${c.removalReason}` : ""}`, href: null })),
+    ...clearances.map((c) => ({ kind: "clearance" as const, at: c.decidedAt, title: c.verdict === "cleared" ? "Passed the team's checks" : "Clearance refused", detail: `valid until ${c.validUntil.toISOString().slice(0, 10)}${c.lapsedAt ? `, lapsed ${c.lapsedAt.toISOString().slice(0, 10)}` : ""}`, href: null })),
+    ...loansOut.map((l) => ({ kind: "loan-out" as const, at: l.outAt, title: "Lent out", detail: `to ${l.borrower} for ${l.event}`, href: null })),
+    ...loansBack.map((l) => ({ kind: "loan-back" as const, at: l.returnedAt!, title: "Returned", detail: `from ${l.borrower}${l.returnCondition ? ` (${l.returnCondition})` : ""}`, href: null })),
+  ];
+  events.sort((a, b) => b.at.getTime() - a.at.getTime());
+  const c = counts?._count;
+  const total = c ? c.sessions + c.sweeps + c.failures + c.components + c.clearances + c.loans : 0;
+  return { events: events.slice(0, limit), counts: c ?? null, truncated: total > limit };
+}

@@ -1,0 +1,71 @@
+/** Parts fitted to coils: fitting a new one, and replacing one so the old row stays in the history. */
+import { prisma } from "./client";
+import { recordAudit } from "./audit";
+import type { ComponentInput, ReplaceComponentInput } from "../validation/component";
+
+export class ComponentStateError extends Error {}
+
+export function getComponent(id: string) {
+  return prisma.component.findUnique({ where: { id }, include: { coil: { select: { id: true, tag: true, name: true } } } });
+}
+
+function componentData(input: Omit<ComponentInput, "coilId">) {
+  return {
+    kind: input.kind,
+    partNumber: input.partNumber,
+    manufacturer: input.manufacturer,
+    description: input.description,
+    serial: input.serial,
+    switchType: input.switchType ?? null,
+    voltageRatingV: input.voltageRatingV ?? null,
+    continuousCurrentA: input.continuousCurrentA ?? null,
+    peakCurrentA: input.peakCurrentA ?? null,
+    powerRating25CW: input.powerRating25CW ?? null,
+    maxJunctionTempC: input.maxJunctionTempC ?? null,
+    thermalResistanceJcKPerW: input.thermalResistanceJcKPerW ?? null,
+    caseToSinkKPerW: input.caseToSinkKPerW ?? null,
+    sinkThermalResistanceKPerW: input.sinkThermalResistanceKPerW ?? null,
+    sinkMassKg: input.sinkMassKg ?? null,
+    resistanceOhm: input.resistanceOhm ?? null,
+    capacitanceF: input.capacitanceF ?? null,
+    clampVoltageV: input.clampVoltageV ?? null,
+    installedAt: input.installedAt,
+  };
+}
+
+export async function addComponent(actorId: string, input: ComponentInput) {
+  return prisma.$transaction(async (tx) => {
+    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { tag: true } });
+    if (!coil) throw new ComponentStateError("That coil no longer exists.");
+    const component = await tx.component.create({ data: { coilId: input.coilId, ...componentData(input) } });
+    await recordAudit(tx, { actorId, action: "create", entity: "Component", entityId: component.id, summary: `${coil.tag}: fitted ${component.partNumber} (${component.kind})`, detail: input });
+    return { component, coilTag: coil.tag };
+  });
+}
+
+/**
+ * Takes a part out and fits its successor in one transaction: the old row gets removedAt, the
+ * reason and replacedBy, the new one is installed at the same moment, so no day has two or none.
+ */
+export async function replaceComponent(actorId: string, input: ReplaceComponentInput) {
+  const { oldComponentId, removalReason, ...next } = input;
+  return prisma.$transaction(async (tx) => {
+    const old = await tx.component.findUnique({ where: { id: oldComponentId }, include: { coil: { select: { tag: true } } } });
+    if (!old || old.coilId !== next.coilId) throw new ComponentStateError("That part is not on this coil.");
+    if (old.removedAt) throw new ComponentStateError(`${old.partNumber} was already removed on ${old.removedAt.toISOString().slice(0, 10)}.`);
+    if (next.installedAt.getTime() < old.installedAt.getTime()) {
+      throw new ComponentStateError(`The new part cannot go in before the old one was fitted (${old.installedAt.toISOString().slice(0, 10)}).`);
+    }
+    const fitted = await tx.component.create({ data: { coilId: next.coilId, ...componentData(next) } });
+    await tx.component.update({ where: { id: old.id }, data: { removedAt: next.installedAt, removalReason, replacedById: fitted.id } });
+    await recordAudit(tx, {
+      actorId,
+      action: "update",
+      entity: "Component",
+      entityId: old.id,
+      summary: `${old.coil.tag}: replaced ${old.partNumber} with ${fitted.partNumber} — ${removalReason}`,
+      detail: { removed: old.id, fitted: fitted.id, reason: removalReason },
+    });
+    return { removed: old.id, fitted, coilTag: old.coil.tag };
+  });
+}

@@ -1,0 +1,39 @@
+/** Top-load configurations: adding one and retiring it (retired ones stay, since sweeps point to them). */
+import { prisma } from "./client";
+import { recordAudit } from "./audit";
+import type { TopLoadInput } from "../validation/top-load";
+
+export class TopLoadStateError extends Error {}
+
+export async function addTopLoad(actorId: string, input: TopLoadInput) {
+  const { coilId, ...data } = input;
+  return prisma.$transaction(async (tx) => {
+    const coil = await tx.coil.findUnique({ where: { id: coilId }, select: { tag: true } });
+    if (!coil) throw new TopLoadStateError("That coil no longer exists.");
+    const topLoad = await tx.topLoad.create({
+      data: {
+        coilId,
+        name: data.name,
+        shape: data.shape,
+        diameterM: data.diameterM ?? null,
+        tubeDiameterM: data.tubeDiameterM ?? null,
+        heightM: data.heightM ?? null,
+        measuredCapacitanceF: data.measuredCapacitanceF ?? null,
+        notes: data.notes,
+      },
+    });
+    await recordAudit(tx, { actorId, action: "create", entity: "TopLoad", entityId: topLoad.id, summary: `${coil.tag}: added top load “${topLoad.name}”`, detail: input });
+    return { topLoad, coilTag: coil.tag };
+  });
+}
+
+export async function retireTopLoad(actorId: string, topLoadId: string, at = new Date()) {
+  return prisma.$transaction(async (tx) => {
+    const topLoad = await tx.topLoad.findUnique({ where: { id: topLoadId }, include: { coil: { select: { tag: true } } } });
+    if (!topLoad) throw new TopLoadStateError("That top load no longer exists.");
+    if (topLoad.retiredAt) throw new TopLoadStateError(`“${topLoad.name}” is already retired.`);
+    const updated = await tx.topLoad.update({ where: { id: topLoadId }, data: { retiredAt: at } });
+    await recordAudit(tx, { actorId, action: "update", entity: "TopLoad", entityId: topLoadId, summary: `${topLoad.coil.tag}: retired top load “${topLoad.name}”` });
+    return { topLoad: updated, coilTag: topLoad.coil.tag };
+  });
+}
