@@ -8,8 +8,8 @@ import { createLineModel, simulateSweep } from "../lib/calc/line-model";
 import { createSeededRandom } from "../lib/calc/seeded-random";
 import { analyzeSweep } from "../lib/calc/sweep";
 
-const WARM_UP_RUNS = 3;
-const TIMED_RUNS = 15;
+const WARM_UP_RUNS = 10;
+const TIMED_RUNS = 21;
 
 /**
  * Median wall times in ms of `work` and of `plain`, run alternately (after WARM_UP_RUNS untimed
