@@ -45,8 +45,8 @@ test("a member records a failure from a session; a steward completes the post-mo
   await expect(page.getByRole("link", { name: /Post-mortem of the KM-06 failure .*: completed/ })).toBeVisible();
   await page.goto("/coils/KM-06");
   const fitted = page.getByRole("region", { name: "Fitted parts" });
-  await expect(fitted.getByRole("cell", { name: /KX-M200-B/ })).toBeVisible();
-  await expect(fitted.getByText(/KX-M200 \(Switching transistor\).*Failed \(over temperature\)/)).toBeVisible();
+  await expect(fitted.getByRole("cell", { name: "KX-M200-B", exact: true })).toBeVisible();
+  await expect(fitted.getByRole("row", { name: /^KX-M200 Switching transistor .*Failed \(over temperature\).*KX-M200-B$/ })).toBeVisible();
 });
 
 test("the printable post-mortem report renders", async ({ page }) => {
