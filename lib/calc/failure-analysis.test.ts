@@ -167,6 +167,19 @@ describe("rankLikelyCauses", () => {
     );
   });
 
+  it("reads no current trend from a baseline below a bench meter's resolution (regression: 5e-324 A → 8.9e-18 A read as +1.8e308 %)", () => {
+    const sessions = [5e-324, 8.88e-18].map((amps, i) => ({
+      startedAt: day(i),
+      margins: [margin("voltage", 0, 1), margin("current", 0, 1), margin("thermal", 0, 1)],
+      supplyVoltage: 5,
+      supplyCurrent: amps,
+      heatSinkEnd: 0,
+    }));
+    const ranked = rankLikelyCauses({ failure: { occurredAt: day(20), mode: "over_voltage" }, recentSessions: sessions });
+    expect(ranked.find((c) => c.cause === "over_current")?.evidence ?? []).toEqual([]);
+    expect(JSON.stringify(ranked)).not.toMatch(/e\+\d{3}/);
+  });
+
   it("names the bad field", () => {
     const bad = history(2);
     bad[1] = { ...bad[1]!, startedAt: new Date(Number.NaN) };

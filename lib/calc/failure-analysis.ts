@@ -194,6 +194,9 @@ function fittedChange(ys: readonly number[]): { start: number; end: number } {
   return { start: trend.intercept, end: trend.intercept + trend.slope * (n - 1) };
 }
 
+/** Smallest average supply current a relative trend is computed from, A. */
+const CURRENT_RESOLUTION_A = 0.01;
+
 function addTrendEvidence(sessions: readonly CheckedSession[], tolerance: number, add: (c: FailureCause, w: number, t: string) => void): void {
   const latest = sessions[sessions.length - 1];
   if (!latest) return;
@@ -219,7 +222,9 @@ function addTrendEvidence(sessions: readonly CheckedSession[], tolerance: number
   }
 
   const current = fittedChange(comparable.map((s) => s.supplyCurrent));
-  if (current.start > 0) {
+  // A ratio from a near-zero baseline is meaningless (and can overflow): below what a bench meter
+  // resolves, no trend in current is read (common practice).
+  if (current.start >= CURRENT_RESOLUTION_A) {
     const r = current.end / current.start - 1;
     if (r >= 0.1) {
       const text = `supply current up ${percent(r)} ${atSupply}, ${formatNumber(current.start)} A → ${formatNumber(current.end)} A over ${comparable.length} sessions`;
