@@ -11,7 +11,7 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: "unit", environment: "node", include: ["lib/**/*.test.ts"] },
+        test: { name: "unit", environment: "node", include: ["lib/**/*.test.ts"], setupFiles: ["test/setup/fast-check.ts"] },
       },
       {
         extends: true,

@@ -6,9 +6,8 @@
 import { createLineModel, simulateSweep } from "../../lib/calc/line-model";
 import type { SeededRandom } from "../../lib/calc/seeded-random";
 import type { SweepPoint } from "../../lib/calc/sweep";
+import { ALUMINIUM_SPECIFIC_HEAT_J_PER_KG_K } from "../../lib/calc/heating";
 
-/** Specific heat of aluminium, J/(kg·K) (0.897 J/(g·K), references.md). */
-const ALUMINIUM_SPECIFIC_HEAT = 897;
 
 export interface SweepSettings {
   firstSeriesResonanceHz: number;
@@ -65,7 +64,7 @@ export interface WarmUpSettings {
 
 /** Heat-sink samples every 30 s of T(t) = Ta + P·Rθ·(1 − e^(−t/τ)), τ = Rθ·m·c, with 0.15 K reading noise. */
 export function synthesizeWarmUp(settings: WarmUpSettings, rng: SeededRandom): { elapsedS: number; temperatureC: number }[] {
-  const tau = settings.sinkResistanceKPerW * settings.sinkMassKg * ALUMINIUM_SPECIFIC_HEAT;
+  const tau = settings.sinkResistanceKPerW * settings.sinkMassKg * ALUMINIUM_SPECIFIC_HEAT_J_PER_KG_K;
   const rise = settings.dissipationW * settings.sinkResistanceKPerW;
   const samples: { elapsedS: number; temperatureC: number }[] = [];
   for (let t = 0; t <= settings.durationS + 1e-9; t += 30) {
