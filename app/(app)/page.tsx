@@ -64,12 +64,8 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
             <tr>
               <th scope="col">Coil</th>
               <th scope="col">Health and reasons</th>
-              <th scope="col">Voltage</th>
-              <th scope="col">Current</th>
-              <th scope="col">Thermal</th>
-              <th scope="col" className="num">Hours run</th>
-              <th scope="col" className="num">Days since sweep</th>
-              <th scope="col" className="num">Open failures</th>
+              <th scope="col">Latest margins (headroom)</th>
+              <th scope="col">Use</th>
               <th scope="col">Clearance</th>
               <th scope="col">Loan</th>
             </tr>
@@ -100,17 +96,31 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
                   )}
                 </td>
                 <td>
-                  <MarginCell margin={row.latestMargins?.voltage} />
+                  <dl className="stacked">
+                    <dt>Voltage</dt>
+                    <dd>
+                      <MarginCell margin={row.latestMargins?.voltage} />
+                    </dd>
+                    <dt>Current</dt>
+                    <dd>
+                      <MarginCell margin={row.latestMargins?.current} />
+                    </dd>
+                    <dt>Thermal</dt>
+                    <dd>
+                      <MarginCell margin={row.latestMargins?.thermal} />
+                    </dd>
+                  </dl>
                 </td>
                 <td>
-                  <MarginCell margin={row.latestMargins?.current} />
+                  <dl className="stacked">
+                    <dt>Hours run</dt>
+                    <dd>{formatNumber(row.hoursRun, 1)}</dd>
+                    <dt>Since sweep</dt>
+                    <dd>{row.daysSinceSweep === null ? "never swept" : `${row.daysSinceSweep} d`}</dd>
+                    <dt>Open failures</dt>
+                    <dd>{row.openFailures > 0 ? <span className="badge badge-open">{row.openFailures}</span> : 0}</dd>
+                  </dl>
                 </td>
-                <td>
-                  <MarginCell margin={row.latestMargins?.thermal} />
-                </td>
-                <td className="num">{formatNumber(row.hoursRun, 1)}</td>
-                <td className="num">{row.daysSinceSweep ?? "never"}</td>
-                <td className="num">{row.openFailures > 0 ? <span className="badge badge-open">{row.openFailures}</span> : 0}</td>
                 <td>
                   <ClearanceBadge state={row.clearance} withReason />
                 </td>
@@ -127,7 +137,7 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
             ))}
             {rows.length === 0 && (
               <tr>
-                <td colSpan={10}>No coil matches these filters.</td>
+                <td colSpan={6}>No coil matches these filters.</td>
               </tr>
             )}
           </tbody>

@@ -70,7 +70,7 @@ export default async function CoilPage({ params, searchParams }: Props) {
           {justSaved === "counted" ? describeTurnsCount(coil.windingLengthM, coil.wireDiameterM) : `${coil.turns} turns`}.
         </div>
       )}
-      <nav aria-label="Coil actions" className="no-print inline-form">
+      <nav aria-label="Coil actions" className="no-print actions-row">
         {canEdit && <Link href={`${base}/edit`}>Edit the build</Link>}
         {canEdit && <Link href={`${base}/top-loads/new`}>Add a top load</Link>}
         {canEdit && <Link href={`${base}/parts/new`}>Fit a part</Link>}
