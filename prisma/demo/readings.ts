@@ -18,17 +18,24 @@ export interface SweepSettings {
   sourceAmplitudeV: number;
 }
 
-/** 400 readings, log-spaced from half to four times the first resonance with uneven steps, as a hand sweep is. */
+/**
+ * 400 readings with uneven steps, as a hand sweep is: 340 log-spaced from half to four times the
+ * first resonance, and 60 fine steps across ±3 % of it, where anyone sweeping by hand slows down
+ * (fine enough to bracket the half-power points, so the analysis can read a Q).
+ */
 export function synthesizeSweep(settings: SweepSettings, rng: SeededRandom): SweepPoint[] {
-  const count = 400;
-  const low = Math.log(settings.firstSeriesResonanceHz * 0.5);
-  const high = Math.log(settings.firstSeriesResonanceHz * 4);
+  const coarse = 340;
+  const fine = 60;
+  const f1 = settings.firstSeriesResonanceHz;
+  const low = Math.log(f1 * 0.5);
+  const high = Math.log(f1 * 4);
   const frequencies: number[] = [];
-  for (let i = 0; i < count; i++) {
-    const jitter = i === 0 || i === count - 1 ? 0 : (rng.uniform() - 0.5) * 0.6;
-    const f = Math.exp(low + ((i + jitter) / (count - 1)) * (high - low));
+  for (let i = 0; i < coarse; i++) {
+    const jitter = i === 0 || i === coarse - 1 ? 0 : (rng.uniform() - 0.5) * 0.6;
+    const f = Math.exp(low + ((i + jitter) / (coarse - 1)) * (high - low));
     frequencies.push(Math.round(f / 10) * 10);
   }
+  for (let i = 0; i < fine; i++) frequencies.push(Math.round((f1 * (0.97 + (0.06 * (i + rng.uniform() * 0.5)) / fine)) / 10) * 10);
   const unique = [...new Set(frequencies)].sort((a, b) => a - b);
   const model = createLineModel({
     firstSeriesResonance: settings.firstSeriesResonanceHz,
