@@ -1,0 +1,198 @@
+/**
+ * Role enforcement, by enumeration: every mutating entry point is discovered from the file tree, and
+ * each must appear in ENTRY_POINT_ROLES below with the role it needs. A new action or route that is
+ * not in the table fails the first test, so nothing ships unchecked; a table row whose entry point
+ * is gone fails it too.
+ *
+ * How they are checked: the exported functions are called directly, in-process, against the
+ * integration database, with next-auth's getServerSession mocked to "be" each demo role (and
+ * next/cache, next/headers mocked, as there is no Next request around them). This runs every entry
+ * point for every role in seconds, and lets the test count every table's rows before and after a
+ * refusal — "nothing stored" is checked for the whole database, not one table. The HTTP side of the
+ * route handlers (cookies, real sessions, status codes on the wire) is covered again against the
+ * built app in e2e/security-routes.spec.ts; the action protocol's Origin check in
+ * e2e/security-origin.spec.ts.
+ */
+import { readFileSync, readdirSync, statSync } from "node:fs";
+import path from "node:path";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { hasRole, ROLES, type Role } from "../lib/auth/roles";
+import { makeUser, resetDatabase, testDb } from "./support/db";
+
+const session = vi.hoisted(() => ({ userId: null as string | null, headers: new Headers() }));
+vi.mock("next-auth", () => ({ getServerSession: vi.fn(async () => (session.userId ? { user: { id: session.userId } } : null)) }));
+vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn(), updateTag: vi.fn(), refresh: vi.fn() }));
+vi.mock("next/headers", () => ({ headers: vi.fn(async () => session.headers), cookies: vi.fn(async () => new Map()) }));
+
+type Required = Role | "public";
+
+/** The committed table: every mutating entry point and the least role that may use it. */
+const ENTRY_POINT_ROLES: Record<string, Required> = {
+  "app/(app)/admin/actions.ts#addUser": "admin",
+  "app/(app)/admin/actions.ts#changeAccess": "admin",
+  "app/(app)/admin/policy/actions.ts#savePolicyAction": "admin",
+  "app/(app)/clearances/actions.ts#signClearanceAction": "steward",
+  "app/(app)/coils/[tag]/actions.ts#changeCoilStatus": "steward",
+  "app/(app)/coils/[tag]/actions.ts#addTopLoadAction": "steward",
+  "app/(app)/coils/[tag]/actions.ts#retireTopLoadAction": "steward",
+  "app/(app)/coils/[tag]/actions.ts#addComponentAction": "steward",
+  "app/(app)/coils/[tag]/actions.ts#replaceComponentAction": "steward",
+  "app/(app)/coils/actions.ts#createCoilAction": "steward",
+  "app/(app)/coils/actions.ts#updateCoilAction": "steward",
+  "app/(app)/coils/actions.ts#importLogbookAction": "steward",
+  "app/(app)/failures/actions.ts#recordFailure": "member",
+  "app/(app)/failures/actions.ts#completePostMortemAction": "steward",
+  "app/(app)/loans/actions.ts#lendCoilAction": "steward",
+  "app/(app)/loans/actions.ts#returnLoanAction": "steward",
+  "app/(app)/sessions/actions.ts#logSession": "member",
+  "app/(app)/sweeps/actions.ts#recordTypedSweep": "member",
+  "app/api/coils/route.ts#POST": "steward",
+  "app/api/import/json/route.ts#POST": "steward",
+  "app/api/sweeps/import/route.ts#POST": "member",
+  // next-auth's own sign-in/sign-out endpoint: public by design, protected by its CSRF token and the sign-in throttle.
+  "app/api/auth/[...nextauth]/route.ts#POST": "public",
+};
+
+const ROOT = path.resolve(__dirname, "..");
+const MUTATING = ["POST", "PUT", "PATCH", "DELETE"];
+
+function walk(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const full = path.join(dir, name);
+    return statSync(full).isDirectory() ? walk(full) : [full];
+  });
+}
+
+/** Exported names of a module, as written: `export async function x`, `export const x`, `export { a as B }`. */
+function exportedNames(source: string): string[] {
+  const names = [...source.matchAll(/export\s+(?:async\s+)?(?:function\*?|const|let)\s+(\w+)/g)].map((m) => m[1]!);
+  for (const list of source.matchAll(/export\s*\{([^}]*)\}/g)) {
+    for (const part of list[1]!.split(",")) names.push(part.trim().split(/\s+as\s+/).pop()!.trim());
+  }
+  return names.filter(Boolean);
+}
+
+function discoverEntryPoints(): string[] {
+  const found: string[] = [];
+  for (const file of walk(path.join(ROOT, "app")).filter((f) => /\.(ts|tsx)$/.test(f))) {
+    const relative = path.relative(ROOT, file).split(path.sep).join("/");
+    const source = readFileSync(file, "utf8");
+    const isServerModule = /^\s*(?:\/\*[\s\S]*?\*\/\s*|\/\/.*\n\s*)*["']use server["']/.test(source);
+    if (isServerModule) for (const name of exportedNames(source)) found.push(`${relative}#${name}`);
+    // Inline "use server" functions inside components would escape the table: refuse them outright.
+    else if (/["']use server["']/.test(source)) found.push(`${relative}#<inline "use server">`);
+    if (relative.startsWith("app/api/") && relative.endsWith("/route.ts")) {
+      for (const name of exportedNames(source)) if (MUTATING.includes(name)) found.push(`${relative}#${name}`);
+    }
+  }
+  return found.sort();
+}
+
+const ROLE_REFUSAL = /Sign in to continue|needs the (member|steward|admin) role/;
+type Outcome = { status: number; message: string };
+
+async function callEntryPoint(key: string, body: unknown): Promise<Outcome> {
+  const [file, name] = key.split("#") as [string, string];
+  const mod = (await import(path.join(ROOT, file))) as Record<string, (...args: unknown[]) => Promise<unknown>>;
+  const fn = mod[name];
+  if (!fn) throw new Error(`${key} is not exported`);
+  if (file.endsWith("/route.ts")) {
+    const request = new Request("http://lab.test/x", { method: name, headers: { "content-type": "application/json", host: "lab.test" }, body: JSON.stringify(body) });
+    session.headers = request.headers;
+    const response = (await fn(request, { params: Promise.resolve({}) })) as Response;
+    const json = (await response.json()) as { message?: string };
+    return { status: response.status, message: json.message ?? "" };
+  }
+  const form = new FormData();
+  for (const [k, v] of Object.entries((body ?? {}) as Record<string, string>)) form.set(k, v);
+  try {
+    const result = (name === "recordTypedSweep" ? await fn(body) : await fn(null, form)) as { ok: boolean; message?: string };
+    return { status: result.ok ? 200 : ROLE_REFUSAL.test(result.message ?? "") ? (/Sign in/.test(result.message!) ? 401 : 403) : 422, message: result.message ?? "" };
+  } catch (error) {
+    // redirect() after a successful action throws NEXT_REDIRECT; anything else is a real failure.
+    if ((error as { digest?: string }).digest?.startsWith("NEXT_REDIRECT")) return { status: 303, message: "redirect" };
+    throw error;
+  }
+}
+
+/** Every table's row count, so a refusal is shown to have stored nothing anywhere (audit log included). */
+async function countAllRows(): Promise<Record<string, number>> {
+  const tables = await testDb.$queryRawUnsafe<{ name: string }[]>(
+    "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '_prisma%'",
+  );
+  const counts: Record<string, number> = {};
+  for (const { name } of tables) {
+    const [row] = await testDb.$queryRawUnsafe<{ n: bigint | number }[]>(`SELECT COUNT(*) AS n FROM "${name}"`);
+    counts[name] = Number(row!.n);
+  }
+  return counts;
+}
+
+// Inputs that would succeed if the guard let them through, so a refusal that stores nothing means something.
+const VALID_COIL = { tag: "SEC-01", name: "Guard probe", builderName: "Test", formDiameterM: "50 mm", windingLengthM: "200 mm", turns: "900", wireDiameterM: "0.2 mm" };
+const VALID_INPUT: Record<string, unknown> = {
+  "app/(app)/admin/actions.ts#addUser": { name: "Probe", email: "probe@lab.test", role: "member", password: "probe-pass-1234" },
+  "app/(app)/coils/actions.ts#createCoilAction": VALID_COIL,
+  "app/api/coils/route.ts#POST": { ...VALID_COIL, formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002 },
+};
+
+const users: Partial<Record<Role, string>> = {};
+
+beforeAll(async () => {
+  await resetDatabase();
+  for (const role of ROLES) users[role] = (await makeUser(`${role}@lab.test`, role)).id;
+});
+afterAll(() => {
+  session.userId = null;
+});
+
+describe("every mutating entry point is in the role table", () => {
+  it("the table names exactly the entry points in the file tree", () => {
+    const discovered = discoverEntryPoints();
+    const missing = discovered.filter((key) => !(key in ENTRY_POINT_ROLES));
+    const stale = Object.keys(ENTRY_POINT_ROLES).filter((key) => !discovered.includes(key));
+    expect(missing, "entry points with no role in ENTRY_POINT_ROLES — add them with the role they need").toEqual([]);
+    expect(stale, "ENTRY_POINT_ROLES names entry points that no longer exist").toEqual([]);
+  });
+});
+
+const guarded = Object.entries(ENTRY_POINT_ROLES).filter((entry): entry is [string, Role] => entry[1] !== "public");
+
+describe.each(guarded)("%s (needs %s)", (key, required) => {
+  it("refuses an anonymous caller and stores nothing", async () => {
+    session.userId = null;
+    const before = await countAllRows();
+    const outcome = await callEntryPoint(key, VALID_INPUT[key] ?? {});
+    expect(outcome.status).toBe(401);
+    expect(outcome.message).toMatch(/Sign in to continue/);
+    expect(await countAllRows()).toEqual(before);
+  });
+
+  it.each(ROLES)("as %s: refused only when the role is too low", async (role) => {
+    session.userId = users[role]!;
+    const before = await countAllRows();
+    const allowed = hasRole(role, required);
+    // A refused caller gets the input that would succeed; an allowed one gets an empty form, so it is
+    // refused for the input (422) and not for its role, and the database is left as the next test needs it.
+    const outcome = await callEntryPoint(key, allowed ? {} : (VALID_INPUT[key] ?? {}));
+    if (allowed) {
+      expect(outcome.status, outcome.message).not.toBe(401);
+      expect(outcome.status, outcome.message).not.toBe(403);
+      expect(outcome.message).not.toMatch(ROLE_REFUSAL);
+    } else {
+      expect(outcome.status).toBe(403);
+      expect(outcome.message).toBe(`This needs the ${required} role; you are signed in as a ${role}.`);
+      expect(await countAllRows()).toEqual(before);
+    }
+  });
+});
+
+describe("the valid probes really would store something", () => {
+  it.each(Object.keys(VALID_INPUT))("%s succeeds for its role", async (key) => {
+    await resetDatabase();
+    for (const role of ROLES) users[role] = (await makeUser(`${role}@lab.test`, role)).id;
+    session.userId = users[ENTRY_POINT_ROLES[key] as Role]!;
+    const outcome = await callEntryPoint(key, VALID_INPUT[key]);
+    expect([200, 201, 303], outcome.message).toContain(outcome.status);
+  });
+});
