@@ -69,4 +69,9 @@ export async function benchLargeFleetPages(): Promise<void> {
     console.log(`  ${name.padEnd(34)} median ${ms.toFixed(1).padStart(7)} ms   raw-SQL floor ${floorMs.toFixed(1).padStart(6)} ms   ×${(ms / floorMs).toFixed(1)}`);
   }
   db.close();
+  console.log(
+    "  What made the difference (DEVELOPERS.md, Performance): the dashboard used to read all 250 000 sessions through Prisma and\n" +
+      "  analyse every one on every request (median 51 s here). It now reads each coil's health window (first 3 + last 60 sessions,\n" +
+      "  lib/analysis/health-window.ts) with per-coil index seeks, and its totals as one GROUP BY over a covering index.",
+  );
 }
