@@ -17,6 +17,8 @@ import Database from "better-sqlite3";
 export const LARGE_FLEET = { coils: 500, sessionsPerCoil: 500, samplesPerSession: 10, sweepsPerCoil: 10, pointsPerSweep: 400 } as const;
 export const LARGE_DB_PATH = path.resolve("data/bench/large.db");
 export const LARGE_DB_URL = `file:${LARGE_DB_PATH}`;
+export const LARGE_FLEET_USER_ID = "bench-user";
+export const largeFleetCoilId = (index: number) => `lf-coil-${index}`;
 
 const EXPECTED: Record<string, number> = {
   Coil: LARGE_FLEET.coils,
@@ -104,7 +106,7 @@ function insertFleet(db: Database.Database): void {
   const nullParts = { switchType: null, voltageRatingV: null, continuousCurrentA: null, peakCurrentA: null, powerRating25CW: null, maxJunctionTempC: null, thermalResistanceJcKPerW: null, caseToSinkKPerW: null, sinkThermalResistanceKPerW: null, sinkMassKg: null, clampVoltageV: null };
 
   for (let c = 0; c < LARGE_FLEET.coils; c++) {
-    const coilId = `lf-coil-${c}`;
+    const coilId = largeFleetCoilId(c);
     const tag = `LF-${String(c + 1).padStart(3, "0")}`;
     coil.run(coilId, tag, `Large fleet coil ${c + 1}`, t0, t0);
     const topLoadId = `lf-top-${c}`;

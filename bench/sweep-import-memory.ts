@@ -8,7 +8,7 @@
 import { setFlagsFromString } from "node:v8";
 import { runInNewContext } from "node:vm";
 import Database from "better-sqlite3";
-import { LARGE_DB_PATH } from "./large-fleet";
+import { LARGE_DB_PATH, LARGE_FLEET_USER_ID, largeFleetCoilId } from "./large-fleet";
 
 setFlagsFromString("--expose-gc");
 const collect = runInNewContext("gc") as () => void;
@@ -34,9 +34,8 @@ export async function benchSweepImport(): Promise<void> {
   const { detectSweepCsvLayout, readSweepCsv } = await import("../lib/import/sweep-csv");
   const { sweepImportSchema, recordInputFromImport } = await import("../lib/validation/sweep");
   const { recordSweep } = await import("../lib/db/sweeps");
-  const { prisma } = await import("../lib/db/client");
-  const user = await prisma.user.findFirstOrThrow({ select: { id: true } });
-  const coil = await prisma.coil.findFirstOrThrow({ orderBy: { tag: "asc" }, select: { id: true } });
+  const user = { id: LARGE_FLEET_USER_ID };
+  const coil = { id: largeFleetCoilId(0) };
 
   collect();
   const start = used();
