@@ -35,4 +35,16 @@ export default tseslint.config(
     ignores: ["lib/db/**", "lib/calc/**", "prisma.config.ts", "test/support/**"],
     rules: { "no-restricted-imports": ["error", { patterns: PRISMA_OUTSIDE_DB }] },
   },
+  {
+    // App code reads the database through lib/db's Prisma client only; raw better-sqlite3 is for bench/ fixtures,
+    // scripts/ and test checks.
+    files: ["app/**/*.ts", "app/**/*.tsx", "lib/**/*.ts", "proxy.ts"],
+    ignores: ["lib/db/**", "lib/calc/**"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        { patterns: [...PRISMA_OUTSIDE_DB, { group: ["better-sqlite3"], message: "App code goes through lib/db (Prisma); better-sqlite3 directly is for bench/ and scripts/." }] },
+      ],
+    },
+  },
 );

@@ -55,6 +55,8 @@ test("a steward replaces the switch and the old part stays in the history with i
   await page.getByLabel("Voltage rating").fill("500 V");
   await expect(page.getByTestId("voltageRatingV-understood")).toHaveText("Understood: 500 V");
   await page.getByLabel("Peak current").fill("80 A");
+  // Full ratings: later specs log sessions on this coil and need Tj max for the run-time figure.
+  await page.getByLabel("Tj max").fill("175 °C");
   await page.getByRole("button", { name: "Replace the part" }).click();
 
   await expect(page).toHaveURL(/\/coils\/KM-06/);

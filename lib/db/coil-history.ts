@@ -3,6 +3,8 @@
  * coils, every part ever fitted, every session (without heat-sink samples) and every sweep summary.
  */
 import { prisma } from "./client";
+import { Prisma, type RunSession } from "./generated/client";
+import { HEALTH_WINDOW, selectHealthWindow } from "../analysis/health-window";
 
 const sessionSelect = {
   id: true,
@@ -22,6 +24,12 @@ const sessionSelect = {
 } as const;
 
 const sweepSelect = { id: true, coilId: true, takenAt: true, topLoadId: true, firstSeriesResonanceHz: true } as const;
+
+function group<T extends { coilId: string }>(rows: T[]): Map<string, T[]> {
+  const map = new Map<string, T[]>();
+  for (const row of rows) (map.get(row.coilId) ?? map.set(row.coilId, []).get(row.coilId)!).push(row);
+  return map;
+}
 
 export async function getCoilHistory(coilId: string) {
   const [coil, components, sessions, sweeps, topLoads] = await Promise.all([
@@ -45,14 +53,71 @@ export async function getFleetHistory(): Promise<CoilHistory[]> {
     prisma.sweep.findMany({ select: sweepSelect, orderBy: { takenAt: "asc" } }),
     prisma.topLoad.findMany({ orderBy: { createdAt: "asc" } }),
   ]);
-  const group = <T extends { coilId: string }>(rows: T[]) => {
-    const map = new Map<string, T[]>();
-    for (const row of rows) (map.get(row.coilId) ?? map.set(row.coilId, []).get(row.coilId)!).push(row);
-    return map;
-  };
   const c = group(components);
   const s = group(sessions);
   const w = group(sweeps);
   const t = group(topLoads);
   return coils.map((coil) => ({ coil, components: c.get(coil.id) ?? [], sessions: s.get(coil.id) ?? [], sweeps: w.get(coil.id) ?? [], topLoads: t.get(coil.id) ?? [] }));
+}
+
+export interface CoilSessionTotals {
+  sessionCount: number;
+  totalDurationS: number;
+  lastSessionAt: Date | null;
+}
+
+export type CoilHealthHistory = CoilHistory & { totals: CoilSessionTotals };
+
+const SESSION_COLUMNS = Object.keys(sessionSelect)
+  .map((column) => `s."${column}" AS "${column}"`)
+  .join(", ");
+
+type SessionRow = { [K in keyof typeof sessionSelect]: RunSession[K] };
+type RawSessionRow = Omit<SessionRow, "startedAt"> & { startedAt: Date | string };
+
+/** Raw rows carry the stored ISO text for DateTime columns; Prisma's own reads give Dates. */
+function toSessionRow(row: RawSessionRow): SessionRow {
+  return { ...row, startedAt: row.startedAt instanceof Date ? row.startedAt : new Date(row.startedAt) };
+}
+
+/**
+ * What the fleet dashboard needs for every coil without reading every session: each coil's sessions cut to the
+ * health window (lib/analysis/health-window.ts) and its running totals as SQL aggregates. Two index seeks per coil
+ * find where its window starts, so the rows read stay ~63 a coil however long the logbooks grow.
+ */
+export async function getFleetHealthHistory(): Promise<CoilHealthHistory[]> {
+  const { baselineSessions, recentSessions } = HEALTH_WINDOW;
+  const [coils, components, sweeps, topLoads, totals, rawSessions] = await Promise.all([
+    prisma.coil.findMany({ orderBy: { tag: "asc" } }),
+    prisma.component.findMany({ orderBy: { installedAt: "asc" } }),
+    prisma.sweep.findMany({ select: sweepSelect, orderBy: { takenAt: "asc" } }),
+    prisma.topLoad.findMany({ orderBy: { createdAt: "asc" } }),
+    prisma.runSession.groupBy({ by: ["coilId"], _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
+    // Raw SQL because the window is per coil (a LIMIT/OFFSET per group), which Prisma's query API cannot say;
+    // both halves walk the (coilId, startedAt) index. Ties on startedAt may add a row; selectHealthWindow trims.
+    prisma.$queryRaw<RawSessionRow[]>`
+      SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM Coil c JOIN RunSession s ON s.coilId = c.id
+        AND s.startedAt >= coalesce((SELECT r.startedAt FROM RunSession r WHERE r.coilId = c.id ORDER BY r.startedAt DESC LIMIT 1 OFFSET ${recentSessions - 1}), '')
+      UNION
+      SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM Coil c JOIN RunSession s ON s.coilId = c.id
+        AND s.startedAt <= (SELECT r.startedAt FROM RunSession r WHERE r.coilId = c.id ORDER BY r.startedAt ASC LIMIT 1 OFFSET ${baselineSessions - 1})
+      ORDER BY startedAt, id`,
+  ]);
+  const sessions = rawSessions.map(toSessionRow);
+  const s = group(sessions);
+  const c = group(components);
+  const w = group(sweeps);
+  const t = group(topLoads);
+  const totalsByCoil = new Map(totals.map((row) => [row.coilId, row]));
+  return coils.map((coil) => {
+    const total = totalsByCoil.get(coil.id);
+    return {
+      coil,
+      components: c.get(coil.id) ?? [],
+      sessions: selectHealthWindow(s.get(coil.id) ?? []),
+      sweeps: w.get(coil.id) ?? [],
+      topLoads: t.get(coil.id) ?? [],
+      totals: { sessionCount: total?._count._all ?? 0, totalDurationS: total?._sum.durationS ?? 0, lastSessionAt: total?._max.startedAt ?? null },
+    };
+  });
 }

@@ -1,10 +1,10 @@
 /**
- * The fleet at a glance: one row per coil with its health (lib/analysis over the whole logbook), latest
+ * The fleet at a glance: one row per coil with its health (lib/analysis over each logbook's health window), latest
  * margins, running totals, clearance and loan state. Read with a handful of queries for the whole fleet
  * (not one query per coil), then filtered and sorted on the server from the query string.
  */
 import { prisma } from "./client";
-import { getFleetHistory } from "./coil-history";
+import { getFleetHealthHistory, getFleetHistory } from "./coil-history";
 import { getCurrentPolicy } from "./policy";
 import { analyzeSessions, assessCoil } from "../analysis/coil-health-input";
 import { findPartReplacements } from "../analysis/clearance-facts";
@@ -38,7 +38,7 @@ const SEVERITY: Record<HealthStatus, number> = { hold: 0, watch: 1, "not enough 
 
 export async function getFleetOverview(now: Date = new Date()): Promise<FleetRow[]> {
   const [histories, policy, failures, clearances, loans] = await Promise.all([
-    getFleetHistory(),
+    getFleetHealthHistory(),
     getCurrentPolicy(),
     prisma.failure.findMany({ select: { coilId: true, occurredAt: true, mode: true, status: true } }),
     prisma.clearance.findMany({ orderBy: { decidedAt: "desc" }, distinct: ["coilId"], select: { id: true, coilId: true, verdict: true, decidedAt: true, validUntil: true } }),
@@ -46,7 +46,7 @@ export async function getFleetOverview(now: Date = new Date()): Promise<FleetRow
   ]);
   const clearanceByCoil = new Map(clearances.map((c) => [c.coilId, c]));
   const loanByCoil = new Map(loans.map((l) => [l.coilId, l]));
-  return histories.map(({ coil, components, sessions, sweeps }) => {
+  return histories.map(({ coil, components, sessions, sweeps, totals }) => {
     const coilFailures = failures.filter((f) => f.coilId === coil.id);
     const analyzed = analyzeSessions(coil, sessions, components);
     let health: HealthStatus = "not enough data";
@@ -69,9 +69,9 @@ export async function getFleetOverview(now: Date = new Date()): Promise<FleetRow
       health,
       reasons,
       latestMargins: analyzed.at(-1)?.analysis.margins ?? null,
-      sessionCount: sessions.length,
-      hoursRun: sessions.reduce((sum, s) => sum + s.durationS, 0) / 3600,
-      lastSessionAt: sessions.at(-1)?.startedAt ?? null,
+      sessionCount: totals.sessionCount,
+      hoursRun: totals.totalDurationS / 3600,
+      lastSessionAt: totals.lastSessionAt,
       lastSweepAt,
       daysSinceSweep: lastSweepAt ? Math.floor((now.getTime() - lastSweepAt.getTime()) / 86_400_000) : null,
       openFailures: coilFailures.filter((f) => f.status === "open").length,

@@ -8,6 +8,7 @@ import { getCoilHistory } from "@/lib/db/coil-history";
 import { getCoilTimeline } from "@/lib/db/coil-timeline";
 import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
 import { compareCoil } from "@/lib/analysis/coil-comparison";
+import { selectHealthWindow } from "@/lib/analysis/health-window";
 import { CalcInputError } from "@/lib/calc/errors";
 import { describeTurnsCount } from "@/lib/validation/coil";
 import { formatDate, formatQuantity } from "@/lib/units/format";
@@ -27,7 +28,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 
 function assess(history: NonNullable<Awaited<ReturnType<typeof getCoilHistory>>>) {
   try {
-    const analyzed = analyzeSessions(history.coil, history.sessions, history.components);
+    const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);
     const last = analyzed.at(-1);
     return { health: assessCoil(analyzed, history.sweeps, new Date()), latest: last ? { id: last.session.id, startedAt: last.session.startedAt, analysis: last.analysis } : null };
   } catch (error) {

@@ -7,6 +7,7 @@ import { getCoilByTag } from "@/lib/db/coils";
 import { getCoilHistory } from "@/lib/db/coil-history";
 import { getCurrentPolicy } from "@/lib/db/policy";
 import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
+import { selectHealthWindow } from "@/lib/analysis/health-window";
 import { buildComparableCurrent, buildFrequencySeries, buildMarginChart } from "@/lib/analysis/trend-series";
 import { formatDate, formatNumber } from "@/lib/units/format";
 
@@ -27,7 +28,8 @@ export default async function TrendsPage({ params }: Props) {
   if (!history) notFound();
   const now = new Date();
   const analyzed = analyzeSessions(history.coil, history.sessions, history.components);
-  const health = assessCoil(analyzed, history.sweeps, now, policy.rules);
+  // Judged over the same window as the dashboard and the coil page, so all three give the same status.
+  const health = assessCoil(selectHealthWindow(analyzed), history.sweeps, now, policy.rules);
   const current = buildComparableCurrent(analyzed);
   const freq = buildFrequencySeries(analyzed, history.sweeps, health);
   return (

@@ -1,0 +1,123 @@
+/**
+ * `npm run bench -- --load` (after `npm run build`): a small, bounded load generator for session logging.
+ * Starts the built app (`next start`) on loopback against a fresh demo database, signs in as the demo member,
+ * POSTs a fixed number of sessions to /api/sessions with a few requests in flight, and prints throughput,
+ * p50/p99 latency and the count of 5xx answers; then checks every acknowledged session is in the database.
+ * Node's own fetch is the client (no load-testing package is installed).
+ */
+import { execFileSync, spawn } from "node:child_process";
+import { mkdirSync, rmSync } from "node:fs";
+import path from "node:path";
+import Database from "better-sqlite3";
+
+const PORT = Number(process.env.BENCH_PORT ?? 3106);
+const BASE = `http://127.0.0.1:${PORT}`;
+const REQUESTS = Number(process.env.BENCH_SESSION_POSTS ?? 500);
+const IN_FLIGHT = 8;
+const DB_PATH = path.resolve("data/bench/load.db");
+const MEMBER = { email: "member@kettlewell.example", password: "demo-member-pass" };
+const COIL_IDS = ["coil-KM-01", "coil-KM-02", "coil-KM-04", "coil-KM-05", "coil-KM-06"];
+
+function freshDemoDatabase(env: NodeJS.ProcessEnv): void {
+  mkdirSync(path.dirname(DB_PATH), { recursive: true });
+  for (const suffix of ["", "-wal", "-shm"]) rmSync(DB_PATH + suffix, { force: true });
+  execFileSync("npx", ["prisma", "migrate", "deploy"], { env, stdio: "ignore" });
+  execFileSync("npx", ["tsx", "scripts/prepare-db.ts"], { env, stdio: "ignore" });
+  execFileSync("npx", ["tsx", "prisma/seed.ts"], { env, stdio: "ignore" });
+}
+
+async function waitForServer(deadlineMs: number): Promise<void> {
+  while (Date.now() < deadlineMs) {
+    try {
+      if ((await fetch(`${BASE}/sign-in`)).ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((resolve) => setTimeout(resolve, 250));
+  }
+  throw new Error(`next start did not answer on ${BASE} in time (run \`npm run build\` first)`);
+}
+
+/** next-auth's credentials flow by hand: CSRF token and cookie, then the callback, keeping every cookie set. */
+async function signIn(): Promise<string> {
+  const jar = new Map<string, string>();
+  const keep = (response: Response) => {
+    for (const cookie of response.headers.getSetCookie()) {
+      const [pair] = cookie.split(";");
+      const at = pair!.indexOf("=");
+      jar.set(pair!.slice(0, at), pair!.slice(at + 1));
+    }
+  };
+  const header = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
+  const csrf = await fetch(`${BASE}/api/auth/csrf`);
+  keep(csrf);
+  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+  const callback = await fetch(`${BASE}/api/auth/callback/credentials`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: header() },
+    body: new URLSearchParams({ csrfToken, email: MEMBER.email, password: MEMBER.password, json: "true" }),
+  });
+  keep(callback);
+  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`Sign-in failed (status ${callback.status})`);
+  return header();
+}
+
+function localMinute(date: Date): string {
+  const pad = (n: number) => String(n).padStart(2, "0");
+  return `${date.getFullYear()}-${pad(date.getMonth() + 1)}-${pad(date.getDate())}T${pad(date.getHours())}:${pad(date.getMinutes())}`;
+}
+
+async function postSessions(cookie: string) {
+  const latencies: number[] = [];
+  const acknowledged: string[] = [];
+  const statuses = new Map<number, number>();
+  let next = 0;
+  const worker = async () => {
+    while (next < REQUESTS) {
+      const i = next++;
+      const body = {
+        coilId: COIL_IDS[i % COIL_IDS.length],
+        startedAt: localMinute(new Date(Date.now() - (i + 60) * 60_000)),
+        supplyVoltageV: "24 V",
+        supplyCurrentA: (1 + (i % 7) * 0.05).toFixed(2),
+        durationS: "10 min",
+        ambientTempC: 21,
+        heatSinkEndC: 34,
+        notes: `load bench ${i}`,
+        samples: "0, 21\n300, 30\n600, 34",
+      };
+      const started = performance.now();
+      const response = await fetch(`${BASE}/api/sessions`, { method: "POST", headers: { "content-type": "application/json", cookie }, body: JSON.stringify(body) });
+      const answer = (await response.json()) as { ok: boolean; data?: { id: string } };
+      latencies.push(performance.now() - started);
+      statuses.set(response.status, (statuses.get(response.status) ?? 0) + 1);
+      if (response.status === 201 && answer.ok && answer.data) acknowledged.push(answer.data.id);
+    }
+  };
+  const started = performance.now();
+  await Promise.all(Array.from({ length: IN_FLIGHT }, worker));
+  return { seconds: (performance.now() - started) / 1000, latencies: latencies.sort((a, b) => a - b), acknowledged, statuses };
+}
+
+export async function benchSessionLoad(): Promise<void> {
+  const env = { ...process.env, DATABASE_URL: `file:${DB_PATH}`, NEXTAUTH_URL: `http://localhost:${PORT}`, NEXT_TELEMETRY_DISABLED: "1", COILYARD_DATA_DIR: path.dirname(DB_PATH) };
+  freshDemoDatabase(env);
+  const server = spawn("npx", ["next", "start", "-p", String(PORT), "-H", "127.0.0.1"], { env, stdio: "ignore", detached: true });
+  try {
+    await waitForServer(Date.now() + 60_000);
+    const cookie = await signIn();
+    const { seconds, latencies, acknowledged, statuses } = await postSessions(cookie);
+    const at = (q: number) => latencies[Math.min(latencies.length - 1, Math.floor(q * latencies.length))]!;
+    const serverErrors = [...statuses].filter(([status]) => status >= 500).reduce((n, [, count]) => n + count, 0);
+    const db = new Database(DB_PATH, { readonly: true });
+    const found = acknowledged.filter((id) => db.prepare(`SELECT 1 FROM RunSession WHERE id = ?`).get(id)).length;
+    db.close();
+    console.log(`\nSession logging under load: ${REQUESTS} POST /api/sessions, ${IN_FLIGHT} in flight, next start on ${BASE}`);
+    console.log(`  throughput ${(REQUESTS / seconds).toFixed(0)} req/s   p50 ${at(0.5).toFixed(1)} ms   p99 ${at(0.99).toFixed(1)} ms   5xx ${serverErrors}   statuses ${JSON.stringify(Object.fromEntries(statuses))}`);
+    console.log(`  acknowledged ${acknowledged.length}, found in the database ${found}${found === acknowledged.length ? " (all)" : " — MISSING WRITES"}`);
+    if (serverErrors > 0 || found !== acknowledged.length) process.exitCode = 1;
+  } finally {
+    if (server.pid) process.kill(-server.pid, "SIGTERM");
+  }
+}

@@ -1,0 +1,55 @@
+/** The dashboard's windowed read (lib/db/coil-history getFleetHealthHistory) against the full logbook it replaces. */
+import { beforeEach, describe, expect, it } from "vitest";
+import { resetDatabase, testDb } from "./support/db";
+import { makeCleanCoil } from "./fleet-fixtures";
+import { getFleetHealthHistory, getFleetHistory } from "@/lib/db/coil-history";
+import { getFleetOverview } from "@/lib/db/fleet";
+import { HEALTH_WINDOW, selectHealthWindow } from "@/lib/analysis/health-window";
+
+const DAY = 86_400_000;
+const now = new Date("2026-11-30T12:00:00Z");
+
+async function addSessions(coilId: string, count: number) {
+  await testDb.runSession.createMany({
+    data: Array.from({ length: count }, (_, i) => ({
+      coilId,
+      startedAt: new Date(now.getTime() - 200 * DAY + i * 3_600_000),
+      supplyVoltageV: 24,
+      supplyCurrentA: 2 + i * 0.001,
+      durationS: 600 + i,
+      ambientTempC: 21,
+      heatSinkEndC: 35,
+    })),
+  });
+}
+
+describe("getFleetHealthHistory", () => {
+  beforeEach(resetDatabase);
+
+  it("reads the baseline and recent window of a long logbook, with totals over every session", async () => {
+    const long = await makeCleanCoil("HW-01", now);
+    await addSessions(long.id, 150);
+    const short = await makeCleanCoil("HW-02", now);
+    const [full, windowed] = await Promise.all([getFleetHistory(), getFleetHealthHistory()]);
+    for (const coil of full) {
+      const read = windowed.find((w) => w.coil.id === coil.coil.id)!;
+      expect(read.sessions.map((s) => s.id)).toEqual(selectHealthWindow(coil.sessions).map((s) => s.id));
+      expect(read.sessions[0]).toEqual(coil.sessions[0]);
+      expect(read.totals.sessionCount).toBe(coil.sessions.length);
+      expect(read.totals.totalDurationS).toBeCloseTo(coil.sessions.reduce((sum, s) => sum + s.durationS, 0), 6);
+      expect(read.totals.lastSessionAt).toEqual(coil.sessions.at(-1)!.startedAt);
+    }
+    const longRead = windowed.find((w) => w.coil.id === long.id)!;
+    expect(longRead.sessions).toHaveLength(HEALTH_WINDOW.baselineSessions + HEALTH_WINDOW.recentSessions);
+    expect(windowed.find((w) => w.coil.id === short.id)!.sessions).toHaveLength(5);
+  });
+
+  it("gives a coil without sessions no totals, and the dashboard still lists it", async () => {
+    await testDb.coil.create({ data: { tag: "HW-03", name: "Fresh build", builderName: "Test", formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002 } });
+    const [read] = await getFleetHealthHistory();
+    expect(read!.sessions).toEqual([]);
+    expect(read!.totals).toEqual({ sessionCount: 0, totalDurationS: 0, lastSessionAt: null });
+    const [row] = await getFleetOverview(now);
+    expect(row).toMatchObject({ tag: "HW-03", sessionCount: 0, hoursRun: 0, lastSessionAt: null, health: "not enough data" });
+  });
+});
