@@ -48,6 +48,7 @@ const ENTRY_POINT_ROLES: Record<string, Required> = {
   "app/(app)/sweeps/actions.ts#recordTypedSweep": "member",
   "app/api/coils/route.ts#POST": "steward",
   "app/api/import/json/route.ts#POST": "steward",
+  "app/api/sessions/route.ts#POST": "member",
   "app/api/sweeps/import/route.ts#POST": "member",
   // next-auth's own sign-in/sign-out endpoint: public by design, protected by its CSRF token and the sign-in throttle.
   "app/api/auth/[...nextauth]/route.ts#POST": "public",
