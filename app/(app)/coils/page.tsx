@@ -6,6 +6,7 @@ import { listCoils } from "@/lib/db/coils";
 import { coilListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDate, formatQuantity } from "@/lib/units/format";
 import { Pagination } from "@/app/ui/pagination";
+import { FilterForm } from "@/app/ui/list-filters";
 import { COIL_STATUS_LABEL, TOPOLOGY_LABEL } from "@/app/ui/labels";
 
 export const metadata: Metadata = { title: "Coils" };
@@ -31,7 +32,7 @@ export default async function CoilsPage({ searchParams }: { searchParams: Promis
           <a href="/api/export/fleet.csv">Fleet summary CSV</a>
         </div>
       </div>
-      <form className="filters" method="get" role="search" aria-label="Filter coils">
+      <FilterForm label="Filter coils">
         <div className="field">
           <label htmlFor="q">Search</label>
           <input id="q" name="q" defaultValue={query.q ?? ""} placeholder="Tag, name or builder" />
@@ -53,8 +54,7 @@ export default async function CoilsPage({ searchParams }: { searchParams: Promis
             <option value="updated">Recently changed</option>
           </select>
         </div>
-        <button type="submit">Apply</button>
-      </form>
+      </FilterForm>
       <div className="table-wrap">
         <table>
           <caption>{result.total} coil{result.total === 1 ? "" : "s"}</caption>

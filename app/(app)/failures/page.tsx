@@ -5,6 +5,7 @@ import { listFailures } from "@/lib/db/failures";
 import { failureListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDate } from "@/lib/units/format";
 import { Pagination } from "@/app/ui/pagination";
+import { FilterForm } from "@/app/ui/list-filters";
 import { FAILURE_MODE_LABEL } from "@/app/ui/labels";
 
 export const metadata: Metadata = { title: "Failures" };
@@ -21,7 +22,7 @@ export default async function FailuresPage({ searchParams }: { searchParams: Pro
           Record a failure
         </Link>
       </div>
-      <form className="filters" method="get" role="search" aria-label="Filter failures">
+      <FilterForm label="Filter failures">
         <div className="field">
           <label htmlFor="q">Search</label>
           <input id="q" name="q" defaultValue={query.q ?? ""} placeholder="Coil tag, symptom or cause" />
@@ -45,8 +46,7 @@ export default async function FailuresPage({ searchParams }: { searchParams: Pro
             ))}
           </select>
         </div>
-        <button type="submit">Apply</button>
-      </form>
+      </FilterForm>
       <div className="table-wrap">
         <table>
           <caption>{result.total} failure{result.total === 1 ? "" : "s"}</caption>

@@ -6,6 +6,7 @@ import { listLoans } from "@/lib/db/loans";
 import { loanListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDate } from "@/lib/units/format";
 import { Pagination } from "@/app/ui/pagination";
+import { FilterForm } from "@/app/ui/list-filters";
 
 export const metadata: Metadata = { title: "Loans" };
 
@@ -18,7 +19,7 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
   return (
     <>
       <h1>Loans</h1>
-      <form className="filters" method="get" aria-label="Filter loans">
+      <FilterForm label="Filter loans">
         <div className="field">
           <label htmlFor="state">Show</label>
           <select id="state" name="state" defaultValue={query.state}>
@@ -28,8 +29,7 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
             <option value="returned">Returned</option>
           </select>
         </div>
-        <button type="submit">Apply</button>
-      </form>
+      </FilterForm>
       <div className="table-wrap">
         <table>
           <caption>{result.total} loan{result.total === 1 ? "" : "s"}</caption>

@@ -6,6 +6,7 @@ import { listCoilChoices } from "@/lib/db/coils";
 import { sessionListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDateTime, formatDuration, formatNumber, formatQuantity, formatTemperature } from "@/lib/units/format";
 import { Pagination } from "@/app/ui/pagination";
+import { FilterForm, CoilFilter } from "@/app/ui/list-filters";
 import { OUTCOME_LABEL } from "@/app/ui/labels";
 
 export const metadata: Metadata = { title: "Run sessions" };
@@ -25,18 +26,8 @@ export default async function SessionsPage({ searchParams }: { searchParams: Pro
           Log a session
         </Link>
       </div>
-      <form className="filters" method="get" role="search" aria-label="Filter sessions">
-        <div className="field">
-          <label htmlFor="coil">Coil</label>
-          <select id="coil" name="coil" defaultValue={query.coil ?? ""}>
-            <option value="">All coils</option>
-            {coils.map((c) => (
-              <option key={c.id} value={c.tag}>
-                {c.tag} — {c.name}
-              </option>
-            ))}
-          </select>
-        </div>
+      <FilterForm label="Filter sessions">
+        <CoilFilter coils={coils} value={query.coil} />
         <div className="field">
           <label htmlFor="outcome">Outcome</label>
           <select id="outcome" name="outcome" defaultValue={query.outcome ?? ""}>
@@ -62,8 +53,7 @@ export default async function SessionsPage({ searchParams }: { searchParams: Pro
             <option value="duration">Duration</option>
           </select>
         </div>
-        <button type="submit">Apply</button>
-      </form>
+      </FilterForm>
       <div className="table-wrap">
         <table>
           <caption>{result.total} session{result.total === 1 ? "" : "s"}</caption>

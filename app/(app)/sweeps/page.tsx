@@ -6,6 +6,7 @@ import { listCoilChoices } from "@/lib/db/coils";
 import { sweepListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDateTime, formatQuantity } from "@/lib/units/format";
 import { Pagination } from "@/app/ui/pagination";
+import { FilterForm, CoilFilter } from "@/app/ui/list-filters";
 
 export const metadata: Metadata = { title: "Sweeps" };
 
@@ -26,18 +27,8 @@ export default async function SweepsPage({ searchParams }: { searchParams: Promi
           </Link>
         </p>
       </div>
-      <form className="filters" method="get" role="search" aria-label="Filter sweeps">
-        <div className="field">
-          <label htmlFor="coil">Coil</label>
-          <select id="coil" name="coil" defaultValue={query.coil ?? ""}>
-            <option value="">All coils</option>
-            {coils.map((c) => (
-              <option key={c.id} value={c.tag}>
-                {c.tag} — {c.name}
-              </option>
-            ))}
-          </select>
-        </div>
+      <FilterForm label="Filter sweeps">
+        <CoilFilter coils={coils} value={query.coil} />
         <div className="field">
           <label htmlFor="sort">Sort by</label>
           <select id="sort" name="sort" defaultValue={query.sort}>
@@ -46,8 +37,7 @@ export default async function SweepsPage({ searchParams }: { searchParams: Promi
             <option value="frequency">First resonance</option>
           </select>
         </div>
-        <button type="submit">Apply</button>
-      </form>
+      </FilterForm>
       <div className="table-wrap">
         <table>
           <caption>{result.total} sweep{result.total === 1 ? "" : "s"}</caption>
