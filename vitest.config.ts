@@ -20,6 +20,7 @@ export default defineConfig({
           environment: "node",
           include: ["test/**/*.test.ts"],
           globalSetup: ["test/global-setup.ts"],
+          setupFiles: ["test/setup/fast-check.ts"],
           env: { DATABASE_URL: `file:${INTEGRATION_DB_FILE}`, COILYARD_DATA_DIR: path.dirname(INTEGRATION_DB_FILE) },
           // One SQLite file shared by the integration files: run them one after another.
           fileParallelism: false,

@@ -74,7 +74,14 @@ describe("mutations under fuzzing never leave partial writes", () => {
         const parsed = sessionSchema.safeParse({ coilId, topLoadId, startedAt, supplyVoltageV, supplyCurrentA: "2 A", durationS: "5 min", ambientTempC: "21", heatSinkStartC: "21", heatSinkEndC: "40", runningFrequencyHz: "300k", samples });
         if (parsed.success) await storesOrRefusesCleanly(() => createSession(actorId, parsed.data));
       }),
-      { numRuns: 40 },
+      {
+        numRuns: 40,
+        // Always reach the database both ways, whatever the seed: one valid log, one with another coil's top load.
+        examples: [
+          [ids.coil, "", "2026-01-10T14:30", "48 V", "0:00,21\n2:00,30\n4:00,35"],
+          [ids.coil, ids.otherTopLoad, "2026-01-10T14:30", "48 V", ""],
+        ],
+      },
     );
   });
 
