@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatDate, formatDuration, formatQuantity } from "./format";
+import { formatDate, formatDuration, formatPercent, formatQuantity } from "./format";
 
 describe("formatQuantity", () => {
   it("picks the SI prefix (SI Brochure, 9th ed., table 7)", () => {
@@ -30,5 +30,14 @@ describe("formatDuration and formatDate", () => {
     const d = new Date("2026-12-02T02:00:00Z");
     const expected = process.env.TZ === "America/St_Johns" ? "2026-12-01" : d.toLocaleDateString("en-CA");
     expect(formatDate(d)).toBe(expected);
+  });
+});
+
+describe("formatPercent", () => {
+  it("rounds to the decimals asked for and never shows a negative zero", () => {
+    expect(formatPercent(0.1234, 1)).toBe("12.3 %");
+    expect(formatPercent(-0.00001, 1)).toBe("0.0 %");
+    expect(formatPercent(-0.0006, 1)).toBe("-0.1 %");
+    expect(formatPercent(null)).toBe("—");
   });
 });

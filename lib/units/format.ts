@@ -23,7 +23,9 @@ export function formatNumber(value: number | null | undefined, decimals = 1, uni
 
 export function formatPercent(fraction: number | null | undefined, decimals = 0): string {
   if (fraction === null || fraction === undefined || !Number.isFinite(fraction)) return "—";
-  return `${(fraction * 100).toFixed(decimals)} %`;
+  const percent = fraction * 100;
+  // A value that rounds to zero is shown as 0, never "-0".
+  return `${(Math.abs(percent) < 0.5 * 10 ** -decimals ? 0 : percent).toFixed(decimals)} %`;
 }
 
 export function formatTemperature(celsius: number | null | undefined): string {
