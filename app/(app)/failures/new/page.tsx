@@ -8,6 +8,7 @@ import { partsFittedAt } from "@/lib/analysis/fitted-parts";
 import { toLocalDateTimeValue } from "@/lib/validation/session";
 import { formatDateTime, formatNumber } from "@/lib/units/format";
 import { FailureForm } from "./failure-form";
+import { CoilPicker } from "@/app/ui/coil-picker";
 
 export const metadata: Metadata = { title: "Record a failure" };
 
@@ -23,27 +24,7 @@ export default async function NewFailurePage({ searchParams }: Props) {
 
   if (!coil) {
     const coils = await listCoilChoices();
-    return (
-      <>
-        <h1>Record a failure</h1>
-        {tag && <p className="notice warn">There is no coil tagged {tag}. Choose one below.</p>}
-        <form method="get" className="stack bench-form" aria-label="Choose a coil">
-          <div className="field">
-            <label htmlFor="pick-coil">Coil</label>
-            <select id="pick-coil" name="coil" required>
-              {coils.map((c) => (
-                <option key={c.id} value={c.tag}>
-                  {c.tag} — {c.name}
-                </option>
-              ))}
-            </select>
-          </div>
-          <button type="submit" className="big-button">
-            Continue
-          </button>
-        </form>
-      </>
-    );
+    return <CoilPicker title="Record a failure" unknownTag={tag} coils={coils} />;
   }
 
   const recent = await listSessions({ coilTag: coil.tag }, { pageSize: 15 });

@@ -5,6 +5,7 @@ import { getCoilByTag, listCoilChoices } from "@/lib/db/coils";
 import { findLastTopLoadId } from "@/lib/db/sessions";
 import { toLocalDateTimeValue } from "@/lib/validation/session";
 import { SessionForm } from "./session-form";
+import { CoilPicker } from "@/app/ui/coil-picker";
 
 export const metadata: Metadata = { title: "Log a session" };
 
@@ -18,29 +19,7 @@ export default async function NewSessionPage({ searchParams }: Props) {
 
   if (!coil) {
     const coils = await listCoilChoices();
-    return (
-      <>
-        <h1>Log a session</h1>
-        {tag && <p className="notice warn">There is no coil tagged {tag}. Choose one below.</p>}
-        <form method="get" className="stack bench-form" aria-label="Choose a coil">
-          <div className="field">
-            <label htmlFor="pick-coil">Coil</label>
-            <select id="pick-coil" name="coil" required>
-              {coils
-                .filter((c) => c.status !== "retired")
-                .map((c) => (
-                  <option key={c.id} value={c.tag}>
-                    {c.tag} — {c.name}
-                  </option>
-                ))}
-            </select>
-          </div>
-          <button type="submit" className="big-button">
-            Continue
-          </button>
-        </form>
-      </>
-    );
+    return <CoilPicker title="Log a session" unknownTag={tag} coils={coils.filter((c) => c.status !== "retired")} />;
   }
 
   const lastTopLoadId = await findLastTopLoadId(coil.id);
