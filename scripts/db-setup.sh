@@ -4,6 +4,6 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 mkdir -p data
-npx prisma generate >/dev/null
+bash scripts/generate-clients.sh >/dev/null
 npx prisma migrate deploy
 npx tsx scripts/prepare-db.ts

@@ -109,6 +109,17 @@ describe("lending policy versions", () => {
     expect(await testDb.auditEvent.count({ where: { entity: "ClearancePolicy", actorId: admin.id } })).toBe(1);
   });
 
+  it("keeps every one of several versions saved at the same moment, numbered in turn", async () => {
+    const admin = await makeUser("a@club.test", "admin");
+    await getCurrentPolicy();
+    const notes = ["first", "second", "third", "fourth"];
+    const saved = await Promise.all(notes.map((note, i) => savePolicyVersion(admin.id, { ...DEFAULT_CLEARANCE_POLICY, validityDays: 10 + i }, note)));
+    expect(saved.map((v) => v.version).sort()).toEqual([2, 3, 4, 5]);
+    const stored = await listPolicyVersions();
+    expect(stored.map((v) => v.note).slice(0, 4).sort()).toEqual([...notes].sort());
+    expect(await testDb.auditEvent.count({ where: { entity: "ClearancePolicy", actorId: admin.id } })).toBe(4);
+  });
+
   it("refuses a bad policy form with the field named and stores nothing", async () => {
     const result = policyFormSchema.safeParse({
       minVoltageHeadroomPct: "120",

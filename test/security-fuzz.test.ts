@@ -6,7 +6,7 @@
  */
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { makeUser, resetDatabase, testDb } from "./support/db";
+import { countAllRows, makeUser, resetDatabase } from "./support/db";
 import { makeBenchCoil } from "./support/bench-fixtures";
 import { createSession } from "@/lib/db/sessions";
 import { createFailure } from "@/lib/db/failures";
@@ -16,12 +16,6 @@ import { sessionSchema } from "@/lib/validation/session";
 import { failureSchema } from "@/lib/validation/failure";
 import { recordInputFromEntry, sweepEntrySchema } from "@/lib/validation/sweep";
 
-async function countAllRows(): Promise<Record<string, number>> {
-  const tables = await testDb.$queryRawUnsafe<{ name: string }[]>("SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '_prisma%'");
-  const counts: Record<string, number> = {};
-  for (const { name } of tables) counts[name] = Number((await testDb.$queryRawUnsafe<{ n: bigint }[]>(`SELECT COUNT(*) AS n FROM "${name}"`))[0]!.n);
-  return counts;
-}
 
 let actorId = "";
 let ids: { coil: string; topLoad: string; part: string; otherCoil: string; otherTopLoad: string; otherPart: string; session: string; otherSession: string };

@@ -17,7 +17,7 @@ import { readFileSync, readdirSync, statSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { hasRole, ROLES, type Role } from "../lib/auth/roles";
-import { makeUser, resetDatabase, testDb } from "./support/db";
+import { countAllRows, makeUser, resetDatabase } from "./support/db";
 
 const session = vi.hoisted(() => ({ userId: null as string | null, headers: new Headers() }));
 vi.mock("next-auth", () => ({ getServerSession: vi.fn(async () => (session.userId ? { user: { id: session.userId } } : null)) }));
@@ -116,18 +116,6 @@ async function callEntryPoint(key: string, body: unknown): Promise<Outcome> {
   }
 }
 
-/** Every table's row count, so a refusal is shown to have stored nothing anywhere (audit log included). */
-async function countAllRows(): Promise<Record<string, number>> {
-  const tables = await testDb.$queryRawUnsafe<{ name: string }[]>(
-    "SELECT name FROM sqlite_master WHERE type = 'table' AND name NOT LIKE 'sqlite_%' AND name NOT LIKE '_prisma%'",
-  );
-  const counts: Record<string, number> = {};
-  for (const { name } of tables) {
-    const [row] = await testDb.$queryRawUnsafe<{ n: bigint | number }[]>(`SELECT COUNT(*) AS n FROM "${name}"`);
-    counts[name] = Number(row!.n);
-  }
-  return counts;
-}
 
 // Inputs that would succeed if the guard let them through, so a refusal that stores nothing means something.
 const VALID_COIL = { tag: "SEC-01", name: "Guard probe", builderName: "Test", formDiameterM: "50 mm", windingLengthM: "200 mm", turns: "900", wireDiameterM: "0.2 mm" };

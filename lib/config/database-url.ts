@@ -14,6 +14,18 @@ export function databaseUrl(env: NodeJS.ProcessEnv = process.env): string {
   return "file:" + (path.isAbsolute(file) ? file : path.resolve(/* turbopackIgnore: true */ process.cwd(), file));
 }
 
+export type DatabaseProvider = "sqlite" | "postgresql";
+
+/**
+ * Which database a URL names: `file:` is the embedded SQLite file, `postgresql://` (or `postgres://`) a PostgreSQL
+ * server. Anything else is refused here, at start-up, rather than failing on the first query.
+ */
+export function databaseProvider(url: string = databaseUrl()): DatabaseProvider {
+  if (url.startsWith("file:")) return "sqlite";
+  if (/^postgres(ql)?:\/\//.test(url)) return "postgresql";
+  throw new Error(`DATABASE_URL must be a file: URL (SQLite) or a postgresql:// URL; got "${url.replace(/\/\/[^@/]*@/, "//…@")}".`);
+}
+
 /** The filesystem path of an SQLite URL. */
 export function sqliteFilePath(url: string = databaseUrl()): string {
   if (!url.startsWith("file:")) throw new Error(`Not an SQLite file URL: ${url}`);

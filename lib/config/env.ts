@@ -3,7 +3,7 @@
  * the box on the embedded SQLite database, so a fresh clone needs no .env file.
  */
 import { z } from "zod";
-import { databaseUrl } from "./database-url";
+import { databaseProvider, databaseUrl } from "./database-url";
 import { loadOrCreateSessionSecret } from "./session-secret";
 
 const envSchema = z.object({
@@ -22,6 +22,12 @@ let cached: AppEnv | undefined;
 export function appEnv(): AppEnv {
   if (cached) return cached;
   const dataDir = process.env.COILYARD_DATA_DIR?.trim() || "data";
+  // On PostgreSQL several instances may share the database, and a session signed by one must be accepted by the
+  // others: a secret generated per instance in its data folder would sign people out whenever the balancer
+  // switched instance. So the secret is required, and must be the same on every instance.
+  if (databaseProvider(databaseUrl()) === "postgresql" && !process.env.NEXTAUTH_SECRET?.trim()) {
+    throw new Error("Coilyard's configuration is invalid:\n  NEXTAUTH_SECRET: required with a PostgreSQL DATABASE_URL (set the same value on every app instance)");
+  }
   const parsed = envSchema.safeParse({
     ...process.env,
     DATABASE_URL: databaseUrl(),

@@ -95,13 +95,17 @@ export async function getFleetHealthHistory(): Promise<CoilHealthHistory[]> {
     prisma.runSession.groupBy({ by: ["coilId"], _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
     // Raw SQL because the window is per coil (a LIMIT/OFFSET per group), which Prisma's query API cannot say;
     // both halves walk the (coilId, startedAt) index. Ties on startedAt may add a row; selectHealthWindow trims.
+    // Portable SQL (SQLite and PostgreSQL): quoted identifiers, and a coil with fewer sessions than the window
+    // starts from its first session (coalesce with its minimum) rather than from an empty-string sentinel.
     prisma.$queryRaw<RawSessionRow[]>`
-      SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM Coil c JOIN RunSession s ON s.coilId = c.id
-        AND s.startedAt >= coalesce((SELECT r.startedAt FROM RunSession r WHERE r.coilId = c.id ORDER BY r.startedAt DESC LIMIT 1 OFFSET ${recentSessions - 1}), '')
+      SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "Coil" c JOIN "RunSession" s ON s."coilId" = c.id
+        AND s."startedAt" >= coalesce(
+          (SELECT r."startedAt" FROM "RunSession" r WHERE r."coilId" = c.id ORDER BY r."startedAt" DESC LIMIT 1 OFFSET ${recentSessions - 1}),
+          (SELECT min(r."startedAt") FROM "RunSession" r WHERE r."coilId" = c.id))
       UNION
-      SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM Coil c JOIN RunSession s ON s.coilId = c.id
-        AND s.startedAt <= (SELECT r.startedAt FROM RunSession r WHERE r.coilId = c.id ORDER BY r.startedAt ASC LIMIT 1 OFFSET ${baselineSessions - 1})
-      ORDER BY startedAt, id`,
+      SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "Coil" c JOIN "RunSession" s ON s."coilId" = c.id
+        AND s."startedAt" <= (SELECT r."startedAt" FROM "RunSession" r WHERE r."coilId" = c.id ORDER BY r."startedAt" ASC LIMIT 1 OFFSET ${baselineSessions - 1})
+      ORDER BY "startedAt", "id"`,
   ]);
   const sessions = rawSessions.map(toSessionRow);
   const s = group(sessions);

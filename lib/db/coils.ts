@@ -3,6 +3,7 @@ import { prisma } from "./client";
 import { recordAudit } from "./audit";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
+import { textContains } from "./text-search";
 import type { CoilInput, CoilUpdateInput } from "../validation/coil";
 
 export interface CoilListFilter {
@@ -15,7 +16,7 @@ export async function listCoils(filter: CoilListFilter = {}, pageRequest: Partia
   const request = normalizePage(pageRequest);
   const where: Prisma.CoilWhereInput = {
     status: filter.status,
-    ...(filter.q ? { OR: [{ tag: { contains: filter.q } }, { name: { contains: filter.q } }, { builderName: { contains: filter.q } }] } : {}),
+    ...(filter.q ? { OR: [{ tag: textContains(filter.q) }, { name: textContains(filter.q) }, { builderName: textContains(filter.q) }] } : {}),
   };
   const orderBy: Prisma.CoilOrderByWithRelationInput =
     filter.sort === "name" ? { name: "asc" } : filter.sort === "updated" ? { updatedAt: "desc" } : { tag: "asc" };

@@ -2,6 +2,7 @@
 import { prisma } from "./client";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
+import { textContains } from "./text-search";
 import type { FailureMode } from "./generated/enums";
 import { recordAudit } from "./audit";
 import { RecordRefusedError } from "./record-refused";
@@ -15,7 +16,7 @@ export async function listFailures(
   const where: Prisma.FailureWhereInput = {
     status: filter.status,
     mode: filter.mode,
-    ...(filter.q ? { OR: [{ symptoms: { contains: filter.q } }, { rootCause: { contains: filter.q } }, { coil: { tag: { contains: filter.q } } }] } : {}),
+    ...(filter.q ? { OR: [{ symptoms: textContains(filter.q) }, { rootCause: textContains(filter.q) }, { coil: { tag: textContains(filter.q) } }] } : {}),
   };
   const [rows, total] = await Promise.all([
     prisma.failure.findMany({

@@ -2,6 +2,7 @@
 import { prisma } from "./client";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
+import { textContains } from "./text-search";
 import { recordAudit } from "./audit";
 import { RecordRefusedError } from "./record-refused";
 import type { SessionInput } from "../validation/session";
@@ -26,7 +27,7 @@ export async function listSessions(filter: SessionListFilter = {}, pageRequest: 
   const where: Prisma.RunSessionWhereInput = {
     outcome: filter.outcome,
     ...(filter.coilTag ? { coil: { tag: filter.coilTag } } : {}),
-    ...(filter.q ? { notes: { contains: filter.q } } : {}),
+    ...(filter.q ? { notes: textContains(filter.q) } : {}),
   };
   const [rows, total] = await Promise.all([
     prisma.runSession.findMany({

@@ -1,5 +1,5 @@
 /** Resonance sweeps: reads and writes. */
-import { prisma, type Tx } from "./client";
+import { prisma, provider, type Tx } from "./client";
 import { recordAudit } from "./audit";
 import { analyzeSweep, type SweepAnalysis } from "../calc/sweep";
 import { CalcInputError } from "../calc/errors";
@@ -88,6 +88,16 @@ export interface RecordedSweep {
  */
 const POINTS_PER_INSERT = 20_000;
 
+/** One INSERT of a JSON array of [frequency, amplitude] pairs, unpacked by the database's own JSON functions. */
+async function insertPointPairs(tx: Tx, sweepId: string, pairs: string): Promise<void> {
+  if (provider === "postgresql") {
+    await tx.$executeRaw`INSERT INTO "SweepPoint" ("sweepId", "frequencyHz", "amplitudeV")
+      SELECT ${sweepId}, (value ->> 0)::double precision, (value ->> 1)::double precision FROM json_array_elements(${pairs}::json)`;
+  } else {
+    await tx.$executeRaw`INSERT INTO "SweepPoint" ("sweepId", "frequencyHz", "amplitudeV") SELECT ${sweepId}, value ->> 0, value ->> 1 FROM json_each(${pairs})`;
+  }
+}
+
 /**
  * Store a sweep: the sweep, all its points, the resonances lib/calc finds, its first series resonance,
  * the coil's environment capacitance recalibrated over all its sweeps, and the audit entry — in one
@@ -110,7 +120,7 @@ export async function recordSweep(actorId: string, input: SweepRecordInput, how:
       });
       for (let start = 0; start < points.length; start += POINTS_PER_INSERT) {
         const pairs = JSON.stringify(points.slice(start, start + POINTS_PER_INSERT).map((p) => [p.frequencyHz, p.amplitudeV]));
-        await tx.$executeRaw`INSERT INTO "SweepPoint" ("sweepId", "frequencyHz", "amplitudeV") SELECT ${sweep.id}, value ->> 0, value ->> 1 FROM json_each(${pairs})`;
+        await insertPointPairs(tx, sweep.id, pairs);
       }
       const resonances = [
         ...analysis.seriesResonances.map((r, i) => ({ kind: "series" as const, ordinal: i + 1, r })),

@@ -3,6 +3,7 @@
  * (or was not) stored. Application code goes through lib/db's queries and mutations.
  */
 import { prisma } from "../../lib/db/client";
+import { Prisma } from "../../lib/db/generated/client";
 import { hashPassword } from "../../lib/auth/password";
 import { emptyDatabase } from "../../lib/db/demo-loader";
 
@@ -18,4 +19,17 @@ export const TEST_PASSWORD = "bench-test-pass-1";
 export async function makeUser(email: string, role: "member" | "steward" | "admin", name = email.split("@")[0]!) {
   cachedHash ??= hashPassword(TEST_PASSWORD);
   return prisma.user.create({ data: { email, name, role, passwordHash: await cachedHash } });
+}
+
+/**
+ * Every table's row count (one table a Prisma model), so a refusal can be shown to have stored nothing anywhere,
+ * audit log included. Works on SQLite and PostgreSQL alike.
+ */
+export async function countAllRows(): Promise<Record<string, number>> {
+  const counts: Record<string, number> = {};
+  for (const table of Object.values(Prisma.ModelName)) {
+    const [row] = await prisma.$queryRawUnsafe<{ n: bigint | number }[]>(`SELECT COUNT(*) AS n FROM "${table}"`);
+    counts[table] = Number(row!.n);
+  }
+  return counts;
 }
