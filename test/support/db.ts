@@ -2,7 +2,7 @@
  * Direct database access for integration tests only: resetting between tests and checking what was
  * (or was not) stored. Application code goes through lib/db's queries and mutations.
  */
-import { prisma } from "../../lib/db/client";
+import { createPrismaClient, prisma } from "../../lib/db/client";
 import { Prisma } from "../../lib/db/generated/client";
 import { hashPassword } from "../../lib/auth/password";
 import { emptyDatabase } from "../../lib/db/demo-loader";
@@ -27,9 +27,15 @@ export async function makeUser(email: string, role: "member" | "steward" | "admi
  */
 export async function countAllRows(): Promise<Record<string, number>> {
   const counts: Record<string, number> = {};
-  for (const table of Object.values(Prisma.ModelName)) {
+  for (const table of MODEL_NAMES) {
     const [row] = await prisma.$queryRawUnsafe<{ n: bigint | number }[]>(`SELECT COUNT(*) AS n FROM "${table}"`);
     counts[table] = Number(row!.n);
   }
   return counts;
 }
+
+/** A second connection, to another database, for tests that move data between two. */
+export const openDatabase = createPrismaClient;
+
+/** Every model (table) of the schema. */
+export const MODEL_NAMES: readonly string[] = Object.values(Prisma.ModelName);
