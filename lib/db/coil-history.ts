@@ -81,26 +81,31 @@ function toSessionRow(row: RawSessionRow): SessionRow {
 }
 
 /**
- * What the fleet dashboard needs for every coil without reading every session: each coil's sessions cut to the
- * health window (lib/analysis/health-window.ts) and its running totals as SQL aggregates. Two index seeks per coil
- * find where its window starts, so the rows read stay ~63 a coil however long the logbooks grow.
+ * What the fleet dashboard needs for every coil (or the listed ones) without reading every session: each coil's
+ * sessions cut to the health window (lib/analysis/health-window.ts) and its running totals as SQL aggregates. Two
+ * index seeks per coil find where its window starts, so the rows read stay ~63 a coil however long the logbooks grow.
  */
-export async function getFleetHealthHistory(): Promise<CoilHealthHistory[]> {
+export async function getFleetHealthHistory(coilIds?: readonly string[]): Promise<CoilHealthHistory[]> {
+  if (coilIds?.length === 0) return [];
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
+  const ofCoils = coilIds ? { coilId: { in: [...coilIds] } } : {};
+  const coilFilter = coilIds ? Prisma.sql`WHERE c.id IN (${Prisma.join(coilIds)})` : Prisma.empty;
   const [coils, components, sweeps, topLoads, totals, rawSessions] = await Promise.all([
-    prisma.coil.findMany({ orderBy: { tag: "asc" } }),
-    prisma.component.findMany({ orderBy: { installedAt: "asc" } }),
-    prisma.sweep.findMany({ select: sweepSelect, orderBy: { takenAt: "asc" } }),
-    prisma.topLoad.findMany({ orderBy: { createdAt: "asc" } }),
-    prisma.runSession.groupBy({ by: ["coilId"], _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
+    prisma.coil.findMany({ where: coilIds ? { id: { in: [...coilIds] } } : {}, orderBy: { tag: "asc" } }),
+    prisma.component.findMany({ where: ofCoils, orderBy: { installedAt: "asc" } }),
+    prisma.sweep.findMany({ where: ofCoils, select: sweepSelect, orderBy: { takenAt: "asc" } }),
+    prisma.topLoad.findMany({ where: ofCoils, orderBy: { createdAt: "asc" } }),
+    prisma.runSession.groupBy({ by: ["coilId"], where: ofCoils, _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
     // Raw SQL because the window is per coil (a LIMIT/OFFSET per group), which Prisma's query API cannot say;
     // both halves walk the (coilId, startedAt) index. Ties on startedAt may add a row; selectHealthWindow trims.
     prisma.$queryRaw<RawSessionRow[]>`
       SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM Coil c JOIN RunSession s ON s.coilId = c.id
         AND s.startedAt >= coalesce((SELECT r.startedAt FROM RunSession r WHERE r.coilId = c.id ORDER BY r.startedAt DESC LIMIT 1 OFFSET ${recentSessions - 1}), '')
+      ${coilFilter}
       UNION
       SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM Coil c JOIN RunSession s ON s.coilId = c.id
         AND s.startedAt <= (SELECT r.startedAt FROM RunSession r WHERE r.coilId = c.id ORDER BY r.startedAt ASC LIMIT 1 OFFSET ${baselineSessions - 1})
+      ${coilFilter}
       ORDER BY startedAt, id`,
   ]);
   const sessions = rawSessions.map(toSessionRow);

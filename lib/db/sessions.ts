@@ -3,6 +3,7 @@ import { prisma } from "./client";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import { RecordRefusedError } from "./record-refused";
 import type { SessionInput } from "../validation/session";
 
@@ -73,6 +74,7 @@ export async function createSession(actorId: string, input: SessionInput) {
         samples: { create: samples.map((s) => ({ elapsedS: s.elapsedS, temperatureC: s.temperatureC })) },
       },
     });
+    await markCoilChanged(tx, coil.id);
     await recordAudit(tx, {
       actorId,
       action: "create",
