@@ -21,7 +21,7 @@ import { recordSweep } from "@/lib/db/sweeps";
 import { exportCoil } from "@/lib/db/export";
 import { importLogbook } from "@/lib/db/import";
 import { signClearance } from "@/lib/db/clearances";
-import { createLoan, returnLoan } from "@/lib/db/loans";
+import { returnLoan } from "@/lib/db/loans";
 import { sessionSchema, toLocalDateTimeValue } from "@/lib/validation/session";
 import { coilSchema, coilUpdateSchema } from "@/lib/validation/coil";
 import { componentSchema, replaceComponentSchema } from "@/lib/validation/component";
