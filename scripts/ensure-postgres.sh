@@ -2,11 +2,12 @@
 # For the PostgreSQL half of the integration tests: make sure a PostgreSQL server from the distribution's
 # packages runs on loopback with a role and an empty test database, then print its URL on stdout.
 # Installs and starts it when we are root on a Debian-like machine (CI); otherwise uses what is there.
-# Settings: COILYARD_PG_PORT (5432), COILYARD_PG_USER (coilyard), COILYARD_PG_PASSWORD, COILYARD_PG_DATABASE.
+# Settings: COILYARD_PG_PORT (5432), COILYARD_PG_USER (coilyard), COILYARD_PG_DATABASE (coilyard_test) and
+# COILYARD_PG_PASSWORD (default: a new random one each run, set on the role, so none is ever committed).
 set -euo pipefail
 PORT="${COILYARD_PG_PORT:-5432}"
 USER_NAME="${COILYARD_PG_USER:-coilyard}"
-PASSWORD="${COILYARD_PG_PASSWORD:-coilyard-test-only}"
+PASSWORD="${COILYARD_PG_PASSWORD:-$(od -An -N18 -tx1 /dev/urandom | tr -d ' \n')}"
 DATABASE="${COILYARD_PG_DATABASE:-coilyard_test}"
 say() { echo "$@" >&2; }
 
@@ -37,8 +38,9 @@ as_postgres() { if [ "$(id -u)" = "0" ]; then su postgres -c "$1"; else bash -c 
 as_postgres "psql -q -p $PORT -h /var/run/postgresql -v ON_ERROR_STOP=1 -d postgres" >/dev/null <<SQL
 DO \$\$ BEGIN
   IF NOT EXISTS (SELECT FROM pg_roles WHERE rolname = '$USER_NAME') THEN
-    CREATE ROLE "$USER_NAME" LOGIN PASSWORD '$PASSWORD' CREATEDB;
+    CREATE ROLE "$USER_NAME" LOGIN CREATEDB;
   END IF;
+  ALTER ROLE "$USER_NAME" PASSWORD '$PASSWORD';
 END \$\$;
 SELECT 'CREATE DATABASE "$DATABASE" OWNER "$USER_NAME"' WHERE NOT EXISTS (SELECT FROM pg_database WHERE datname = '$DATABASE')
 \gexec

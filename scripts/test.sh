@@ -24,7 +24,7 @@ PG_URL="${COILYARD_TEST_POSTGRES_URL:-}"
 if [ -z "$PG_URL" ]; then PG_URL="$(bash scripts/ensure-postgres.sh 2>/tmp/coilyard-pg.log)" || PG_URL=""; fi
 if [ -n "$PG_URL" ]; then
   echo "==> Integration tests on PostgreSQL"
-  COILYARD_TEST_DATABASE=postgresql COILYARD_TEST_POSTGRES_URL="$PG_URL" TZ=America/St_Johns npx vitest run --project integration
+  COILYARD_TEST_POSTGRES_URL="$PG_URL" bash scripts/test-postgres.sh
 elif [ -n "${CI:-}" ]; then
   cat /tmp/coilyard-pg.log >&2; echo "CI needs PostgreSQL for the integration tests (see scripts/ensure-postgres.sh)." >&2; exit 1
 else
@@ -34,4 +34,5 @@ fi
 echo "==> Production build"
 npx next build >/tmp/coilyard-build.log 2>&1 || { cat /tmp/coilyard-build.log; exit 1; }
 echo "==> Browser tests"
-npx playwright test
+# With a PostgreSQL server at hand, the multi-instance spec runs too (it creates a database of its own there).
+COILYARD_TEST_POSTGRES_URL="$PG_URL" npx playwright test

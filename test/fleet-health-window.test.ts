@@ -2,7 +2,9 @@
 import { beforeEach, describe, expect, it } from "vitest";
 import { resetDatabase, testDb } from "./support/db";
 import { makeCleanCoil } from "./fleet-fixtures";
-import { getFleetHealthHistory, getFleetHistory } from "@/lib/db/coil-history";
+import { getCoilHistory, getCoilPageHistory, getFleetHealthHistory, getFleetHistory } from "@/lib/db/coil-history";
+import { getCoilTimeline } from "@/lib/db/coil-timeline";
+import { compareCoil } from "@/lib/analysis/coil-comparison";
 import { getFleetOverview } from "@/lib/db/fleet";
 import { HEALTH_WINDOW, selectHealthWindow } from "@/lib/analysis/health-window";
 
@@ -51,5 +53,16 @@ describe("getFleetHealthHistory", () => {
     expect(read!.totals).toEqual({ sessionCount: 0, totalDurationS: 0, lastSessionAt: null });
     const [row] = await getFleetOverview(now);
     expect(row).toMatchObject({ tag: "HW-03", sessionCount: 0, hoursRun: 0, lastSessionAt: null, health: "not enough data" });
+  });
+
+  it("gives the coil page the same window and prediction table as its whole logbook, and the timeline every count", async () => {
+    const long = await makeCleanCoil("HW-04", now);
+    await addSessions(long.id, 150); // no running frequency: the table's session is one of makeCleanCoil's, older than the window
+    const [full, page, timeline] = await Promise.all([getCoilHistory(long.id), getCoilPageHistory(long.id), getCoilTimeline(long.id)]);
+    expect(page!.sessions.map((s) => s.id)).toEqual(selectHealthWindow(full!.sessions).map((s) => s.id));
+    const compared = compareCoil(page!.coil, page!.topLoads, page!.sweeps, page!.comparisonSessions);
+    expect(compared.rows.find((r) => r.quantity === "runningFrequency")!.measured).toBe(300_000);
+    expect(compared).toEqual(compareCoil(full!.coil, full!.topLoads, full!.sweeps, full!.sessions));
+    expect(timeline.counts).toEqual({ sessions: 155, sweeps: 1, failures: 0, components: 3, clearances: 0, loans: 0 });
   });
 });

@@ -42,9 +42,21 @@ function compare(quantity: ComparedQuantity, predicted: number | null, measured:
   return { quantity, predicted, measured, comparison, basis };
 }
 
+/** The one on the latest session or sweep if still in service, else the newest one not retired (only the latest of each matters). */
+export function findCurrentTopLoad<T extends { id: string; retiredAt: Date | null }>(
+  topLoads: readonly T[],
+  sweeps: readonly Pick<SweepRecord, "takenAt" | "topLoadId">[],
+  sessions: readonly Pick<SessionRecord, "startedAt" | "topLoadId">[],
+): T | null {
+  const inService = topLoads.filter((t) => t.retiredAt === null);
+  const lastUsedId = [...sweeps.map((s) => ({ at: s.takenAt, id: s.topLoadId })), ...sessions.map((s) => ({ at: s.startedAt, id: s.topLoadId ?? null }))]
+    .sort((a, b) => b.at.getTime() - a.at.getTime())[0]?.id;
+  return inService.find((t) => t.id === lastUsedId) ?? inService.at(-1) ?? null;
+}
+
 /**
- * The current top load is the one on the latest session or sweep if still in service, else the newest
- * one not retired. Sweeps and sessions are given oldest first.
+ * The current top load is findCurrentTopLoad's. Sweeps and sessions are given oldest first; of the sessions only
+ * the latest and the latest with a running frequency under the current top load are read.
  */
 export function compareCoil(
   coil: CoilRecord,
@@ -52,10 +64,7 @@ export function compareCoil(
   sweeps: readonly SweepRecord[],
   sessions: readonly SessionRecord[],
 ): CoilComparison {
-  const inService = topLoads.filter((t) => t.retiredAt === null);
-  const lastUsedId = [...sweeps.map((s) => ({ at: s.takenAt, id: s.topLoadId })), ...sessions.map((s) => ({ at: s.startedAt, id: s.topLoadId ?? null }))]
-    .sort((a, b) => b.at.getTime() - a.at.getTime())[0]?.id;
-  const currentTopLoad = inService.find((t) => t.id === lastUsedId) ?? inService.at(-1) ?? null;
+  const currentTopLoad = findCurrentTopLoad(topLoads, sweeps, sessions);
 
   let prediction: BuildPrediction | null = null;
   let predictionProblem: string | null = null;

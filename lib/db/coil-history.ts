@@ -5,6 +5,7 @@
 import { prisma } from "./client";
 import { Prisma, type RunSession } from "./generated/client";
 import { HEALTH_WINDOW, selectHealthWindow } from "../analysis/health-window";
+import { findCurrentTopLoad } from "../analysis/coil-comparison";
 
 const sessionSelect = {
   id: true,
@@ -44,6 +45,35 @@ export async function getCoilHistory(coilId: string) {
 
 export type CoilHistory = NonNullable<Awaited<ReturnType<typeof getCoilHistory>>>;
 
+/**
+ * What the coil page needs without its whole logbook: the sessions of the health window (the baseline and the
+ * recent run, lib/analysis/health-window.ts) read from both ends of the (coilId, startedAt) index, and for the
+ * prediction table (comparisonSessions) also the latest session that logged a running frequency with the top load
+ * fitted now, when that is older than the window. A 500-session coil reads ~64 sessions instead of 500.
+ */
+export async function getCoilPageHistory(coilId: string) {
+  const { baselineSessions, recentSessions } = HEALTH_WINDOW;
+  const [coil, components, first, last, sweeps, topLoads] = await Promise.all([
+    prisma.coil.findUnique({ where: { id: coilId } }),
+    prisma.component.findMany({ where: { coilId }, orderBy: { installedAt: "asc" } }),
+    prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "asc" }, { id: "asc" }], take: baselineSessions }),
+    prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "desc" }, { id: "desc" }], take: recentSessions }),
+    prisma.sweep.findMany({ where: { coilId }, select: sweepSelect, orderBy: { takenAt: "asc" } }),
+    prisma.topLoad.findMany({ where: { coilId }, orderBy: { createdAt: "asc" } }),
+  ]);
+  if (!coil) return null;
+  const byId = new Map([...first, ...last.reverse()].map((s) => [s.id, s]));
+  const sessions = [...byId.values()].sort((a, b) => a.startedAt.getTime() - b.startedAt.getTime() || a.id.localeCompare(b.id));
+  const topLoadId = findCurrentTopLoad(topLoads, sweeps, sessions)?.id ?? null;
+  const running = await prisma.runSession.findFirst({
+    where: { coilId, topLoadId, runningFrequencyHz: { not: null } },
+    select: sessionSelect,
+    orderBy: [{ startedAt: "desc" }, { id: "desc" }],
+  });
+  const comparisonSessions = running && !byId.has(running.id) ? [running, ...sessions] : sessions;
+  return { coil, components, sessions, comparisonSessions, sweeps, topLoads };
+}
+
 /** The same for every coil, grouped by coil id (four queries in all). */
 export async function getFleetHistory(): Promise<CoilHistory[]> {
   const [coils, components, sessions, sweeps, topLoads] = await Promise.all([
@@ -81,18 +111,21 @@ function toSessionRow(row: RawSessionRow): SessionRow {
 }
 
 /**
- * What the fleet dashboard needs for every coil without reading every session: each coil's sessions cut to the
- * health window (lib/analysis/health-window.ts) and its running totals as SQL aggregates. Two index seeks per coil
- * find where its window starts, so the rows read stay ~63 a coil however long the logbooks grow.
+ * What the fleet dashboard needs for every coil (or the listed ones) without reading every session: each coil's
+ * sessions cut to the health window (lib/analysis/health-window.ts) and its running totals as SQL aggregates. Two
+ * index seeks per coil find where its window starts, so the rows read stay ~63 a coil however long the logbooks grow.
  */
-export async function getFleetHealthHistory(): Promise<CoilHealthHistory[]> {
+export async function getFleetHealthHistory(coilIds?: readonly string[]): Promise<CoilHealthHistory[]> {
+  if (coilIds?.length === 0) return [];
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
+  const ofCoils = coilIds ? { coilId: { in: [...coilIds] } } : {};
+  const coilFilter = coilIds ? Prisma.sql`WHERE c.id IN (${Prisma.join(coilIds)})` : Prisma.empty;
   const [coils, components, sweeps, topLoads, totals, rawSessions] = await Promise.all([
-    prisma.coil.findMany({ orderBy: { tag: "asc" } }),
-    prisma.component.findMany({ orderBy: { installedAt: "asc" } }),
-    prisma.sweep.findMany({ select: sweepSelect, orderBy: { takenAt: "asc" } }),
-    prisma.topLoad.findMany({ orderBy: { createdAt: "asc" } }),
-    prisma.runSession.groupBy({ by: ["coilId"], _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
+    prisma.coil.findMany({ where: coilIds ? { id: { in: [...coilIds] } } : {}, orderBy: { tag: "asc" } }),
+    prisma.component.findMany({ where: ofCoils, orderBy: { installedAt: "asc" } }),
+    prisma.sweep.findMany({ where: ofCoils, select: sweepSelect, orderBy: { takenAt: "asc" } }),
+    prisma.topLoad.findMany({ where: ofCoils, orderBy: { createdAt: "asc" } }),
+    prisma.runSession.groupBy({ by: ["coilId"], where: ofCoils, _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
     // Raw SQL because the window is per coil (a LIMIT/OFFSET per group), which Prisma's query API cannot say;
     // both halves walk the (coilId, startedAt) index. Ties on startedAt may add a row; selectHealthWindow trims.
     // Portable SQL (SQLite and PostgreSQL): quoted identifiers, and a coil with fewer sessions than the window
@@ -102,9 +135,11 @@ export async function getFleetHealthHistory(): Promise<CoilHealthHistory[]> {
         AND s."startedAt" >= coalesce(
           (SELECT r."startedAt" FROM "RunSession" r WHERE r."coilId" = c.id ORDER BY r."startedAt" DESC LIMIT 1 OFFSET ${recentSessions - 1}),
           (SELECT min(r."startedAt") FROM "RunSession" r WHERE r."coilId" = c.id))
+      ${coilFilter}
       UNION
       SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "Coil" c JOIN "RunSession" s ON s."coilId" = c.id
         AND s."startedAt" <= (SELECT r."startedAt" FROM "RunSession" r WHERE r."coilId" = c.id ORDER BY r."startedAt" ASC LIMIT 1 OFFSET ${baselineSessions - 1})
+      ${coilFilter}
       ORDER BY "startedAt", "id"`,
   ]);
   const sessions = rawSessions.map(toSessionRow);

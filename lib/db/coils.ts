@@ -1,6 +1,7 @@
 /** Coils: reads and writes. */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
@@ -59,6 +60,7 @@ export async function createCoil(actorId: string, input: CoilInput) {
   return prisma.$transaction(async (tx) => {
     if (await tx.coil.findUnique({ where: { tag: input.tag }, select: { id: true } })) throw new DuplicateTagError(input.tag);
     const coil = await tx.coil.create({ data: { ...input, createdById: actorId } });
+    await markCoilChanged(tx, coil.id);
     await recordAudit(tx, { actorId, action: "create", entity: "Coil", entityId: coil.id, summary: `Added coil ${coil.tag} “${coil.name}”`, detail: input });
     return coil;
   });
@@ -68,6 +70,7 @@ export async function setCoilStatus(actorId: string, coilId: string, status: "ac
   return prisma.$transaction(async (tx) => {
     const before = await tx.coil.findUniqueOrThrow({ where: { id: coilId }, select: { status: true, tag: true } });
     const coil = await tx.coil.update({ where: { id: coilId }, data: { status } });
+    await markCoilChanged(tx, coilId);
     if (before.status !== status) {
       await recordAudit(tx, { actorId, action: "update", entity: "Coil", entityId: coilId, summary: `${before.tag}: status ${before.status} → ${status}` });
     }
@@ -90,6 +93,7 @@ export async function updateCoil(actorId: string, input: CoilUpdateInput) {
     const next = { ...data, wireGaugeAwg: data.wireGaugeAwg ?? null, measuredDcResistanceOhm: data.measuredDcResistanceOhm ?? null, measuredInductanceH: data.measuredInductanceH ?? null, primaryTurns: data.primaryTurns ?? null, primaryDiameterM: data.primaryDiameterM ?? null };
     const changed = Object.entries(next).filter(([key, value]) => before[key as keyof typeof before] !== value).map(([key]) => key);
     const coil = await tx.coil.update({ where: { id: coilId }, data: next });
+    await markCoilChanged(tx, coilId);
     await recordAudit(tx, {
       actorId,
       action: "update",

@@ -1,6 +1,7 @@
 /** Parts fitted to coils: fitting a new one, and replacing one so the old row stays in the history. */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import type { ComponentInput, ReplaceComponentInput } from "../validation/component";
 
 export class ComponentStateError extends Error {}
@@ -38,6 +39,7 @@ export async function addComponent(actorId: string, input: ComponentInput) {
     const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { tag: true } });
     if (!coil) throw new ComponentStateError("That coil no longer exists.");
     const component = await tx.component.create({ data: { coilId: input.coilId, ...componentData(input) } });
+    await markCoilChanged(tx, input.coilId);
     await recordAudit(tx, { actorId, action: "create", entity: "Component", entityId: component.id, summary: `${coil.tag}: fitted ${component.partNumber} (${component.kind})`, detail: input });
     return { component, coilTag: coil.tag };
   });
@@ -58,6 +60,7 @@ export async function replaceComponent(actorId: string, input: ReplaceComponentI
     }
     const fitted = await tx.component.create({ data: { coilId: next.coilId, ...componentData(next) } });
     await tx.component.update({ where: { id: old.id }, data: { removedAt: next.installedAt, removalReason, replacedById: fitted.id } });
+    await markCoilChanged(tx, old.coilId);
     await recordAudit(tx, {
       actorId,
       action: "update",

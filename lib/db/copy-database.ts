@@ -25,11 +25,13 @@ type AnyDelegate = {
  * so they are written as null first and filled in once every row exists. `intId`: an autoincrement key, whose
  * PostgreSQL sequence must be moved past the copied ids.
  */
-export const COPY_ORDER: { model: Prisma.ModelName; intId?: true; deferred?: string[] }[] = [
+export const COPY_ORDER: { model: Prisma.ModelName; key?: string; intId?: true; deferred?: string[] }[] = [
   { model: "User" },
-  { model: "SignInThrottle" },
+  { model: "SignInThrottle", key: "key" },
   { model: "ClearancePolicy" },
   { model: "Coil" },
+  // A cache of each coil's health (coil-summary.ts), copied too so the new database starts warm.
+  { model: "CoilSummary", key: "coilId" },
   { model: "TopLoad" },
   { model: "Component", deferred: ["replacedById"] },
   { model: "Sweep" },
@@ -50,7 +52,7 @@ function delegate(client: PrismaClient | Prisma.TransactionClient, model: string
 }
 
 function keyOf(model: string): string {
-  return model === "SignInThrottle" ? "key" : "id";
+  return COPY_ORDER.find((t) => t.model === model)?.key ?? "id";
 }
 
 /** Reads a table in key order, a batch at a time (keyset pagination: no OFFSET scans on large tables). */

@@ -3,6 +3,7 @@
  * demo club lands or nothing does. Also empties the database for `db:reset-demo`.
  */
 import { prisma } from "./client";
+import { markCoilChanged } from "./coil-summary";
 import type { Prisma } from "./generated/client";
 
 export interface DemoDataset {
@@ -59,6 +60,7 @@ export async function loadDemoDataset(data: DemoDataset): Promise<void> {
         await tx.runSession.update({ where: { id: link.sessionId }, data: { loanId: link.loanId } });
       }
       await tx.auditEvent.createMany({ data: data.audit });
+      for (const coil of await tx.coil.findMany({ select: { id: true } })) await markCoilChanged(tx, coil.id);
     },
     { timeout: 120_000 },
   );
@@ -68,6 +70,7 @@ export async function loadDemoDataset(data: DemoDataset): Promise<void> {
 export async function emptyDatabase(): Promise<void> {
   await prisma.$transaction([
     prisma.auditEvent.deleteMany(),
+    prisma.coilSummary.deleteMany(),
     prisma.runSession.updateMany({ data: { loanId: null } }),
     prisma.loan.deleteMany(),
     prisma.clearance.deleteMany(),

@@ -5,6 +5,7 @@ import type { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
 import type { FailureMode } from "./generated/enums";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import { RecordRefusedError } from "./record-refused";
 import type { FailureInput, PostMortemInput } from "../validation/failure";
 
@@ -53,6 +54,7 @@ export async function createFailure(actorId: string, input: FailureInput) {
       if (!part || part.coilId !== coil.id || !fitted) throw new RecordRefusedError("componentId", `Component: choose a part fitted to ${coil.tag} when the failure occurred.`);
     }
     const failure = await tx.failure.create({ data: { ...input, reportedById: actorId, status: "open" } });
+    await markCoilChanged(tx, coil.id);
     await recordAudit(tx, { actorId, action: "create", entity: "Failure", entityId: failure.id, summary: `Recorded a ${input.mode} failure on ${coil.tag}`, detail: input });
     if (input.sessionId) {
       await tx.runSession.update({ where: { id: input.sessionId }, data: { outcome: "failed" } });
@@ -103,6 +105,7 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
       where: { id: failure.id },
       data: { rootCause: input.rootCause, correctiveAction: input.correctiveAction, status: "closed", closedAt, closedById: actorId },
     });
+    await markCoilChanged(tx, failure.coilId);
     await recordAudit(tx, {
       actorId,
       action: "update",

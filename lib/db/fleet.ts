@@ -1,15 +1,16 @@
 /**
  * The fleet at a glance: one row per coil with its health (lib/analysis over each logbook's health window), latest
- * margins, running totals, clearance and loan state. Read with a handful of queries for the whole fleet
- * (not one query per coil), then filtered and sorted on the server from the query string.
+ * margins, running totals, clearance and loan state. The logbook-derived figures come from the per-coil summary
+ * (coil-summary.ts: stored, recomputed only for coils written to since, under a new policy, or past their
+ * validUntil); what moves with the clock alone and is cheap — days since the sweep, clearance lapse, overdue loans,
+ * open failures — is worked out here at read time. Filtered and sorted on the server from the query string.
  */
 import { prisma } from "./client";
-import { getFleetHealthHistory, getFleetHistory } from "./coil-history";
+import { getFleetHistory } from "./coil-history";
+import { getCoilFigures } from "./coil-summary";
 import { getCurrentPolicy } from "./policy";
-import { analyzeSessions, assessCoil } from "../analysis/coil-health-input";
 import { findPartReplacements } from "../analysis/clearance-facts";
 import { describeClearanceState, type ClearanceState } from "../analysis/clearance-state";
-import { CalcInputError } from "../calc/errors";
 import type { HealthStatus } from "../calc/coil-health";
 import type { SessionMargins } from "../calc/session-margins";
 import type { FleetQuery } from "../validation/fleet-query";
@@ -36,48 +37,56 @@ export interface FleetRow {
 
 const SEVERITY: Record<HealthStatus, number> = { hold: 0, watch: 1, "not enough data": 2, fine: 3 };
 
+function groupByCoil<T extends { coilId: string }>(rows: readonly T[]): Map<string, T[]> {
+  const map = new Map<string, T[]>();
+  for (const row of rows) (map.get(row.coilId) ?? map.set(row.coilId, []).get(row.coilId)!).push(row);
+  return map;
+}
+
 export async function getFleetOverview(now: Date = new Date()): Promise<FleetRow[]> {
-  const [histories, policy, failures, clearances, loans] = await Promise.all([
-    getFleetHealthHistory(),
+  const [coils, policy, failures, clearances, loans, components] = await Promise.all([
+    prisma.coil.findMany({ orderBy: { tag: "asc" }, select: { id: true, tag: true, name: true, status: true } }),
     getCurrentPolicy(),
     prisma.failure.findMany({ select: { coilId: true, occurredAt: true, mode: true, status: true } }),
     prisma.clearance.findMany({ orderBy: { decidedAt: "desc" }, distinct: ["coilId"], select: { id: true, coilId: true, verdict: true, decidedAt: true, validUntil: true } }),
     prisma.loan.findMany({ where: { returnedAt: null }, select: { id: true, coilId: true, borrower: true, event: true, expectedBackAt: true } }),
+    // Parts only for the clearance lapse check (a part fitted since signing), which moves with the clock.
+    prisma.component.findMany({ orderBy: { installedAt: "asc" }, select: { id: true, coilId: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
   ]);
+  const figuresByCoil = await getCoilFigures(
+    coils.map((c) => c.id),
+    policy,
+    now,
+  );
   const clearanceByCoil = new Map(clearances.map((c) => [c.coilId, c]));
   const loanByCoil = new Map(loans.map((l) => [l.coilId, l]));
-  return histories.map(({ coil, components, sessions, sweeps, totals }) => {
-    const coilFailures = failures.filter((f) => f.coilId === coil.id);
-    const analyzed = analyzeSessions(coil, sessions, components);
-    let health: HealthStatus = "not enough data";
-    let reasons: string[] = [];
-    try {
-      const assessed = assessCoil(analyzed, sweeps, now, policy.rules);
-      health = assessed.status;
-      reasons = assessed.reasons;
-    } catch (error) {
-      if (!(error instanceof CalcInputError)) throw error;
-      reasons = [`The logbook could not be assessed: ${error.message}.`];
-    }
-    const lastSweepAt = sweeps.at(-1)?.takenAt ?? null;
+  const failuresByCoil = groupByCoil(failures);
+  const componentsByCoil = groupByCoil(components);
+  return coils.flatMap((coil) => {
+    const figures = figuresByCoil.get(coil.id);
+    if (!figures) return []; // removed while the page was being read
+    const coilFailures = failuresByCoil.get(coil.id) ?? [];
+    const { lastSweepAt } = figures;
     const loan = loanByCoil.get(coil.id);
-    return {
-      id: coil.id,
-      tag: coil.tag,
-      name: coil.name,
-      status: coil.status,
-      health,
-      reasons,
-      latestMargins: analyzed.at(-1)?.analysis.margins ?? null,
-      sessionCount: totals.sessionCount,
-      hoursRun: totals.totalDurationS / 3600,
-      lastSessionAt: totals.lastSessionAt,
-      lastSweepAt,
-      daysSinceSweep: lastSweepAt ? Math.floor((now.getTime() - lastSweepAt.getTime()) / 86_400_000) : null,
-      openFailures: coilFailures.filter((f) => f.status === "open").length,
-      clearance: describeClearanceState(clearanceByCoil.get(coil.id) ?? null, coilFailures, findPartReplacements(components), now),
-      activeLoan: loan ? { ...loan, overdue: loan.expectedBackAt.getTime() < now.getTime() } : null,
-    };
+    return [
+      {
+        id: coil.id,
+        tag: coil.tag,
+        name: coil.name,
+        status: coil.status,
+        health: figures.health,
+        reasons: figures.reasons,
+        latestMargins: figures.latestMargins,
+        sessionCount: figures.sessionCount,
+        hoursRun: figures.totalRunS / 3600,
+        lastSessionAt: figures.lastSessionAt,
+        lastSweepAt,
+        daysSinceSweep: lastSweepAt ? Math.floor((now.getTime() - lastSweepAt.getTime()) / 86_400_000) : null,
+        openFailures: coilFailures.filter((f) => f.status === "open").length,
+        clearance: describeClearanceState(clearanceByCoil.get(coil.id) ?? null, coilFailures, findPartReplacements(componentsByCoil.get(coil.id) ?? []), now),
+        activeLoan: loan ? { ...loan, overdue: loan.expectedBackAt.getTime() < now.getTime() } : null,
+      },
+    ];
   });
 }
 

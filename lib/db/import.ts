@@ -11,6 +11,7 @@
 import { randomBytes } from "node:crypto";
 import { prisma, type Tx } from "./client";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import type { ParsedCoilDocument, ParsedLogbook } from "../validation/export";
 
 export class ImportConflictError extends Error {}
@@ -92,6 +93,8 @@ async function importCoil(tx: Tx, actorId: string, doc: ParsedCoilDocument, opti
       closedById: who(closedBy),
     })),
   });
+
+  await markCoilChanged(tx, coilId);
 
   const records = 1 + topLoads.length + components.length + clearances.length + loans.length + sessions.length + samples.length + sweeps.length + points.length + resonances.length + failures.length;
   await recordAudit(tx, {

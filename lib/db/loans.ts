@@ -4,6 +4,7 @@
  */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import { describeClearanceState, describeLendingBlock, type ClearanceStateKind } from "../analysis/clearance-state";
@@ -118,6 +119,7 @@ export async function returnLoan(actorId: string, input: LoanReturnInput, now: D
       });
       if (ok !== new Set(input.sessionIds).size) throw new LoanRefusedError("bad-session", "Sessions: only this coil's sessions run while it was away can be linked.", "sessionIds");
       await tx.runSession.updateMany({ where: { id: { in: input.sessionIds } }, data: { loanId: loan.id } });
+      await markCoilChanged(tx, loan.coilId);
     }
     const updated = await tx.loan.update({
       where: { id: loan.id },

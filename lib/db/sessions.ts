@@ -4,6 +4,7 @@ import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import { RecordRefusedError } from "./record-refused";
 import type { SessionInput } from "../validation/session";
 
@@ -74,6 +75,7 @@ export async function createSession(actorId: string, input: SessionInput) {
         samples: { create: samples.map((s) => ({ elapsedS: s.elapsedS, temperatureC: s.temperatureC })) },
       },
     });
+    await markCoilChanged(tx, coil.id);
     await recordAudit(tx, {
       actorId,
       action: "create",

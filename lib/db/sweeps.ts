@@ -1,6 +1,7 @@
 /** Resonance sweeps: reads and writes. */
 import { prisma, provider, type Tx } from "./client";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import { analyzeSweep, type SweepAnalysis } from "../calc/sweep";
 import { CalcInputError } from "../calc/errors";
 import { calibrateCoilFromSweeps } from "../analysis/sweep-calibration";
@@ -132,6 +133,7 @@ export async function recordSweep(actorId: string, input: SweepRecordInput, how:
         });
       }
       const calibrationNote = await recalibrateCoil(tx, coil);
+      await markCoilChanged(tx, coil.id);
       await recordAudit(tx, {
         actorId,
         action: how === "import" ? "import" : "create",

@@ -1,6 +1,7 @@
 /** Top-load configurations: adding one and retiring it (retired ones stay, since sweeps point to them). */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
 import type { TopLoadInput } from "../validation/top-load";
 
 export class TopLoadStateError extends Error {}
@@ -22,6 +23,7 @@ export async function addTopLoad(actorId: string, input: TopLoadInput) {
         notes: data.notes,
       },
     });
+    await markCoilChanged(tx, coilId);
     await recordAudit(tx, { actorId, action: "create", entity: "TopLoad", entityId: topLoad.id, summary: `${coil.tag}: added top load “${topLoad.name}”`, detail: input });
     return { topLoad, coilTag: coil.tag };
   });
@@ -33,6 +35,7 @@ export async function retireTopLoad(actorId: string, topLoadId: string, at = new
     if (!topLoad) throw new TopLoadStateError("That top load no longer exists.");
     if (topLoad.retiredAt) throw new TopLoadStateError(`“${topLoad.name}” is already retired.`);
     const updated = await tx.topLoad.update({ where: { id: topLoadId }, data: { retiredAt: at } });
+    await markCoilChanged(tx, topLoad.coilId);
     await recordAudit(tx, { actorId, action: "update", entity: "TopLoad", entityId: topLoadId, summary: `${topLoad.coil.tag}: retired top load “${topLoad.name}”` });
     return { topLoad: updated, coilTag: topLoad.coil.tag };
   });

@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
 import { getCoilByTag } from "@/lib/db/coils";
-import { getCoilHistory } from "@/lib/db/coil-history";
+import { getCoilPageHistory } from "@/lib/db/coil-history";
 import { getCoilTimeline } from "@/lib/db/coil-timeline";
 import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
 import { compareCoil } from "@/lib/analysis/coil-comparison";
@@ -26,7 +26,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: decodeURIComponent((await params).tag) };
 }
 
-function assess(history: NonNullable<Awaited<ReturnType<typeof getCoilHistory>>>) {
+function assess(history: NonNullable<Awaited<ReturnType<typeof getCoilPageHistory>>>) {
   try {
     const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);
     const last = analyzed.at(-1);
@@ -43,9 +43,9 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const query = await searchParams;
   const coil = await getCoilByTag(tag);
   if (!coil) notFound();
-  const [history, timeline] = await Promise.all([getCoilHistory(coil.id), getCoilTimeline(coil.id, 25)]);
+  const [history, timeline] = await Promise.all([getCoilPageHistory(coil.id), getCoilTimeline(coil.id, 25)]);
   if (!history) notFound();
-  const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.sessions);
+  const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
   const { health, latest } = assess(history);
   const canEdit = hasRole(user.role, "steward");
   const base = `/coils/${encodeURIComponent(coil.tag)}`;

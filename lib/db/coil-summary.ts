@@ -1,0 +1,177 @@
+/**
+ * The per-coil summary behind the fleet dashboard: each coil's health, reasons, latest margins and running totals,
+ * stored with what they were computed from, so a dashboard view reads 500 rows instead of re-judging 500 logbooks.
+ *
+ * How it stays true:
+ *  - every write that can change those figures calls markCoilChanged inside its own transaction, which bumps the
+ *    coil's `revision` (test/coil-summary-writes.test.ts fails when a lib/db write to a logbook table forgets it);
+ *  - a reader trusts a row only while its computedRevision equals revision, it was judged under the current policy
+ *    version, and the clock is inside [computedAt, validUntil) — lib/analysis/health-validity.ts says when the
+ *    passing of time alone would change the verdict;
+ *  - anything else is recomputed and stored with a conditional update (only where revision is still the one read
+ *    before the logbook was), so a write racing the computation leaves the row stale instead of wrongly fresh.
+ */
+import { prisma, type Tx } from "./client";
+import { Prisma, type CoilSummary } from "./generated/client";
+import { getFleetHealthHistory, type CoilHealthHistory } from "./coil-history";
+import type { PolicyVersion } from "./policy";
+import { analyzeSessions, assessCoil } from "../analysis/coil-health-input";
+import { computeHealthValidUntil } from "../analysis/health-validity";
+import { CalcInputError } from "../calc/errors";
+import type { HealthStatus } from "../calc/coil-health";
+import type { SessionMargins } from "../calc/session-margins";
+
+/** Records that the coil's logbook changed. Call it in the same transaction as the write. */
+export async function markCoilChanged(tx: Tx, coilId: string): Promise<void> {
+  await tx.coilSummary.upsert({ where: { coilId }, create: { coilId, revision: 1 }, update: { revision: { increment: 1 } } });
+}
+
+/** What the dashboard shows of a coil that takes its logbook to work out. */
+export interface CoilFigures {
+  health: HealthStatus;
+  reasons: string[];
+  latestMargins: SessionMargins | null;
+  sessionCount: number;
+  totalRunS: number;
+  lastSessionAt: Date | null;
+  lastSweepAt: Date | null;
+  /** When time alone would change health or reasons; null: never. */
+  validUntil: Date | null;
+}
+
+const HEALTH_STATUSES: readonly string[] = ["fine", "watch", "hold", "not enough data"] satisfies HealthStatus[];
+
+/** The coil's figures from its health window (lib/analysis), judged at `now` under `policy`. */
+export function computeCoilFigures({ coil, components, sessions, sweeps, totals }: CoilHealthHistory, policy: PolicyVersion, now: Date): CoilFigures {
+  const analyzed = analyzeSessions(coil, sessions, components);
+  let health: HealthStatus = "not enough data";
+  let reasons: string[] = [];
+  let validUntil: Date | null = null;
+  try {
+    const assessed = assessCoil(analyzed, sweeps, now, policy.rules);
+    health = assessed.status;
+    reasons = assessed.reasons;
+    validUntil = computeHealthValidUntil(assessed, now);
+  } catch (error) {
+    if (!(error instanceof CalcInputError)) throw error;
+    reasons = [`The logbook could not be assessed: ${error.message}.`];
+  }
+  return {
+    health,
+    reasons,
+    latestMargins: analyzed.at(-1)?.analysis.margins ?? null,
+    sessionCount: totals.sessionCount,
+    totalRunS: totals.totalDurationS,
+    lastSessionAt: totals.lastSessionAt,
+    lastSweepAt: sweeps.at(-1)?.takenAt ?? null,
+    validUntil,
+  };
+}
+
+/** A stored row's figures, or null when they cannot be trusted at `now` under `policyVersion`. */
+export function readCurrentFigures(row: CoilSummary, policyVersion: number, now: Date): CoilFigures | null {
+  const current =
+    row.computedRevision === row.revision &&
+    row.policyVersion === policyVersion &&
+    row.computedAt !== null &&
+    row.computedAt.getTime() <= now.getTime() &&
+    (row.validUntil === null || now.getTime() < row.validUntil.getTime());
+  if (!current || row.health === null || !HEALTH_STATUSES.includes(row.health) || row.reasonsJson === null || row.latestMarginsJson === null) return null;
+  return {
+    health: row.health as HealthStatus,
+    reasons: JSON.parse(row.reasonsJson) as string[],
+    latestMargins: JSON.parse(row.latestMarginsJson) as SessionMargins | null,
+    sessionCount: row.sessionCount,
+    totalRunS: row.totalRunS,
+    lastSessionAt: row.lastSessionAt,
+    lastSweepAt: row.lastSweepAt,
+    validUntil: row.validUntil,
+  };
+}
+
+/** Rows for coils that have none yet (added before this table, or straight into the database), at revision 0. */
+async function createMissingSummaries(coilIds: readonly string[]): Promise<void> {
+  if (coilIds.length === 0) return;
+  try {
+    await prisma.coilSummary.createMany({ data: coilIds.map((coilId) => ({ coilId })) });
+  } catch (error) {
+    if (!isConflict(error)) throw error;
+    // A write created some meanwhile (its revision is then past 0, so that coil's result will not be stored).
+    for (const coilId of coilIds) {
+      await prisma.coilSummary.create({ data: { coilId } }).catch((e: unknown) => {
+        if (!isConflict(e)) throw e;
+      });
+    }
+  }
+}
+
+/** A unique clash (the row exists) or a missing coil (deleted meanwhile). */
+function isConflict(error: unknown): boolean {
+  return error instanceof Prisma.PrismaClientKnownRequestError && (error.code === "P2002" || error.code === "P2003");
+}
+
+export interface ComputedFigures {
+  coilId: string;
+  /** The revision read before the logbook was. */
+  fromRevision: number;
+  figures: CoilFigures;
+}
+
+/**
+ * Stores figures only where the coil's revision is still the one they were computed from; returns the coil ids
+ * stored. Each update is one conditional statement, so no write can slip between the check and the store.
+ */
+export async function storeCoilFigures(computed: readonly ComputedFigures[], policyVersion: number, computedAt: Date): Promise<string[]> {
+  if (computed.length === 0) return [];
+  const results = await prisma.$transaction(
+    computed.map(({ coilId, fromRevision, figures }) =>
+      prisma.coilSummary.updateMany({
+        where: { coilId, revision: fromRevision },
+        data: {
+          computedRevision: fromRevision,
+          policyVersion,
+          computedAt,
+          validUntil: figures.validUntil,
+          health: figures.health,
+          reasonsJson: JSON.stringify(figures.reasons),
+          latestMarginsJson: JSON.stringify(figures.latestMargins),
+          sessionCount: figures.sessionCount,
+          totalRunS: figures.totalRunS,
+          lastSessionAt: figures.lastSessionAt,
+          lastSweepAt: figures.lastSweepAt,
+        },
+      }),
+    ),
+  );
+  return computed.filter((_, i) => results[i]!.count === 1).map((c) => c.coilId);
+}
+
+/** Reads each coil's revision, then its health window, and computes its figures (the slow path, kept for stale rows). */
+export async function computeFiguresFor(coilIds: readonly string[], revisions: ReadonlyMap<string, number>, policy: PolicyVersion, now: Date): Promise<ComputedFigures[]> {
+  const histories = await getFleetHealthHistory(coilIds);
+  return histories.map((history) => ({ coilId: history.coil.id, fromRevision: revisions.get(history.coil.id) ?? 0, figures: computeCoilFigures(history, policy, now) }));
+}
+
+/**
+ * Every listed coil's figures at `now`: stored ones where still current, the rest recomputed and stored.
+ * The revisions are read before any logbook row, which is what makes the conditional store safe.
+ */
+export async function getCoilFigures(coilIds: readonly string[], policy: PolicyVersion, now: Date): Promise<Map<string, CoilFigures>> {
+  const rows = await prisma.coilSummary.findMany();
+  const rowByCoil = new Map(rows.map((row) => [row.coilId, row]));
+  const figures = new Map<string, CoilFigures>();
+  const stale: string[] = [];
+  for (const coilId of coilIds) {
+    const row = rowByCoil.get(coilId);
+    const current = row ? readCurrentFigures(row, policy.version, now) : null;
+    if (current) figures.set(coilId, current);
+    else stale.push(coilId);
+  }
+  if (stale.length === 0) return figures;
+  await createMissingSummaries(stale.filter((coilId) => !rowByCoil.has(coilId)));
+  const revisions = new Map(stale.map((coilId) => [coilId, rowByCoil.get(coilId)?.revision ?? 0]));
+  const computed = await computeFiguresFor(stale, revisions, policy, now);
+  await storeCoilFigures(computed, policy.version, now);
+  for (const c of computed) figures.set(c.coilId, c.figures);
+  return figures;
+}
