@@ -41,7 +41,7 @@ export default async function EditCoilPage({ params }: Props) {
         <Link href={`/coils/${encodeURIComponent(coil.tag)}`}>Back to the coil</Link>
       </div>
       <p className="lede">The tag stays: printed labels point to it.</p>
-      <CoilForm mode="edit" coilId={coil.id} values={values} />
+      <CoilForm mode="edit" coilId={coil.id} version={coil.version} values={values} />
     </>
   );
 }
