@@ -5,6 +5,7 @@
  */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
+import { serializableTransaction } from "./serializable";
 import { DEFAULT_CLEARANCE_POLICY, type ClearancePolicyRules } from "../calc/clearance-policy";
 import { clearancePolicyRulesSchema, parseStoredPolicyRules } from "../validation/policy";
 
@@ -19,7 +20,7 @@ export interface PolicyVersion {
 export async function getCurrentPolicy(): Promise<PolicyVersion> {
   const latest = await prisma.clearancePolicy.findFirst({ orderBy: { version: "desc" } });
   if (latest) return { ...latest, rules: parseStoredPolicyRules(latest.rulesJson) };
-  const created = await prisma.$transaction(async (tx) => {
+  const created = await serializableTransaction(async (tx) => {
     // Checked again inside the transaction so two first requests cannot both create version 1.
     const again = await tx.clearancePolicy.findFirst({ orderBy: { version: "desc" } });
     if (again) return again;
@@ -42,7 +43,8 @@ export async function listPolicyVersions() {
 
 export async function savePolicyVersion(actorId: string, rules: ClearancePolicyRules, note: string): Promise<PolicyVersion> {
   const checked = clearancePolicyRulesSchema.parse(rules);
-  return prisma.$transaction(async (tx) => {
+  // Serializable: two admins saving at once must get versions n+1 and n+2, not both n+1.
+  return serializableTransaction(async (tx) => {
     const latest = await tx.clearancePolicy.findFirst({ orderBy: { version: "desc" }, select: { version: true } });
     const version = (latest?.version ?? 0) + 1;
     const row = await tx.clearancePolicy.create({ data: { version, rulesJson: JSON.stringify(checked), note, createdById: actorId } });

@@ -1,6 +1,7 @@
 /** Resonance sweeps: reads and writes. */
 import { prisma, type Tx } from "./client";
 import { recordAudit } from "./audit";
+import { serializableTransaction } from "./serializable";
 import { analyzeSweep, type SweepAnalysis } from "../calc/sweep";
 import { CalcInputError } from "../calc/errors";
 import { calibrateCoilFromSweeps } from "../analysis/sweep-calibration";
@@ -91,12 +92,13 @@ const POINTS_PER_INSERT = 20_000;
 /**
  * Store a sweep: the sweep, all its points, the resonances lib/calc finds, its first series resonance,
  * the coil's environment capacitance recalibrated over all its sweeps, and the audit entry — in one
- * transaction, so a refusal anywhere leaves nothing behind.
+ * transaction, so a refusal anywhere leaves nothing behind. Serializable, because the calibration reads all the
+ * coil's sweeps: two imports of the same coil at once under READ COMMITTED would each miss the other's sweep.
  */
 export async function recordSweep(actorId: string, input: SweepRecordInput, how: "hand" | "import" = "hand"): Promise<RecordedSweep> {
   const analysis = analyzeReadings(input);
   const firstSeries = analysis.seriesResonances[0]?.frequency ?? null;
-  return prisma.$transaction(
+  return serializableTransaction(
     async (tx) => {
       const coil = await tx.coil.findUnique({ where: { id: input.coilId } });
       if (!coil) throw new SweepRefusedError("coilId", "Coil: that coil does not exist.");
