@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { getCoilByTag } from "@/lib/db/coils";
 import { CoilForm } from "../../coil-form";
-import { quantityText } from "../../quantity-input";
+import { quantityText } from "../../quantity-text";
 
 type Props = { params: Promise<{ tag: string }> };
 
