@@ -3,7 +3,7 @@
  * session writes; the copy passes its integrity check, holds every session acknowledged before the backup
  * began, and every session in it is whole. `npm run db:restore` refuses while the app has the file open; after
  * the app is stopped it puts the backup in place, and the restarted app serves the data as it was.
- * Runs its own `next start` (port E2E_BACKUP_PORT, default 3204) on its own copy of the demo database.
+ * Runs its own `next start` (port E2E_BACKUP_PORT, default E2E_PORT + 2) on its own copy of the demo database.
  */
 import { expect, test } from "@playwright/test";
 import Database from "better-sqlite3";
@@ -15,7 +15,8 @@ import { OwnServer, localMinute, prepareDemoDatabase, signInByHand } from "./sup
 import { DEMO, signInAs } from "./support/accounts";
 
 const run = promisify(execFile);
-const PORT = Number(process.env.E2E_BACKUP_PORT ?? 3204);
+// Beside the shared server's port (E2E_PORT, default 3100), so checkouts running side by side do not collide.
+const PORT = Number(process.env.E2E_BACKUP_PORT ?? Number(process.env.E2E_PORT ?? 3100) + 2);
 const DIR = path.resolve(`data/e2e-backup-${PORT}`);
 const BACKUP = path.join(DIR, "backups", "during-writes.db");
 const server = new OwnServer(PORT, DIR);

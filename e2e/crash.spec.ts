@@ -4,7 +4,7 @@
  * the SQLite file passes its integrity and foreign-key checks, every write the server acknowledged is there
  * whole, nothing half-written is (every session has all its heat-sink samples and its audit entry, every
  * sweep all its points), and the app starts again on the same file and serves the coil's page.
- * Runs its own `next start` (port E2E_CRASH_PORT, default 3203) on its own copy of the demo database.
+ * Runs its own `next start` (port E2E_CRASH_PORT, default E2E_PORT + 1) on its own copy of the demo database.
  */
 import { expect, test } from "@playwright/test";
 import Database from "better-sqlite3";
@@ -15,7 +15,8 @@ import { DEMO, signInAs } from "./support/accounts";
 import { createLineModel, simulateSweep } from "../lib/calc/line-model";
 import { createSeededRandom } from "../lib/calc/seeded-random";
 
-const PORT = Number(process.env.E2E_CRASH_PORT ?? 3203);
+// Beside the shared server's port (E2E_PORT, default 3100), so checkouts running side by side do not collide.
+const PORT = Number(process.env.E2E_CRASH_PORT ?? Number(process.env.E2E_PORT ?? 3100) + 1);
 const DIR = path.resolve(`data/e2e-crash-${PORT}`);
 const server = new OwnServer(PORT, DIR);
 let template = "";

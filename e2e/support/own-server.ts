@@ -51,6 +51,15 @@ export class OwnServer {
     // detached: the child leads its own process group, so kill(-pid) reaches next's workers too.
     this.child = spawn(process.execPath, [NEXT_BIN, "start", "-p", String(this.port)], { cwd: ROOT, env: this.env, detached: true, stdio: ["ignore", log, log] });
     closeSync(log);
+    // Detached children outlive their parent: if the test worker exits without afterAll, take the group along.
+    const pgid = this.child.pid!;
+    process.once("exit", () => {
+      try {
+        process.kill(-pgid, "SIGKILL");
+      } catch {
+        // already gone
+      }
+    });
     const deadline = Date.now() + 60_000;
     while (Date.now() < deadline) {
       if (this.child.exitCode !== null) throw new Error(`next start on ${this.port} exited with ${this.child.exitCode}; see ${this.dir}/server.log`);
