@@ -114,3 +114,31 @@ test("a coil's logbook exports as JSON and CSV, and a steward re-imports it as a
   await page.goto("/coils/KM-05-COPY");
   await expect(page.getByRole("heading", { name: /KM-05-COPY/ })).toBeVisible();
 });
+
+test("two stewards edit the same coil: the later save from a stale form is refused, naming who changed it, and overwrites nothing", async ({ browser }) => {
+  const first = await browser.newContext();
+  const second = await browser.newContext();
+  try {
+    const ines = await first.newPage();
+    const rafe = await second.newPage();
+    await signInAs(ines, "admin");
+    await signInAs(rafe, "steward");
+    // Both open the edit form before either saves.
+    await ines.goto("/coils/KM-03/edit");
+    await rafe.goto("/coils/KM-03/edit");
+    await ines.getByLabel("Notes").fill("Ines: re-wound the primary.");
+    await ines.getByRole("button", { name: "Save changes" }).click();
+    await expect(ines).toHaveURL(/\/coils\/KM-03\?saved=/);
+
+    await rafe.getByLabel("Notes").fill("Rafe: new toroid.");
+    await rafe.getByRole("button", { name: "Save changes" }).click();
+    await expect(rafe.getByRole("status").filter({ hasText: /Nothing was saved: Ines Okafor changed KM-03 at .* UTC, after you opened this form/ })).toBeVisible();
+    // What Rafe typed is kept in the form, and Ines's change stands.
+    await expect(rafe.getByLabel("Notes")).toHaveValue("Rafe: new toroid.");
+    await rafe.goto("/coils/KM-03/edit");
+    await expect(rafe.getByLabel("Notes")).toHaveValue("Ines: re-wound the primary.");
+  } finally {
+    await first.close();
+    await second.close();
+  }
+});

@@ -1,10 +1,14 @@
 /**
- * The mutating JSON route handlers over HTTP against the built app, with real sessions: the same role
- * table as test/security-roles.test.ts (which also fails when a route is missing from it), then the
- * cross-site rule of lib/auth/same-origin.ts on the wire.
+ * The mutating JSON route handlers over HTTP against the built app, with real sessions. The routes are
+ * discovered from the file tree and their roles read from the same committed table as
+ * test/security-roles.test.ts (test/support/entry-points.ts), so a new route is checked here too: it fails until
+ * it has a valid body below. Then the cross-site rule of lib/auth/same-origin.ts on the wire.
  */
+import { fileURLToPath } from "node:url";
 import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
 import { signInAs, type DemoRole } from "./support/accounts";
+import { localMinute } from "./support/own-server";
+import { discoverMutatingRoutes, ENTRY_POINT_ROLES } from "../test/support/entry-points";
 
 const RANK: Record<DemoRole, number> = { member: 1, steward: 2, admin: 3 };
 
@@ -19,19 +23,28 @@ const validSweep = {
   frequenciesHz: [100_000, 200_000, 300_000],
   amplitudesV: [1, 2, 1],
 };
+const validSession = { coilId: "coil-KM-06", startedAt: localMinute(90), supplyVoltageV: "24 V", supplyCurrentA: 1.2, durationS: "10 min", ambientTempC: 21, notes: "Guard probe", samples: "0, 21\n300, 30" };
 
-interface MutatingRoute {
-  path: string;
-  role: DemoRole;
-  /** A body that would be stored if the caller were allowed. */
-  valid: (request: APIRequestContext) => Promise<unknown>;
-}
+/** Per discovered route: a body that would be stored if the caller were allowed (and a query string, if needed). */
+const VALID: Record<string, { query?: string; body: (request: APIRequestContext) => Promise<unknown> }> = {
+  "app/api/coils/route.ts#POST": { body: async () => validCoil },
+  "app/api/import/json/route.ts#POST": { query: "?asTag=SEC-E2E-COPY", body: async (request) => (await request.get("/api/export/coils/KM-05.json")).json() },
+  "app/api/sessions/route.ts#POST": { body: async () => validSession },
+  "app/api/sweeps/import/route.ts#POST": { body: async () => validSweep },
+};
 
-const ROUTES: MutatingRoute[] = [
-  { path: "/api/coils", role: "steward", valid: async () => validCoil },
-  { path: "/api/import/json?asTag=SEC-E2E-COPY", role: "steward", valid: async (request) => (await request.get("/api/export/coils/KM-05.json")).json() },
-  { path: "/api/sweeps/import", role: "member", valid: async () => validSweep },
-];
+const ROUTES = discoverMutatingRoutes(fileURLToPath(new URL("..", import.meta.url)))
+  .filter((route) => ENTRY_POINT_ROLES[route.key] !== "public")
+  .map((route) => ({ ...route, role: ENTRY_POINT_ROLES[route.key] as DemoRole | undefined }));
+
+test("every mutating route in the file tree has a role and a valid probe body here", () => {
+  expect(ROUTES.length).toBeGreaterThanOrEqual(4);
+  for (const route of ROUTES) {
+    expect(route.role, `${route.key}: add it to ENTRY_POINT_ROLES in test/support/entry-points.ts`).toBeDefined();
+    expect(VALID[route.key], `${route.key}: add a body that would be stored to VALID in this spec`).toBeDefined();
+    expect(route.path, `${route.key}: a dynamic segment needs a value here`).not.toMatch(/\[/);
+  }
+});
 
 /** What the app holds, as the fleet summary shows it: one row per coil with its counts. */
 async function fleetSnapshot(page: Page): Promise<string> {
@@ -40,35 +53,39 @@ async function fleetSnapshot(page: Page): Promise<string> {
   return response.text();
 }
 
-for (const route of ROUTES) {
-  test(`POST ${route.path} (needs ${route.role}): anonymous and lower roles are refused and nothing is stored`, async ({ page, request, browser }) => {
+for (const route of ROUTES.filter((r) => r.role && VALID[r.key])) {
+  const required = route.role!;
+  const url = route.path + (VALID[route.key]!.query ?? "");
+  const send = (request: APIRequestContext, data: unknown) => request.fetch(url, { method: route.method, data });
+
+  test(`${route.method} ${route.path} (needs ${required}): anonymous and lower roles are refused and nothing is stored`, async ({ page, request, browser }) => {
     await signInAs(page, "admin");
-    const body = await route.valid(page.request);
+    const body = await VALID[route.key]!.body(page.request);
     const before = await fleetSnapshot(page);
 
-    const anonymous = await request.post(route.path, { data: body });
+    const anonymous = await send(request, body);
     expect(anonymous.status()).toBe(401);
     expect(await anonymous.json()).toMatchObject({ ok: false, message: "Sign in to continue." });
 
-    for (const role of (["member", "steward", "admin"] as const).filter((r) => RANK[r] < RANK[route.role])) {
+    for (const role of (["member", "steward", "admin"] as const).filter((r) => RANK[r] < RANK[required])) {
       const context = await browser.newContext();
       const rolePage = await context.newPage();
       await signInAs(rolePage, role);
-      const refused = await rolePage.request.post(route.path, { data: body });
+      const refused = await send(rolePage.request, body);
       expect(refused.status()).toBe(403);
-      expect(await refused.json()).toMatchObject({ ok: false, message: `This needs the ${route.role} role; you are signed in as a ${role}.` });
+      expect(await refused.json()).toMatchObject({ ok: false, message: `This needs the ${required} role; you are signed in as a ${role}.` });
       await context.close();
     }
     expect(await fleetSnapshot(page)).toBe(before);
   });
 
-  test(`POST ${route.path}: the roles that may use it are not refused for their role`, async ({ browser }) => {
-    for (const role of (["member", "steward", "admin"] as const).filter((r) => RANK[r] >= RANK[route.role])) {
+  test(`${route.method} ${route.path}: the roles that may use it are not refused for their role`, async ({ browser }) => {
+    for (const role of (["member", "steward", "admin"] as const).filter((r) => RANK[r] >= RANK[required])) {
       const context = await browser.newContext();
       const page = await context.newPage();
       await signInAs(page, role);
       // An empty body: refused for its content (400/422), never for the role, and nothing is stored.
-      const response = await page.request.post(route.path, { data: {} });
+      const response = await send(page.request, {});
       expect([400, 422], `${role}: ${await response.text()}`).toContain(response.status());
       await context.close();
     }

@@ -14,7 +14,10 @@ const target = path.resolve(process.argv[2] ?? path.join(path.dirname(source), "
 mkdirSync(path.dirname(target), { recursive: true });
 
 const db = new Database(source, { readonly: true, fileMustExist: true });
-await db.backup(target);
+// All pages in one step, so in one read transaction: a consistent snapshot that writers in WAL mode never wait
+// for. better-sqlite3's default copies 100 pages per step, and SQLite restarts a backup whose source another
+// connection wrote to between steps, so under a steady stream of writes it could start over indefinitely.
+await db.backup(target, { progress: () => 0x7fffffff });
 db.close();
 
 const copy = new Database(target, { readonly: true });

@@ -4,11 +4,7 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 PORT="${1:-3100}"
-export DATABASE_URL="file:./data/e2e-${PORT}/e2e.db"
+bash scripts/e2e-db.sh "data/e2e-${PORT}"
+export DATABASE_URL="file:data/e2e-${PORT}/e2e.db"
 export COILYARD_DATA_DIR="data/e2e-${PORT}"
-mkdir -p "data/e2e-${PORT}"
-rm -f "data/e2e-${PORT}"/e2e.db*
-npx prisma migrate deploy >/dev/null
-npx tsx scripts/prepare-db.ts >/dev/null
-npx tsx prisma/seed.ts
 exec npx next start -p "$PORT"

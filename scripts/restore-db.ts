@@ -1,8 +1,9 @@
 /**
  * Restore the SQLite database from a backup file. Stop the app first.
  *   npm run db:restore -- path/to/backup.db
- * Checks the backup's integrity, keeps the current file as <name>.before-restore, then copies the
- * backup into place through SQLite's backup API (so the WAL files stay consistent).
+ * Checks the backup's integrity, refuses while anything else has the database open (a running app would keep
+ * writing into, and reading from, a file whose log this script replaces), keeps the current file as
+ * <name>.before-restore, then copies the backup into place through SQLite's backup API.
  */
 import Database from "better-sqlite3";
 import { copyFileSync, existsSync, rmSync } from "node:fs";
@@ -20,6 +21,11 @@ if (check !== "ok") {
   process.exit(1);
 }
 const target = sqliteFilePath(databaseUrl());
+if (existsSync(target) && inUseByAnotherProcess(target)) {
+  source.close();
+  console.error(`Refusing to restore: ${target} is open in another process (is Coilyard running?). Stop the app, then restore again.`);
+  process.exit(3);
+}
 if (existsSync(target)) {
   const current = new Database(target);
   current.pragma("wal_checkpoint(TRUNCATE)");
@@ -33,3 +39,22 @@ const restored = new Database(target);
 restored.pragma("journal_mode = WAL");
 restored.close();
 console.log(`Restored ${target} from ${backup}. The previous file is kept as ${target}.before-restore.`);
+
+/**
+ * True when another connection has the file open. A connection to a WAL database keeps a shared lock from its first
+ * read until it closes (the running app's does), so an exclusive lock taken without waiting fails exactly then.
+ */
+function inUseByAnotherProcess(file: string): boolean {
+  const probe = new Database(file, { timeout: 0 });
+  try {
+    probe.pragma("locking_mode = EXCLUSIVE");
+    probe.exec("BEGIN EXCLUSIVE");
+    probe.exec("ROLLBACK");
+    return false;
+  } catch (error) {
+    if ((error as { code?: string }).code?.startsWith("SQLITE_BUSY")) return true;
+    throw error;
+  } finally {
+    probe.close();
+  }
+}

@@ -120,7 +120,7 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
       ],
       ["add a top load", () => addTopLoad(steward.id, topLoadSchema.parse({ coilId: coil.id, name: "Bigger toroid", shape: "toroid", diameterM: "15 cm", tubeDiameterM: "4 cm" }))],
       ["retire a top load", async () => retireTopLoad(steward.id, (await testDb.topLoad.findFirstOrThrow({ where: { coilId: coil.id, name: "Bigger toroid" } })).id)],
-      ["edit the build", () => updateCoil(steward.id, coilUpdateSchema.parse({ coilId: coil.id, name: "Coil SU-01", builderName: "Test", formDiameterM: "5 cm", windingLengthM: "20 cm", wireDiameterM: "0.2 mm", turns: "900 turns", measuredInductanceH: "4 mH" }))],
+      ["edit the build", async () => updateCoil(steward.id, coilUpdateSchema.parse({ coilId: coil.id, version: (await testDb.coil.findUniqueOrThrow({ where: { id: coil.id } })).version, name: "Coil SU-01", builderName: "Test", formDiameterM: "5 cm", windingLengthM: "20 cm", wireDiameterM: "0.2 mm", turns: "900 turns", measuredInductanceH: "4 mH" }))],
       ["set its status", () => setCoilStatus(steward.id, coil.id, "repair")],
       [
         "record a sweep",

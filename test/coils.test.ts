@@ -47,7 +47,7 @@ describe("coils from typed quantities", () => {
   it("updates the build and records what changed; the tag stays", async () => {
     const steward = await makeUser("s@club.test", "steward");
     const coil = await typedCoil(steward.id);
-    const input = coilUpdateSchema.parse({ coilId: coil.id, name: "Typed", builderName: "Ada", formDiameterM: "3 in", windingLengthM: "203.2 mm", wireDiameterM: "0.4 mm", turns: "450 turns", measuredInductanceH: "4.2 mH" });
+    const input = coilUpdateSchema.parse({ coilId: coil.id, version: coil.version, name: "Typed", builderName: "Ada", formDiameterM: "3 in", windingLengthM: "203.2 mm", wireDiameterM: "0.4 mm", turns: "450 turns", measuredInductanceH: "4.2 mH" });
     const updated = await updateCoil(steward.id, input);
     expect(updated.tag).toBe("TY-01");
     expect(updated.wireGaugeAwg).toBeNull();

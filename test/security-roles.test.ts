@@ -1,6 +1,6 @@
 /**
  * Role enforcement, by enumeration: every mutating entry point is discovered from the file tree, and
- * each must appear in ENTRY_POINT_ROLES below with the role it needs. A new action or route that is
+ * each must appear in ENTRY_POINT_ROLES (test/support/entry-points.ts) with the role it needs. A new action or route that is
  * not in the table fails the first test, so nothing ships unchecked; a table row whose entry point
  * is gone fails it too.
  *
@@ -13,81 +13,18 @@
  * built app in e2e/security-routes.spec.ts; the action protocol's Origin check in
  * e2e/security-origin.spec.ts.
  */
-import { readFileSync, readdirSync, statSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { hasRole, ROLES, type Role } from "../lib/auth/roles";
 import { countAllRows, makeUser, resetDatabase } from "./support/db";
+import { discoverEntryPoints, ENTRY_POINT_ROLES } from "./support/entry-points";
 
 const session = vi.hoisted(() => ({ userId: null as string | null, headers: new Headers() }));
 vi.mock("next-auth", () => ({ getServerSession: vi.fn(async () => (session.userId ? { user: { id: session.userId } } : null)) }));
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn(), updateTag: vi.fn(), refresh: vi.fn() }));
 vi.mock("next/headers", () => ({ headers: vi.fn(async () => session.headers), cookies: vi.fn(async () => new Map()) }));
 
-type Required = Role | "public";
-
-/** The committed table: every mutating entry point and the least role that may use it. */
-const ENTRY_POINT_ROLES: Record<string, Required> = {
-  "app/(app)/admin/actions.ts#addUser": "admin",
-  "app/(app)/admin/actions.ts#changeAccess": "admin",
-  "app/(app)/admin/policy/actions.ts#savePolicyAction": "admin",
-  "app/(app)/clearances/actions.ts#signClearanceAction": "steward",
-  "app/(app)/coils/[tag]/actions.ts#changeCoilStatus": "steward",
-  "app/(app)/coils/[tag]/actions.ts#addTopLoadAction": "steward",
-  "app/(app)/coils/[tag]/actions.ts#retireTopLoadAction": "steward",
-  "app/(app)/coils/[tag]/actions.ts#addComponentAction": "steward",
-  "app/(app)/coils/[tag]/actions.ts#replaceComponentAction": "steward",
-  "app/(app)/coils/actions.ts#createCoilAction": "steward",
-  "app/(app)/coils/actions.ts#updateCoilAction": "steward",
-  "app/(app)/coils/actions.ts#importLogbookAction": "steward",
-  "app/(app)/failures/actions.ts#recordFailure": "member",
-  "app/(app)/failures/actions.ts#completePostMortemAction": "steward",
-  "app/(app)/loans/actions.ts#lendCoilAction": "steward",
-  "app/(app)/loans/actions.ts#returnLoanAction": "steward",
-  "app/(app)/sessions/actions.ts#logSession": "member",
-  "app/(app)/sweeps/actions.ts#recordTypedSweep": "member",
-  "app/api/coils/route.ts#POST": "steward",
-  "app/api/import/json/route.ts#POST": "steward",
-  "app/api/sessions/route.ts#POST": "member",
-  "app/api/sweeps/import/route.ts#POST": "member",
-  // next-auth's own sign-in/sign-out endpoint: public by design, protected by its CSRF token and the sign-in throttle.
-  "app/api/auth/[...nextauth]/route.ts#POST": "public",
-};
-
 const ROOT = path.resolve(__dirname, "..");
-const MUTATING = ["POST", "PUT", "PATCH", "DELETE"];
-
-function walk(dir: string): string[] {
-  return readdirSync(dir).flatMap((name) => {
-    const full = path.join(dir, name);
-    return statSync(full).isDirectory() ? walk(full) : [full];
-  });
-}
-
-/** Exported names of a module, as written: `export async function x`, `export const x`, `export { a as B }`. */
-function exportedNames(source: string): string[] {
-  const names = [...source.matchAll(/export\s+(?:async\s+)?(?:function\*?|const|let)\s+(\w+)/g)].map((m) => m[1]!);
-  for (const list of source.matchAll(/export\s*\{([^}]*)\}/g)) {
-    for (const part of list[1]!.split(",")) names.push(part.trim().split(/\s+as\s+/).pop()!.trim());
-  }
-  return names.filter(Boolean);
-}
-
-function discoverEntryPoints(): string[] {
-  const found: string[] = [];
-  for (const file of walk(path.join(ROOT, "app")).filter((f) => /\.(ts|tsx)$/.test(f))) {
-    const relative = path.relative(ROOT, file).split(path.sep).join("/");
-    const source = readFileSync(file, "utf8");
-    const isServerModule = /^\s*(?:\/\*[\s\S]*?\*\/\s*|\/\/.*\n\s*)*["']use server["']/.test(source);
-    if (isServerModule) for (const name of exportedNames(source)) found.push(`${relative}#${name}`);
-    // Inline "use server" functions inside components would escape the table: refuse them outright.
-    else if (/["']use server["']/.test(source)) found.push(`${relative}#<inline "use server">`);
-    if (relative.startsWith("app/api/") && relative.endsWith("/route.ts")) {
-      for (const name of exportedNames(source)) if (MUTATING.includes(name)) found.push(`${relative}#${name}`);
-    }
-  }
-  return found.sort();
-}
 
 const ROLE_REFUSAL = /Sign in to continue|needs the (member|steward|admin) role/;
 type Outcome = { status: number; message: string };
@@ -137,7 +74,7 @@ afterAll(() => {
 
 describe("every mutating entry point is in the role table", () => {
   it("the table names exactly the entry points in the file tree", () => {
-    const discovered = discoverEntryPoints();
+    const discovered = discoverEntryPoints(ROOT);
     const missing = discovered.filter((key) => !(key in ENTRY_POINT_ROLES));
     const stale = Object.keys(ENTRY_POINT_ROLES).filter((key) => !discovered.includes(key));
     expect(missing, "entry points with no role in ENTRY_POINT_ROLES — add them with the role they need").toEqual([]);

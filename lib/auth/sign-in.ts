@@ -1,6 +1,6 @@
 /** Checking a sign-in attempt: throttle, then password, then account state. */
 import { findUserForSignIn, markSignedIn } from "../db/users";
-import { clearThrottle, getThrottle, saveThrottle } from "../db/sign-in-throttle";
+import { clearThrottle, getThrottle, recordThrottleFailure } from "../db/sign-in-throttle";
 import { activeFailures, delayBeforeAttemptMs, isLocked, recordFailure } from "./throttle-policy";
 import { DUMMY_HASH, verifyPassword } from "./password";
 
@@ -31,7 +31,8 @@ export async function attemptSignIn(
   const user = await findUserForSignIn(email);
   const passwordOk = await verifyPassword(password, user?.passwordHash ?? DUMMY_HASH);
   if (!user || !passwordOk || !user.active) {
-    await saveThrottle(key, recordFailure(throttle, new Date(), lockMinutes));
+    // Counted against the stored state as it is now, not as read before the delay: parallel guesses all count.
+    await recordThrottleFailure(key, (current) => recordFailure(current, new Date(), lockMinutes));
     return { ok: false, message: WRONG };
   }
   await clearThrottle(key);

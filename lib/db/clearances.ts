@@ -5,6 +5,7 @@
  */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
+import { serializableTransaction } from "./serializable";
 import { getCurrentPolicy } from "./policy";
 import { computeClearanceExpiry, evaluateClearance, type ClearanceEvaluation, type ClearanceRuleResult } from "../calc/clearance-policy";
 import { buildClearanceFacts, findPartReplacements, type ClearanceHistory } from "../analysis/clearance-facts";
@@ -146,7 +147,7 @@ export async function recordClearanceLapse(clearanceId: string, state: Clearance
   if (state.kind !== "expired" && state.kind !== "lapsed-failure" && state.kind !== "lapsed-part") return false;
   if (!state.endedAt) return false;
   const endedAt = state.endedAt;
-  return prisma.$transaction(async (tx) => {
+  return serializableTransaction(async (tx) => {
     const result = await tx.clearance.updateMany({ where: { id: clearanceId, lapsedAt: null, verdict: "cleared" }, data: { lapsedAt: endedAt, lapseReason: state.explanation } });
     if (result.count === 0) return false;
     await recordAudit(tx, { actorId: null, action: "lapse", entity: "Clearance", entityId: clearanceId, summary: `Clearance ${state.label.toLowerCase()}`, detail: { reason: state.kind, explanation: state.explanation } });

@@ -6,7 +6,7 @@
  * file handle or pool each time.
  */
 import { PrismaBetterSQLite3 } from "@prisma/adapter-better-sqlite3";
-import { PrismaPg } from "@prisma/adapter-pg";
+import { createPostgresAdapter } from "./pg-adapter";
 import { PrismaClient } from "./generated/client";
 import { PrismaClient as PostgresPrismaClient } from "./generated-postgresql/client";
 import { databaseProvider, databaseUrl, type DatabaseProvider } from "../config/database-url";
@@ -21,7 +21,7 @@ export function createPrismaClient(url: string = databaseUrl()): PrismaClient {
   if (databaseProvider(url) === "postgresql") {
     // Both clients are generated from the same schema (prisma/postgresql/derive-schema.ts), so they answer the same
     // queries with the same shapes; lib/db is typed against the SQLite one and stays provider-neutral.
-    const adapter = new PrismaPg({ connectionString: url, max: postgresPoolSize() });
+    const adapter = createPostgresAdapter(url, postgresPoolSize());
     return new PostgresPrismaClient({ adapter }) as unknown as PrismaClient;
   }
   // timeout: how long a writer waits for SQLite's lock before giving up (ms).

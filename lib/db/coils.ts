@@ -2,6 +2,7 @@
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
+import { serializableTransaction } from "./serializable";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
@@ -57,19 +58,26 @@ export class DuplicateTagError extends Error {
 }
 
 export async function createCoil(actorId: string, input: CoilInput) {
-  return prisma.$transaction(async (tx) => {
-    if (await tx.coil.findUnique({ where: { tag: input.tag }, select: { id: true } })) throw new DuplicateTagError(input.tag);
-    const coil = await tx.coil.create({ data: { ...input, createdById: actorId } });
-    await markCoilChanged(tx, coil.id);
-    await recordAudit(tx, { actorId, action: "create", entity: "Coil", entityId: coil.id, summary: `Added coil ${coil.tag} “${coil.name}”`, detail: input });
-    return coil;
-  });
+  try {
+    return await prisma.$transaction(async (tx) => {
+      if (await tx.coil.findUnique({ where: { tag: input.tag }, select: { id: true } })) throw new DuplicateTagError(input.tag);
+      const coil = await tx.coil.create({ data: { ...input, createdById: actorId } });
+      await markCoilChanged(tx, coil.id);
+      await recordAudit(tx, { actorId, action: "create", entity: "Coil", entityId: coil.id, summary: `Added coil ${coil.tag} “${coil.name}”`, detail: input });
+      return coil;
+    });
+  } catch (error) {
+    // Two stewards adding the same tag at once both pass the check above; the unique index refuses the second.
+    if ((error as { code?: unknown }).code === "P2002") throw new DuplicateTagError(input.tag);
+    throw error;
+  }
 }
 
 export async function setCoilStatus(actorId: string, coilId: string, status: "active" | "repair" | "retired") {
   return prisma.$transaction(async (tx) => {
     const before = await tx.coil.findUniqueOrThrow({ where: { id: coilId }, select: { status: true, tag: true } });
-    const coil = await tx.coil.update({ where: { id: coilId }, data: { status } });
+    // The status is on the edit form too: bumping the version makes a form opened before this change stale.
+    const coil = await tx.coil.update({ where: { id: coilId }, data: { status, version: { increment: 1 } } });
     await markCoilChanged(tx, coilId);
     if (before.status !== status) {
       await recordAudit(tx, { actorId, action: "update", entity: "Coil", entityId: coilId, summary: `${before.tag}: status ${before.status} → ${status}` });
@@ -84,15 +92,42 @@ export class CoilNotFoundError extends Error {
   }
 }
 
-/** Changes a coil's build record (not its tag: printed labels point to the tag). Audited with what changed. */
+/** Refused save of an edit form opened before someone else changed the coil; says who and when. */
+export class CoilEditConflictError extends Error {
+  constructor(
+    readonly tag: string,
+    readonly changedBy: string | null,
+    readonly changedAt: Date | null,
+  ) {
+    const who = changedBy ?? "Someone";
+    const when = changedAt ? ` at ${changedAt.toISOString().slice(0, 16).replace("T", " ")} UTC` : "";
+    super(`Nothing was saved: ${who} changed ${tag}${when}, after you opened this form. Reload the page to see their change, then make yours again.`);
+  }
+}
+
+/**
+ * Changes a coil's build record (not its tag: printed labels point to the tag). Audited with what changed.
+ * Optimistic: input.version is the version the form was opened at, and the write only happens while the coil
+ * is still at that version (a conditional update, so it holds under any isolation level). A stale save is
+ * refused with who changed the coil last and when, and nothing is overwritten.
+ */
 export async function updateCoil(actorId: string, input: CoilUpdateInput) {
-  const { coilId, ...data } = input;
-  return prisma.$transaction(async (tx) => {
+  const { coilId, version, ...data } = input;
+  return serializableTransaction(async (tx) => {
     const before = await tx.coil.findUnique({ where: { id: coilId } });
     if (!before) throw new CoilNotFoundError(coilId);
     const next = { ...data, wireGaugeAwg: data.wireGaugeAwg ?? null, measuredDcResistanceOhm: data.measuredDcResistanceOhm ?? null, measuredInductanceH: data.measuredInductanceH ?? null, primaryTurns: data.primaryTurns ?? null, primaryDiameterM: data.primaryDiameterM ?? null };
+    const written = await tx.coil.updateMany({ where: { id: coilId, version }, data: { ...next, version: { increment: 1 } } });
+    if (written.count === 0) {
+      const last = await tx.auditEvent.findFirst({
+        where: { entity: "Coil", entityId: coilId, action: "update" },
+        orderBy: [{ at: "desc" }, { id: "desc" }],
+        select: { at: true, actor: { select: { name: true } } },
+      });
+      throw new CoilEditConflictError(before.tag, last?.actor?.name ?? null, last?.at ?? null);
+    }
+    // Compared with the row as it stood at `version` (a concurrent change would have failed the update above).
     const changed = Object.entries(next).filter(([key, value]) => before[key as keyof typeof before] !== value).map(([key]) => key);
-    const coil = await tx.coil.update({ where: { id: coilId }, data: next });
     await markCoilChanged(tx, coilId);
     await recordAudit(tx, {
       actorId,
@@ -102,6 +137,6 @@ export async function updateCoil(actorId: string, input: CoilUpdateInput) {
       summary: changed.length > 0 ? `${before.tag}: changed ${changed.join(", ")}` : `${before.tag}: saved without changes`,
       detail: Object.fromEntries(changed.map((key) => [key, { from: before[key as keyof typeof before], to: next[key as keyof typeof next] }])),
     });
-    return coil;
+    return tx.coil.findUniqueOrThrow({ where: { id: coilId } });
   });
 }

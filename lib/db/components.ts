@@ -2,6 +2,7 @@
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
+import { serializableTransaction } from "./serializable";
 import type { ComponentInput, ReplaceComponentInput } from "../validation/component";
 
 export class ComponentStateError extends Error {}
@@ -51,7 +52,7 @@ export async function addComponent(actorId: string, input: ComponentInput) {
  */
 export async function replaceComponent(actorId: string, input: ReplaceComponentInput) {
   const { oldComponentId, removalReason, ...next } = input;
-  return prisma.$transaction(async (tx) => {
+  return serializableTransaction(async (tx) => {
     const old = await tx.component.findUnique({ where: { id: oldComponentId }, include: { coil: { select: { tag: true } } } });
     if (!old || old.coilId !== next.coilId) throw new ComponentStateError("That part is not on this coil.");
     if (old.removedAt) throw new ComponentStateError(`${old.partNumber} was already removed on ${old.removedAt.toISOString().slice(0, 10)}.`);
@@ -59,7 +60,9 @@ export async function replaceComponent(actorId: string, input: ReplaceComponentI
       throw new ComponentStateError(`The new part cannot go in before the old one was fitted (${old.installedAt.toISOString().slice(0, 10)}).`);
     }
     const fitted = await tx.component.create({ data: { coilId: next.coilId, ...componentData(next) } });
-    await tx.component.update({ where: { id: old.id }, data: { removedAt: next.installedAt, removalReason, replacedById: fitted.id } });
+    // Only while still fitted: two stewards replacing the same part at once must not both fit a successor.
+    const removed = await tx.component.updateMany({ where: { id: old.id, removedAt: null }, data: { removedAt: next.installedAt, removalReason, replacedById: fitted.id } });
+    if (removed.count === 0) throw new ComponentStateError(`${old.partNumber} was replaced by someone else just now.`);
     await markCoilChanged(tx, old.coilId);
     await recordAudit(tx, {
       actorId,

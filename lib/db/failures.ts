@@ -6,6 +6,7 @@ import { textContains } from "./text-search";
 import type { FailureMode } from "./generated/enums";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
+import { serializableTransaction } from "./serializable";
 import { RecordRefusedError } from "./record-refused";
 import type { FailureInput, PostMortemInput } from "../validation/failure";
 
@@ -96,15 +97,17 @@ export type FailureDetail = NonNullable<Awaited<ReturnType<typeof getFailureDeta
  * rolls back everything, so nothing is half-written.
  */
 export async function completePostMortem(actorId: string, input: PostMortemInput) {
-  return prisma.$transaction(async (tx) => {
+  return serializableTransaction(async (tx) => {
     const failure = await tx.failure.findUnique({ where: { id: input.failureId }, include: { coil: { select: { tag: true } }, component: true } });
     if (!failure) throw new RecordRefusedError("failureId", "That failure does not exist.");
     if (failure.status === "closed") throw new RecordRefusedError("_form", "This post-mortem was already completed.", true);
     const closedAt = new Date();
-    await tx.failure.update({
-      where: { id: failure.id },
+    // Only while open: two stewards completing it at once must not both write a post-mortem (and a replacement).
+    const closed = await tx.failure.updateMany({
+      where: { id: failure.id, status: "open" },
       data: { rootCause: input.rootCause, correctiveAction: input.correctiveAction, status: "closed", closedAt, closedById: actorId },
     });
+    if (closed.count === 0) throw new RecordRefusedError("_form", "This post-mortem was completed by someone else just now.", true);
     await markCoilChanged(tx, failure.coilId);
     await recordAudit(tx, {
       actorId,
@@ -126,10 +129,11 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
     const replacement = await tx.component.create({
       data: { ...part, coilId: failed.coilId, kind: failed.kind, switchType: failed.switchType, description: failed.description, installedAt },
     });
-    await tx.component.update({
-      where: { id: failed.id },
+    const removed = await tx.component.updateMany({
+      where: { id: failed.id, removedAt: null },
       data: { removedAt: installedAt, removalReason: `Failed (${failure.mode.replace(/_/g, " ")}): ${input.rootCause}`.slice(0, 500), replacedById: replacement.id },
     });
+    if (removed.count === 0) throw new RecordRefusedError("replacement.partNumber", `Replacement: ${failed.partNumber} was replaced by someone else just now.`, true);
     await tx.failure.update({ where: { id: failure.id }, data: { replacementComponentId: replacement.id } });
     await recordAudit(tx, {
       actorId,

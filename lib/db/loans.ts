@@ -1,10 +1,12 @@
 /**
  * Loans: reads and writes. A coil goes out only with a clearance that stands now and only when it is not
- * already out; both are checked inside the lending transaction, so two stewards cannot lend it twice.
+ * already out; both are checked inside a serializable lending transaction, so two stewards lending it at the
+ * same moment cannot both pass the check (test/concurrent-writers.test.ts).
  */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
+import { serializableTransaction } from "./serializable";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import { describeClearanceState, describeLendingBlock, type ClearanceStateKind } from "../analysis/clearance-state";
@@ -71,7 +73,7 @@ export async function createLoan(actorId: string, input: LoanCreateInput, now: D
   if (input.expectedBackAt.getTime() <= now.getTime()) {
     throw new LoanRefusedError("bad-date", "Expected back: the date must be in the future.", "expectedBackAt");
   }
-  return prisma.$transaction(async (tx) => {
+  return serializableTransaction(async (tx) => {
     const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
     if (!coil) throw new LoanRefusedError("no-coil", "That coil does not exist.");
     const out = await tx.loan.findFirst({ where: { coilId: coil.id, returnedAt: null }, select: { borrower: true, expectedBackAt: true } });
@@ -107,7 +109,7 @@ export async function createLoan(actorId: string, input: LoanCreateInput, now: D
 }
 
 export async function returnLoan(actorId: string, input: LoanReturnInput, now: Date = new Date()) {
-  return prisma.$transaction(async (tx) => {
+  return serializableTransaction(async (tx) => {
     const loan = await tx.loan.findUnique({ where: { id: input.loanId }, include: { coil: { select: { tag: true } } } });
     if (!loan) throw new LoanRefusedError("not-found", "That loan does not exist.");
     if (loan.returnedAt) throw new LoanRefusedError("already-returned", `This loan was already returned on ${loan.returnedAt.toISOString().slice(0, 10)}.`);
@@ -121,10 +123,13 @@ export async function returnLoan(actorId: string, input: LoanReturnInput, now: D
       await tx.runSession.updateMany({ where: { id: { in: input.sessionIds } }, data: { loanId: loan.id } });
       await markCoilChanged(tx, loan.coilId);
     }
-    const updated = await tx.loan.update({
-      where: { id: loan.id },
+    // Only while still out: a second steward receiving it at the same moment must not overwrite the first's record.
+    const written = await tx.loan.updateMany({
+      where: { id: loan.id, returnedAt: null },
       data: { returnedAt: input.returnedAt, returnCondition: input.returnCondition, returnNotes: input.returnNotes || null, receivedById: actorId },
     });
+    if (written.count === 0) throw new LoanRefusedError("already-returned", "This loan was returned by someone else just now.");
+    const updated = await tx.loan.findUniqueOrThrow({ where: { id: loan.id } });
     await recordAudit(tx, {
       actorId,
       action: "update",

@@ -5,7 +5,7 @@
  */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
-import { isUniqueViolation } from "./unique-violation";
+import { serializableTransaction } from "./serializable";
 import { DEFAULT_CLEARANCE_POLICY, type ClearancePolicyRules } from "../calc/clearance-policy";
 import { clearancePolicyRulesSchema, parseStoredPolicyRules } from "../validation/policy";
 
@@ -20,22 +20,16 @@ export interface PolicyVersion {
 export async function getCurrentPolicy(): Promise<PolicyVersion> {
   const latest = await prisma.clearancePolicy.findFirst({ orderBy: { version: "desc" } });
   if (latest) return { ...latest, rules: parseStoredPolicyRules(latest.rulesJson) };
-  const created = await prisma
-    .$transaction(async (tx) => {
-      // Checked again inside the transaction; on PostgreSQL two first requests may still both get here, and the
-      // unique version index refuses the second, which then reads the winner's row.
-      const again = await tx.clearancePolicy.findFirst({ orderBy: { version: "desc" } });
-      if (again) return again;
-      const row = await tx.clearancePolicy.create({
-        data: { version: 1, rulesJson: JSON.stringify(DEFAULT_CLEARANCE_POLICY), note: "Default policy, created on first use." },
-      });
-      await recordAudit(tx, { actorId: null, action: "create", entity: "ClearancePolicy", entityId: row.id, summary: "Lending policy version 1 created from the defaults" });
-      return row;
-    })
-    .catch(async (error: unknown) => {
-      if (!isUniqueViolation(error)) throw error;
-      return prisma.clearancePolicy.findFirstOrThrow({ orderBy: { version: "desc" } });
+  const created = await serializableTransaction(async (tx) => {
+    // Checked again inside the transaction so two first requests cannot both create version 1.
+    const again = await tx.clearancePolicy.findFirst({ orderBy: { version: "desc" } });
+    if (again) return again;
+    const row = await tx.clearancePolicy.create({
+      data: { version: 1, rulesJson: JSON.stringify(DEFAULT_CLEARANCE_POLICY), note: "Default policy, created on first use." },
     });
+    await recordAudit(tx, { actorId: null, action: "create", entity: "ClearancePolicy", entityId: row.id, summary: "Lending policy version 1 created from the defaults" });
+    return row;
+  });
   return { ...created, rules: parseStoredPolicyRules(created.rulesJson) };
 }
 
@@ -47,20 +41,14 @@ export async function listPolicyVersions() {
   return rows.map((row) => ({ ...row, rules: parseStoredPolicyRules(row.rulesJson) }));
 }
 
-/** Two admins saving at once both get their version, numbered in turn: a clash on the number retries with the next. */
 export async function savePolicyVersion(actorId: string, rules: ClearancePolicyRules, note: string): Promise<PolicyVersion> {
   const checked = clearancePolicyRulesSchema.parse(rules);
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await prisma.$transaction(async (tx) => {
-        const latest = await tx.clearancePolicy.findFirst({ orderBy: { version: "desc" }, select: { version: true } });
-        const version = (latest?.version ?? 0) + 1;
-        const row = await tx.clearancePolicy.create({ data: { version, rulesJson: JSON.stringify(checked), note, createdById: actorId } });
-        await recordAudit(tx, { actorId, action: "create", entity: "ClearancePolicy", entityId: row.id, summary: `Lending policy version ${version} saved`, detail: { note } });
-        return { ...row, rules: checked };
-      });
-    } catch (error) {
-      if (!isUniqueViolation(error) || attempt >= 5) throw error;
-    }
-  }
+  // Serializable: two admins saving at once must get versions n+1 and n+2, not both n+1.
+  return serializableTransaction(async (tx) => {
+    const latest = await tx.clearancePolicy.findFirst({ orderBy: { version: "desc" }, select: { version: true } });
+    const version = (latest?.version ?? 0) + 1;
+    const row = await tx.clearancePolicy.create({ data: { version, rulesJson: JSON.stringify(checked), note, createdById: actorId } });
+    await recordAudit(tx, { actorId, action: "create", entity: "ClearancePolicy", entityId: row.id, summary: `Lending policy version ${version} saved`, detail: { note } });
+    return { ...row, rules: checked };
+  });
 }

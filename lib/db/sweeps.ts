@@ -2,6 +2,7 @@
 import { prisma, provider, type Tx } from "./client";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
+import { serializableTransaction } from "./serializable";
 import { analyzeSweep, type SweepAnalysis } from "../calc/sweep";
 import { CalcInputError } from "../calc/errors";
 import { calibrateCoilFromSweeps } from "../analysis/sweep-calibration";
@@ -102,12 +103,13 @@ async function insertPointPairs(tx: Tx, sweepId: string, pairs: string): Promise
 /**
  * Store a sweep: the sweep, all its points, the resonances lib/calc finds, its first series resonance,
  * the coil's environment capacitance recalibrated over all its sweeps, and the audit entry — in one
- * transaction, so a refusal anywhere leaves nothing behind.
+ * transaction, so a refusal anywhere leaves nothing behind. Serializable, because the calibration reads all the
+ * coil's sweeps: two imports of the same coil at once under READ COMMITTED would each miss the other's sweep.
  */
 export async function recordSweep(actorId: string, input: SweepRecordInput, how: "hand" | "import" = "hand"): Promise<RecordedSweep> {
   const analysis = analyzeReadings(input);
   const firstSeries = analysis.seriesResonances[0]?.frequency ?? null;
-  return prisma.$transaction(
+  return serializableTransaction(
     async (tx) => {
       const coil = await tx.coil.findUnique({ where: { id: input.coilId } });
       if (!coil) throw new SweepRefusedError("coilId", "Coil: that coil does not exist.");

@@ -1,6 +1,7 @@
 /** Users: reads and writes. Password hashing happens in lib/auth before anything reaches here. */
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
+import { serializableTransaction } from "./serializable";
 import type { Role } from "../auth/roles";
 
 export const publicUserSelect = {
@@ -73,9 +74,12 @@ export class LastAdminError extends Error {
   }
 }
 
-/** Change a user's role and/or active flag; refuses to leave the installation without an active admin. */
+/**
+ * Change a user's role and/or active flag; refuses to leave the installation without an active admin.
+ * Serializable: two admins demoting each other at once would each still count the other (write skew).
+ */
 export async function updateUserAccess(actorId: string, userId: string, change: { role?: Role; active?: boolean }) {
-  return prisma.$transaction(async (tx) => {
+  return serializableTransaction(async (tx) => {
     const before = await tx.user.findUniqueOrThrow({ where: { id: userId }, select: publicUserSelect });
     const after = await tx.user.update({ where: { id: userId }, data: change, select: publicUserSelect });
     const activeAdmins = await tx.user.count({ where: { role: "admin", active: true } });

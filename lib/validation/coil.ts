@@ -112,7 +112,15 @@ export const coilSchema = z.preprocess(
 /** An edit: the tag stays (printed labels point to it), everything else may change. */
 export const coilUpdateSchema = z.preprocess(
   (v) => (v && typeof v === "object" ? { ...v, __wire: (v as Record<string, unknown>).wireDiameterM } : v),
-  z.object({ coilId: z.string().min(1), ...coilFields, __wire: z.unknown() }).transform(({ __wire, ...value }, ctx) => finishCoil(value, ctx, __wire)),
+  z
+    .object({
+      coilId: z.string().min(1),
+      // The version the form was opened at: a save after someone else's change is refused, not merged.
+      version: z.coerce.number({ error: "Reload the page: this form is missing the coil's version." }).int().min(0),
+      ...coilFields,
+      __wire: z.unknown(),
+    })
+    .transform(({ __wire, ...value }, ctx) => finishCoil(value, ctx, __wire)),
 );
 
 export type CoilInput = z.output<typeof coilSchema>;

@@ -3,7 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { guardAction } from "@/lib/auth/guard";
-import { CoilNotFoundError, createCoil, DuplicateTagError, updateCoil } from "@/lib/db/coils";
+import { CoilEditConflictError, CoilNotFoundError, createCoil, DuplicateTagError, updateCoil } from "@/lib/db/coils";
 import { importLogbook, ImportConflictError, type ImportSummary } from "@/lib/db/import";
 import { asksToCountTurns, coilSchema, coilUpdateSchema } from "@/lib/validation/coil";
 import { describeLogbookIssues, importOptionsSchema, logbookDocumentSchema } from "@/lib/validation/export";
@@ -42,6 +42,7 @@ export async function updateCoilAction(_previous: ActionResult<null> | null, for
       return { ok: true, data: null, message: coil.tag };
     } catch (error) {
       if (error instanceof CoilNotFoundError) return refused("That coil no longer exists.");
+      if (error instanceof CoilEditConflictError) return refused(error.message, {}, echoForm(form));
       throw error;
     }
   });

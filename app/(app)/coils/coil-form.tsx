@@ -10,7 +10,7 @@ import { parseQuantity } from "@/lib/units/parse";
 /** Text shown in each field when editing (already formatted so the parser reads it back). */
 export type CoilFormValues = Partial<Record<string, string>>;
 
-export function CoilForm({ mode, coilId, values = {} }: { mode: "new" | "edit"; coilId?: string; values?: CoilFormValues }) {
+export function CoilForm({ mode, coilId, version, values = {} }: { mode: "new" | "edit"; coilId?: string; version?: number; values?: CoilFormValues }) {
   const [state, action, pending] = useActionState(mode === "new" ? createCoilAction : updateCoilAction, null);
   const refused = state && !state.ok ? state : null;
   const typed = (field: string) => refused?.values?.[field] ?? values[field] ?? "";
@@ -30,6 +30,7 @@ export function CoilForm({ mode, coilId, values = {} }: { mode: "new" | "edit"; 
     <form action={action} className="stack" aria-labelledby="coil-form-heading" noValidate>
       <h2 id="coil-form-heading">{mode === "new" ? "The build" : "Edit the build"}</h2>
       {coilId && <input type="hidden" name="coilId" value={coilId} />}
+      {version !== undefined && <input type="hidden" name="version" value={version} />}
       <div className="grid-2">
         {mode === "new" && (
           <div className="field">

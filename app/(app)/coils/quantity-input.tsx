@@ -10,31 +10,6 @@ import { parseQuantity, type QuantityKind } from "@/lib/units/parse";
 import { formatQuantity } from "@/lib/units/format";
 import type { ActionResult } from "@/lib/validation/action-result";
 
-/** The stored SI value as text the parser reads back without loss (six significant figures). */
-export function quantityText(value: number | null | undefined, kind: QuantityKind, defaultUnit?: string): string {
-  if (value === null || value === undefined) return "";
-  const n = (v: number) => String(Number(v.toPrecision(6)));
-  switch (kind) {
-    case "length":
-    case "wireDiameter":
-      return defaultUnit === "mm" || kind === "wireDiameter" ? `${n(value * 1000)} mm` : `${n(value)} m`;
-    case "temperature":
-      return `${n(value)} °C`;
-    case "thermalResistance":
-      return `${n(value)} K/W`;
-    case "mass":
-      return value < 1 ? `${n(value * 1000)} g` : `${n(value)} kg`;
-    case "count":
-      return String(value);
-    case "time":
-      return `${n(value)} s`;
-    default: {
-      const unit = { frequency: "Hz", capacitance: "F", inductance: "H", resistance: "Ω", voltage: "V", current: "A", power: "W" }[kind];
-      return formatQuantity(value, unit, 6);
-    }
-  }
-}
-
 /** What the parser made of the text, in words for the preview line. */
 export function describeTyped(text: string, kind: QuantityKind, defaultUnit?: string): string {
   if (text.trim() === "") return "";

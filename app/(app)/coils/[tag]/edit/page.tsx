@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { getCoilByTag } from "@/lib/db/coils";
 import { CoilForm } from "../../coil-form";
-import { quantityText } from "../../quantity-input";
+import { quantityText } from "../../quantity-text";
 
 type Props = { params: Promise<{ tag: string }> };
 
@@ -41,7 +41,7 @@ export default async function EditCoilPage({ params }: Props) {
         <Link href={`/coils/${encodeURIComponent(coil.tag)}`}>Back to the coil</Link>
       </div>
       <p className="lede">The tag stays: printed labels point to it.</p>
-      <CoilForm mode="edit" coilId={coil.id} values={values} />
+      <CoilForm mode="edit" coilId={coil.id} version={coil.version} values={values} />
     </>
   );
 }
