@@ -24,6 +24,15 @@ describe("predictWhatIf", () => {
     if (tiny.ok) expect(tiny.inBand).toBe(tiny.prediction.predictedFirstResonance >= tiny.band.lowerEdge && tiny.prediction.predictedFirstResonance <= tiny.band.upperEdge);
   });
 
+  it("checks against the broadcast band of the region it is given", () => {
+    const input = { shape: "toroid" as const, diameter: 0.4, tubeDiameter: 0.1 };
+    const [one, two] = [predictWhatIf(coil, toroid, input, 1), predictWhatIf(coil, toroid, input, 2)];
+    // ITU Radio Regulations Article 5 (as in lib/calc/broadcast-band.test.ts): Region 1 ends at 1606.5 kHz, Region 2 at 1705 kHz.
+    expect(one.ok && one.band.upperEdge).toBe(1_606_500);
+    expect(two.ok && two.band.upperEdge).toBe(1_705_000);
+    expect(one.ok && one.region).toBe(1);
+  });
+
   it("names the field of a toroid without a hole", () => {
     expect(predictWhatIf(coil, toroid, { shape: "toroid", diameter: 0.1, tubeDiameter: 0.06 })).toMatchObject({ ok: false, field: "tubeDiameter" });
   });

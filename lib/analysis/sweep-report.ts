@@ -4,7 +4,7 @@
  * "what would this top load do?" prediction.
  */
 import { predictBuild, predictTopLoadChange, type TopLoadChangePrediction, type TopLoadSpec } from "../calc/build-prediction";
-import { broadcastBand, inBroadcastBand, type BroadcastBand } from "../calc/broadcast-band";
+import { broadcastBand, inBroadcastBand, type BroadcastBand, type ItuRegion } from "../calc/broadcast-band";
 import { DEFAULT_CLEARANCE_POLICY } from "../calc/clearance-policy";
 import { compareMeasured, type Comparison } from "../calc/comparison";
 import { dividerImpedance } from "../calc/divider";
@@ -83,9 +83,17 @@ export type WhatIfResult =
   | { ok: true; prediction: TopLoadChangePrediction; inBand: boolean; band: BroadcastBand; region: number }
   | { ok: false; field: string; reason: string };
 
-/** The first resonance with a different top load, holding the coil's calibrated environment (0 F when not calibrated). */
-export function predictWhatIf(coil: CoilForPrediction, currentTopLoad: Omit<TopLoadRecord, "id"> | null, input: WhatIfTopLoad): WhatIfResult {
-  const region = DEFAULT_CLEARANCE_POLICY.ituRegion;
+/**
+ * The first resonance with a different top load, holding the coil's calibrated environment (0 F when not calibrated),
+ * checked against the broadcast band of the club's ITU region (the lending policy's; the default policy's when none
+ * is given).
+ */
+export function predictWhatIf(
+  coil: CoilForPrediction,
+  currentTopLoad: Omit<TopLoadRecord, "id"> | null,
+  input: WhatIfTopLoad,
+  region: ItuRegion = DEFAULT_CLEARANCE_POLICY.ituRegion,
+): WhatIfResult {
   try {
     const prediction = predictTopLoadChange(secondaryBuildOf(coil, topLoadSpecOf(currentTopLoad)), coil.environmentCapacitanceF ?? 0, whatIfSpec(input));
     return { ok: true, prediction, inBand: inBroadcastBand(prediction.predictedFirstResonance, region), band: broadcastBand(region), region };

@@ -6,6 +6,8 @@ import { hasRole } from "@/lib/auth/roles";
 import { getCoilByTag } from "@/lib/db/coils";
 import { getCoilPageHistory } from "@/lib/db/coil-history";
 import { getCoilTimeline } from "@/lib/db/coil-timeline";
+import { getCurrentPolicy } from "@/lib/db/policy";
+import type { ClearancePolicyRules } from "@/lib/calc/clearance-policy";
 import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
 import { compareCoil } from "@/lib/analysis/coil-comparison";
 import { selectHealthWindow } from "@/lib/analysis/health-window";
@@ -26,11 +28,12 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: decodeURIComponent((await params).tag) };
 }
 
-function assess(history: NonNullable<Awaited<ReturnType<typeof getCoilPageHistory>>>) {
+/** Health judged by the current lending policy's thresholds, as the dashboard and the trends page judge it. */
+function assess(history: NonNullable<Awaited<ReturnType<typeof getCoilPageHistory>>>, rules: ClearancePolicyRules) {
   try {
     const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);
     const last = analyzed.at(-1);
-    return { health: assessCoil(analyzed, history.sweeps, new Date()), latest: last ? { id: last.session.id, startedAt: last.session.startedAt, analysis: last.analysis } : null };
+    return { health: assessCoil(analyzed, history.sweeps, new Date(), rules), latest: last ? { id: last.session.id, startedAt: last.session.startedAt, analysis: last.analysis } : null };
   } catch (error) {
     if (error instanceof CalcInputError) return { health: null, latest: null };
     throw error;
@@ -43,10 +46,10 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const query = await searchParams;
   const coil = await getCoilByTag(tag);
   if (!coil) notFound();
-  const [history, timeline] = await Promise.all([getCoilPageHistory(coil.id), getCoilTimeline(coil.id, 25)]);
+  const [history, timeline, policy] = await Promise.all([getCoilPageHistory(coil.id), getCoilTimeline(coil.id, 25), getCurrentPolicy()]);
   if (!history) notFound();
   const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
-  const { health, latest } = assess(history);
+  const { health, latest } = assess(history, policy.rules);
   const canEdit = hasRole(user.role, "steward");
   const base = `/coils/${encodeURIComponent(coil.tag)}`;
   const justSaved = query.added ?? query.saved;

@@ -14,6 +14,7 @@ import { ResonanceTable } from "./resonance-table";
 import { PredictionPanel } from "./prediction-panel";
 import { CalibrationPanel } from "./calibration-panel";
 import { WhatIfForm } from "./what-if-form";
+import { getCurrentPolicy } from "@/lib/db/policy";
 
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -25,7 +26,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const sweep = await getSweep(id);
   if (!sweep) notFound();
   const query = Object.fromEntries(Object.entries(await searchParams).map(([k, v]) => [k, [v].flat()[0] ?? ""]));
-  const calibrationSweeps = await listCalibrationSweeps(sweep.coilId);
+  const [calibrationSweeps, policy] = await Promise.all([listCalibrationSweeps(sweep.coilId), getCurrentPolicy()]);
 
   const curve = impedanceCurve(sweep);
   const comparison = compareWithPrediction(sweep.coil, sweep.topLoad, sweep.firstSeriesResonanceHz);
@@ -37,7 +38,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
     // Only the fields the chosen shape needs are read, so leftovers from another shape do no harm.
     const parsed = whatIfTopLoadSchema.safeParse(query);
     if (parsed.success) {
-      whatIf = predictWhatIf(sweep.coil, sweep.topLoad, parsed.data);
+      whatIf = predictWhatIf(sweep.coil, sweep.topLoad, parsed.data, policy.rules.ituRegion);
       if (!whatIf.ok) whatIfErrors = { [whatIf.field]: [whatIf.reason] };
     } else whatIfErrors = fieldErrorsOf(parsed.error);
   }
