@@ -25,13 +25,14 @@ function rawFloors(db: Database.Database) {
     db.prepare(`SELECT id, "coilId", "takenAt", "topLoadId", "firstSeriesResonanceHz" FROM "Sweep" ORDER BY "takenAt"`),
     db.prepare(`SELECT * FROM "TopLoad"`),
   ];
-  // Warm: the stored summaries plus what is worked out at read time (failures, latest clearance, open loans, parts
+  // Warm: the stored summaries (margins in brief) plus what is worked out at read time (failures, latest clearance, open loans, parts
   // fitted since a clearance, the policy version), exactly the figures the dashboard shows.
   const readTime = [
     db.prepare(`SELECT "coilId", status, "occurredAt", mode FROM "Failure"`),
     db.prepare(`SELECT c.* FROM "Clearance" c WHERE c."decidedAt" = (SELECT max(d."decidedAt") FROM "Clearance" d WHERE d."coilId" = c."coilId")`),
     db.prepare(`SELECT * FROM "Loan" WHERE "returnedAt" IS NULL`),
-    db.prepare(`SELECT id, "coilId", kind, "partNumber", "installedAt", "removedAt" FROM "Component"`),
+    // Parts matter only to a coil with a clearance (fitted since signing lapses it).
+    db.prepare(`SELECT id, "coilId", kind, "partNumber", "installedAt", "removedAt" FROM "Component" WHERE "coilId" IN (SELECT "coilId" FROM "Clearance")`),
     db.prepare(`SELECT version FROM "ClearancePolicy" ORDER BY version DESC LIMIT 1`),
   ];
   const summaries = db.prepare(`SELECT c.id, c.tag, c.name, c.status, s.* FROM "Coil" c LEFT JOIN "CoilSummary" s ON s."coilId" = c.id ORDER BY c.tag`);

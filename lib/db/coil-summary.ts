@@ -19,7 +19,7 @@ import { analyzeSessions, assessCoil } from "../analysis/coil-health-input";
 import { computeHealthValidUntil } from "../analysis/health-validity";
 import { CalcInputError } from "../calc/errors";
 import type { HealthStatus } from "../calc/coil-health";
-import type { SessionMargins } from "../calc/session-margins";
+import { briefSessionMargins, type SessionMarginsBrief } from "../analysis/margin-brief";
 
 /** Records that the coil's logbook changed. Call it in the same transaction as the write. */
 export async function markCoilChanged(tx: Tx, coilId: string): Promise<void> {
@@ -30,7 +30,8 @@ export async function markCoilChanged(tx: Tx, coilId: string): Promise<void> {
 export interface CoilFigures {
   health: HealthStatus;
   reasons: string[];
-  latestMargins: SessionMargins | null;
+  /** The latest session's margins in brief (headroom, status, formula): what the dashboard shows. */
+  latestMargins: SessionMarginsBrief | null;
   sessionCount: number;
   totalRunS: number;
   lastSessionAt: Date | null;
@@ -44,6 +45,7 @@ const HEALTH_STATUSES: readonly string[] = ["fine", "watch", "hold", "not enough
 /** The coil's figures from its health window (lib/analysis), judged at `now` under `policy`. */
 export function computeCoilFigures({ coil, components, sessions, sweeps, totals }: CoilHealthHistory, policy: PolicyVersion, now: Date): CoilFigures {
   const analyzed = analyzeSessions(coil, sessions, components);
+  const latest = analyzed.at(-1);
   let health: HealthStatus = "not enough data";
   let reasons: string[] = [];
   let validUntil: Date | null = null;
@@ -59,7 +61,7 @@ export function computeCoilFigures({ coil, components, sessions, sweeps, totals 
   return {
     health,
     reasons,
-    latestMargins: analyzed.at(-1)?.analysis.margins ?? null,
+    latestMargins: latest ? briefSessionMargins(latest.analysis.margins) : null,
     sessionCount: totals.sessionCount,
     totalRunS: totals.totalDurationS,
     lastSessionAt: totals.lastSessionAt,
@@ -80,7 +82,7 @@ export function readCurrentFigures(row: CoilSummary, policyVersion: number, now:
   return {
     health: row.health as HealthStatus,
     reasons: JSON.parse(row.reasonsJson) as string[],
-    latestMargins: JSON.parse(row.latestMarginsJson) as SessionMargins | null,
+    latestMargins: JSON.parse(row.latestMarginsJson) as SessionMarginsBrief | null,
     sessionCount: row.sessionCount,
     totalRunS: row.totalRunS,
     lastSessionAt: row.lastSessionAt,

@@ -12,7 +12,7 @@ import { getCurrentPolicy } from "./policy";
 import { findPartReplacements } from "../analysis/clearance-facts";
 import { describeClearanceState, type ClearanceState } from "../analysis/clearance-state";
 import type { HealthStatus } from "../calc/coil-health";
-import type { SessionMargins } from "../calc/session-margins";
+import type { SessionMarginsBrief } from "../analysis/margin-brief";
 import type { FleetQuery } from "../validation/fleet-query";
 import { collectPartKinds, computePartExposures } from "../analysis/part-hours";
 import { partReliability } from "../calc/reliability";
@@ -24,7 +24,7 @@ export interface FleetRow {
   status: string;
   health: HealthStatus;
   reasons: string[];
-  latestMargins: SessionMargins | null;
+  latestMargins: SessionMarginsBrief | null;
   sessionCount: number;
   hoursRun: number;
   lastSessionAt: Date | null;
@@ -44,15 +44,20 @@ function groupByCoil<T extends { coilId: string }>(rows: readonly T[]): Map<stri
 }
 
 export async function getFleetOverview(now: Date = new Date()): Promise<FleetRow[]> {
-  const [coils, policy, failures, clearances, loans, components] = await Promise.all([
+  const [coils, policy, failures, clearances, loans] = await Promise.all([
     prisma.coil.findMany({ orderBy: { tag: "asc" }, select: { id: true, tag: true, name: true, status: true } }),
     getCurrentPolicy(),
     prisma.failure.findMany({ select: { coilId: true, occurredAt: true, mode: true, status: true } }),
     prisma.clearance.findMany({ orderBy: { decidedAt: "desc" }, distinct: ["coilId"], select: { id: true, coilId: true, verdict: true, decidedAt: true, validUntil: true } }),
     prisma.loan.findMany({ where: { returnedAt: null }, select: { id: true, coilId: true, borrower: true, event: true, expectedBackAt: true } }),
-    // Parts only for the clearance lapse check (a part fitted since signing), which moves with the clock.
-    prisma.component.findMany({ orderBy: { installedAt: "asc" }, select: { id: true, coilId: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
   ]);
+  // Parts only for the clearance lapse check (a part fitted since signing), so only for coils that have a clearance:
+  // a coil never cleared shows "none" whatever its parts.
+  const components = clearances.length === 0 ? [] : await prisma.component.findMany({
+    where: { coilId: { in: clearances.map((c) => c.coilId) } },
+    orderBy: { installedAt: "asc" },
+    select: { id: true, coilId: true, kind: true, partNumber: true, installedAt: true, removedAt: true },
+  });
   const figuresByCoil = await getCoilFigures(
     coils.map((c) => c.id),
     policy,
