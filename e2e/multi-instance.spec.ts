@@ -8,7 +8,8 @@ import { execFileSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import pg from "pg";
 import { expect, test } from "@playwright/test";
-import { AppServer } from "./support/app-server";
+import path from "node:path";
+import { OwnServer } from "./support/own-server";
 import { signInAs } from "./support/accounts";
 import { logSession } from "./support/session-log";
 
@@ -19,7 +20,7 @@ test.describe("two instances on one PostgreSQL database", () => {
   test.skip(!serverUrl, "COILYARD_TEST_POSTGRES_URL is not set (CI sets it; see scripts/ensure-postgres.sh)");
   test.describe.configure({ timeout: 180_000 });
 
-  const servers: AppServer[] = [];
+  const servers: OwnServer[] = [];
 
   test.beforeAll(async () => {
     test.setTimeout(180_000);
@@ -34,22 +35,26 @@ test.describe("two instances on one PostgreSQL database", () => {
     const env = { DATABASE_URL: url.toString(), NEXTAUTH_SECRET: randomBytes(32).toString("base64url") };
     execFileSync("npx", ["prisma", "migrate", "deploy"], { env: { ...process.env, ...env }, stdio: "pipe" });
     execFileSync("npx", ["tsx", "prisma/seed.ts"], { env: { ...process.env, ...env }, stdio: "pipe" });
-    servers.push(await AppServer.start(basePort, env), await AppServer.start(basePort + 1, env));
+    for (const port of [basePort, basePort + 1]) {
+      const server = new OwnServer(port, path.resolve(`data/e2e-${port}`), env);
+      servers.push(server);
+      await server.start();
+    }
   });
 
-  test.afterAll(() => {
-    for (const server of servers) server.stop();
+  test.afterAll(async () => {
+    await Promise.all(servers.map((server) => server.stop()));
   });
 
   test("a sign-in on one instance is good on the other, and each shows what the other wrote", async ({ browser }) => {
-    const [first, second] = servers as [AppServer, AppServer];
-    const onFirst = await browser.newContext({ baseURL: first.url });
+    const [first, second] = servers as [OwnServer, OwnServer];
+    const onFirst = await browser.newContext({ baseURL: first.baseURL });
     const page = await onFirst.newPage();
     await signInAs(page, "member");
 
     // The same browser (same cookies: they are per host, not per port) moves to the other instance.
     const cookies = await onFirst.cookies();
-    const onSecond = await browser.newContext({ baseURL: second.url });
+    const onSecond = await browser.newContext({ baseURL: second.baseURL });
     await onSecond.addCookies(cookies);
     const other = await onSecond.newPage();
     await other.goto("/");

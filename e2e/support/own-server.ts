@@ -1,7 +1,8 @@
 /**
  * A Coilyard server of a spec's own, for the reliability specs that kill, stop and restart it: its own port,
  * its own SQLite file (a copy of a freshly migrated and seeded demo database, scripts/e2e-db.sh), started as
- * the leader of a new process group so one signal reaches next and every worker it forks.
+ * the leader of a new process group so one signal reaches next and every worker it forks. `environment`
+ * overrides the defaults, e.g. DATABASE_URL for instances sharing a PostgreSQL database.
  */
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
 import { copyFileSync, mkdirSync, openSync, closeSync, rmSync } from "node:fs";
@@ -25,6 +26,7 @@ export class OwnServer {
   constructor(
     readonly port: number,
     readonly dir: string,
+    private readonly environment: Record<string, string> = {},
   ) {
     this.dbFile = path.join(dir, "e2e.db");
     this.baseURL = `http://localhost:${port}`;
@@ -38,7 +40,7 @@ export class OwnServer {
   }
 
   get env(): NodeJS.ProcessEnv {
-    return { ...process.env, DATABASE_URL: `file:${this.dbFile}`, COILYARD_DATA_DIR: this.dir, NEXTAUTH_URL: this.baseURL, NEXT_TELEMETRY_DISABLED: "1", PORT: String(this.port) };
+    return { ...process.env, DATABASE_URL: `file:${this.dbFile}`, COILYARD_DATA_DIR: this.dir, NEXTAUTH_URL: this.baseURL, NEXT_TELEMETRY_DISABLED: "1", PORT: String(this.port), ...this.environment };
   }
 
   get pid(): number | undefined {
@@ -47,6 +49,7 @@ export class OwnServer {
 
   async start(): Promise<void> {
     if (this.child) throw new Error(`The server on ${this.port} is already running`);
+    mkdirSync(this.dir, { recursive: true });
     const log = openSync(path.join(this.dir, "server.log"), "a");
     // detached: the child leads its own process group, so kill(-pid) reaches next's workers too.
     this.child = spawn(process.execPath, [NEXT_BIN, "start", "-p", String(this.port)], { cwd: ROOT, env: this.env, detached: true, stdio: ["ignore", log, log] });
