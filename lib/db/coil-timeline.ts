@@ -4,6 +4,7 @@
  * the page costs a handful of small queries however long the coil's history is.
  */
 import { prisma } from "./client";
+import { Prisma } from "./generated/client";
 
 export type TimelineKind = "session" | "sweep" | "failure" | "part-fitted" | "part-removed" | "clearance" | "loan-out" | "loan-back";
 
@@ -17,21 +18,26 @@ export interface TimelineEvent {
 }
 
 /**
- * How many records of each kind the coil has, or null for no such coil. One count per table rather than Prisma's
- * relation `_count`, which groups the whole table by coil before joining (19 ms at 250 000 sessions, 0.1 ms here).
+ * How many records of each kind the coil has, or null for no such coil: one statement of per-table counts (each an
+ * index range on coilId). Not Prisma's relation `_count`, which groups the whole table by coil before joining
+ * (19 ms at 250 000 sessions), nor six count queries (each a Prisma round trip). Portable SQL; counts come back
+ * as bigint on PostgreSQL.
  */
 async function countRecords(coilId: string) {
-  const where = { coilId };
-  const [coil, sessions, sweeps, failures, components, clearances, loans] = await Promise.all([
-    prisma.coil.findUnique({ where: { id: coilId }, select: { id: true } }),
-    prisma.runSession.count({ where }),
-    prisma.sweep.count({ where }),
-    prisma.failure.count({ where }),
-    prisma.component.count({ where }),
-    prisma.clearance.count({ where }),
-    prisma.loan.count({ where }),
-  ]);
-  return coil ? { sessions, sweeps, failures, components, clearances, loans } : null;
+  const count = (table: string) => Prisma.raw(`(SELECT count(*) FROM "${table}" t WHERE t."coilId" = c.id)`);
+  const [row] = await prisma.$queryRaw<Record<"sessions" | "sweeps" | "failures" | "components" | "clearances" | "loans", bigint | number>[]>`
+    SELECT ${count("RunSession")} AS "sessions", ${count("Sweep")} AS "sweeps", ${count("Failure")} AS "failures",
+           ${count("Component")} AS "components", ${count("Clearance")} AS "clearances", ${count("Loan")} AS "loans"
+    FROM "Coil" c WHERE c.id = ${coilId}`;
+  if (!row) return null;
+  return {
+    sessions: Number(row.sessions),
+    sweeps: Number(row.sweeps),
+    failures: Number(row.failures),
+    components: Number(row.components),
+    clearances: Number(row.clearances),
+    loans: Number(row.loans),
+  };
 }
 
 export async function getCoilTimeline(coilId: string, limit = 25) {
