@@ -9,7 +9,7 @@ import { selectHealthWindow } from "../lib/analysis/health-window";
 export async function loadCoilPage(tag: string) {
   const coil = await getCoilByTag(tag);
   if (!coil) throw new Error(`No coil ${tag} in the fixture`);
-  const [history, timeline] = await Promise.all([getCoilPageHistory(coil.id), getCoilTimeline(coil.id, 25)]);
+  const [history, timeline] = await Promise.all([getCoilPageHistory(coil.id, coil), getCoilTimeline(coil.id, 25, coil.components)]);
   if (!history) throw new Error(`No history for ${tag}`);
   const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
   const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);

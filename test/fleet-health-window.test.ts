@@ -4,6 +4,7 @@ import { resetDatabase, testDb } from "./support/db";
 import { makeCleanCoil } from "./fleet-fixtures";
 import { getCoilHistory, getCoilPageHistory, getFleetHealthHistory, getFleetHistory } from "@/lib/db/coil-history";
 import { getCoilTimeline } from "@/lib/db/coil-timeline";
+import { getCoilByTag } from "@/lib/db/coils";
 import { compareCoil } from "@/lib/analysis/coil-comparison";
 import { getFleetOverview } from "@/lib/db/fleet";
 import { HEALTH_WINDOW, selectHealthWindow } from "@/lib/analysis/health-window";
@@ -64,5 +65,19 @@ describe("getFleetHealthHistory", () => {
     expect(compared.rows.find((r) => r.quantity === "runningFrequency")!.measured).toBe(300_000);
     expect(compared).toEqual(compareCoil(full!.coil, full!.topLoads, full!.sweeps, full!.sessions));
     expect(timeline.counts).toEqual({ sessions: 155, sweeps: 1, failures: 0, components: 3, clearances: 0, loans: 0 });
+  });
+
+  it("reads the same history and timeline when handed the coil the page already read (parts and top loads not read twice)", async () => {
+    const coil = await makeCleanCoil("HW-05", now);
+    await addSessions(coil.id, 20);
+    const part = await testDb.component.findFirstOrThrow({ where: { coilId: coil.id } });
+    await testDb.component.update({ where: { id: part.id }, data: { removedAt: now, removalReason: "worn" } });
+    const known = (await getCoilByTag("HW-05"))!;
+    const [read, handed] = await Promise.all([getCoilPageHistory(coil.id), getCoilPageHistory(coil.id, known)]);
+    expect(handed).toEqual(read);
+    expect(handed!.coil).not.toHaveProperty("components");
+    const [timelineRead, timelineHanded] = await Promise.all([getCoilTimeline(coil.id), getCoilTimeline(coil.id, 25, known.components)]);
+    expect(timelineHanded).toEqual(timelineRead);
+    expect(timelineHanded.events.filter((e) => e.kind === "part-removed")).toHaveLength(1);
   });
 });

@@ -3,7 +3,7 @@
  * coils, every part ever fitted, every session (without heat-sink samples) and every sweep summary.
  */
 import { prisma } from "./client";
-import { Prisma, type RunSession } from "./generated/client";
+import { Prisma, type Coil, type Component, type RunSession, type TopLoad } from "./generated/client";
 import { HEALTH_WINDOW, selectHealthWindow } from "../analysis/health-window";
 import { findCurrentTopLoad } from "../analysis/coil-comparison";
 
@@ -51,15 +51,31 @@ export type CoilHistory = NonNullable<Awaited<ReturnType<typeof getCoilHistory>>
  * prediction table (comparisonSessions) also the latest session that logged a running frequency with the top load
  * fitted now, when that is older than the window. A 500-session coil reads ~64 sessions instead of 500.
  */
-export async function getCoilPageHistory(coilId: string) {
+/** The coil with its parts and top loads, when the caller has read them already (the coil page has, for its head). */
+export type KnownCoilRecords = Coil & { components: Component[]; topLoads: TopLoad[] };
+
+/** Ties broken by id, the same way in SQL and here (ids are lowercase letters and digits, so no collation differs). */
+const compareIds = (a: { id: string }, b: { id: string }) => (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
+
+function splitKnown({ components, topLoads, ...rest }: KnownCoilRecords & { createdBy?: unknown }) {
+  const { createdBy: _createdBy, ...coil } = rest;
+  return { coil: coil as Coil, components, topLoads };
+}
+
+export async function getCoilPageHistory(coilId: string, knownCoil?: KnownCoilRecords) {
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
+  const known = knownCoil && splitKnown(knownCoil);
   const [coil, components, first, last, sweeps, topLoads] = await Promise.all([
-    prisma.coil.findUnique({ where: { id: coilId } }),
-    prisma.component.findMany({ where: { coilId }, orderBy: { installedAt: "asc" } }),
+    known ? known.coil : prisma.coil.findUnique({ where: { id: coilId } }),
+    known
+      ? [...known.components].sort((a, b) => a.installedAt.getTime() - b.installedAt.getTime() || compareIds(a, b))
+      : prisma.component.findMany({ where: { coilId }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }),
     prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "asc" }, { id: "asc" }], take: baselineSessions }),
     prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "desc" }, { id: "desc" }], take: recentSessions }),
     prisma.sweep.findMany({ where: { coilId }, select: sweepSelect, orderBy: { takenAt: "asc" } }),
-    prisma.topLoad.findMany({ where: { coilId }, orderBy: { createdAt: "asc" } }),
+    known
+      ? [...known.topLoads].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || compareIds(a, b))
+      : prisma.topLoad.findMany({ where: { coilId }, orderBy: [{ createdAt: "asc" }, { id: "asc" }] }),
   ]);
   if (!coil) return null;
   const byId = new Map([...first, ...last.reverse()].map((s) => [s.id, s]));

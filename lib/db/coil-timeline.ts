@@ -40,14 +40,26 @@ async function countRecords(coilId: string) {
   };
 }
 
-export async function getCoilTimeline(coilId: string, limit = 25) {
+type PartRow = { id: string; installedAt: Date; removedAt: Date | null; partNumber: string; kind: string; removalReason: string | null };
+
+/** `knownParts`: every part of the coil, when the caller has read them already (the coil page has). */
+export async function getCoilTimeline(coilId: string, limit = 25, knownParts?: readonly PartRow[]) {
   const take = limit;
+  const newest = (rows: readonly PartRow[], at: (row: PartRow) => Date | null) =>
+    rows
+      .filter((row) => at(row) !== null)
+      .sort((a, b) => at(b)!.getTime() - at(a)!.getTime() || (a.id < b.id ? 1 : a.id > b.id ? -1 : 0))
+      .slice(0, take);
   const [sessions, sweeps, failures, fitted, removed, clearances, loansOut, loansBack, counts] = await Promise.all([
     prisma.runSession.findMany({ where: { coilId }, orderBy: { startedAt: "desc" }, take, select: { id: true, startedAt: true, supplyVoltageV: true, supplyCurrentA: true, durationS: true, outcome: true } }),
     prisma.sweep.findMany({ where: { coilId }, orderBy: { takenAt: "desc" }, take, select: { id: true, takenAt: true, firstSeriesResonanceHz: true, topLoad: { select: { name: true } } } }),
     prisma.failure.findMany({ where: { coilId }, orderBy: { occurredAt: "desc" }, take, select: { id: true, occurredAt: true, mode: true, symptoms: true, status: true } }),
-    prisma.component.findMany({ where: { coilId }, orderBy: { installedAt: "desc" }, take, select: { id: true, installedAt: true, partNumber: true, kind: true } }),
-    prisma.component.findMany({ where: { coilId, removedAt: { not: null } }, orderBy: { removedAt: "desc" }, take, select: { id: true, removedAt: true, partNumber: true, kind: true, removalReason: true } }),
+    knownParts
+      ? newest(knownParts, (c) => c.installedAt)
+      : prisma.component.findMany({ where: { coilId }, orderBy: [{ installedAt: "desc" }, { id: "desc" }], take, select: { id: true, installedAt: true, partNumber: true, kind: true } }),
+    knownParts
+      ? newest(knownParts, (c) => c.removedAt)
+      : prisma.component.findMany({ where: { coilId, removedAt: { not: null } }, orderBy: [{ removedAt: "desc" }, { id: "desc" }], take, select: { id: true, removedAt: true, partNumber: true, kind: true, removalReason: true } }),
     prisma.clearance.findMany({ where: { coilId }, orderBy: { decidedAt: "desc" }, take, select: { id: true, decidedAt: true, verdict: true, validUntil: true, lapsedAt: true } }),
     prisma.loan.findMany({ where: { coilId }, orderBy: { outAt: "desc" }, take, select: { id: true, outAt: true, borrower: true, event: true } }),
     prisma.loan.findMany({ where: { coilId, returnedAt: { not: null } }, orderBy: { returnedAt: "desc" }, take, select: { id: true, returnedAt: true, borrower: true, returnCondition: true } }),

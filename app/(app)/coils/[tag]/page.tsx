@@ -46,7 +46,7 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const query = await searchParams;
   const coil = await getCoilByTag(tag);
   if (!coil) notFound();
-  const [history, timeline, policy] = await Promise.all([getCoilPageHistory(coil.id), getCoilTimeline(coil.id, 25), getCurrentPolicy()]);
+  const [history, timeline, policy] = await Promise.all([getCoilPageHistory(coil.id, coil), getCoilTimeline(coil.id, 25, coil.components), getCurrentPolicy()]);
   if (!history) notFound();
   const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
   const { health, latest } = assess(history, policy.rules);
