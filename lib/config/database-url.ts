@@ -28,6 +28,8 @@ export function databaseProvider(url: string = databaseUrl()): DatabaseProvider 
 
 /** The filesystem path of an SQLite URL. */
 export function sqliteFilePath(url: string = databaseUrl()): string {
-  if (!url.startsWith("file:")) throw new Error(`Not an SQLite file URL: ${url}`);
+  if (!url.startsWith("file:")) {
+    throw new Error("This is for the embedded SQLite file, and DATABASE_URL names a PostgreSQL server: back that up and restore it with PostgreSQL's own tools (pg_dump / pg_restore), see the README.");
+  }
   return url.slice("file:".length);
 }
