@@ -15,6 +15,7 @@ import path from "node:path";
 import { randomBytes } from "node:crypto";
 import Database from "better-sqlite3";
 import pg from "pg";
+import { localMinute, signInByHand } from "../e2e/support/http-client";
 
 const PORT = Number(process.env.BENCH_PORT ?? 3106);
 const BASE = `http://127.0.0.1:${PORT}`;
@@ -71,36 +72,6 @@ async function waitForServer(base: string, deadlineMs: number): Promise<void> {
   throw new Error(`next start did not answer on ${base} in time (run \`npm run build\` first)`);
 }
 
-/** next-auth's credentials flow by hand: CSRF token and cookie, then the callback, keeping every cookie set. */
-async function signIn(): Promise<string> {
-  const jar = new Map<string, string>();
-  const keep = (response: Response) => {
-    for (const cookie of response.headers.getSetCookie()) {
-      const [pair] = cookie.split(";");
-      const at = pair!.indexOf("=");
-      jar.set(pair!.slice(0, at), pair!.slice(at + 1));
-    }
-  };
-  const header = () => [...jar].map(([k, v]) => `${k}=${v}`).join("; ");
-  const csrf = await fetch(`${BASE}/api/auth/csrf`);
-  keep(csrf);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const callback = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: header() },
-    body: new URLSearchParams({ csrfToken, email: MEMBER.email, password: MEMBER.password, json: "true" }),
-  });
-  keep(callback);
-  if (![...jar.keys()].some((k) => k.includes("session-token"))) throw new Error(`Sign-in failed (status ${callback.status})`);
-  return header();
-}
-
-function localMinute(date: Date): string {
-  const pad = (n: number) => String(n).padStart(2, "0");
-  return `${date.getFullYear()}-${pad(date.getMonth() + 1)}-${pad(date.getDate())}T${pad(date.getHours())}:${pad(date.getMinutes())}`;
-}
-
 async function postSessions(cookie: string) {
   const latencies: number[] = [];
   const acknowledged: string[] = [];
@@ -111,7 +82,7 @@ async function postSessions(cookie: string) {
       const i = next++;
       const body = {
         coilId: COIL_IDS[i % COIL_IDS.length],
-        startedAt: localMinute(new Date(Date.now() - (i + 60) * 60_000)),
+        startedAt: localMinute(i + 60),
         supplyVoltageV: "24 V",
         supplyCurrentA: (1 + (i % 7) * 0.05).toFixed(2),
         durationS: "10 min",
@@ -145,7 +116,7 @@ export async function benchSessionLoad(): Promise<void> {
   );
   try {
     for (const base of BASES) await waitForServer(base, Date.now() + 60_000);
-    const cookie = await signIn();
+    const cookie = await signInByHand(BASE, MEMBER.email, MEMBER.password);
     const { seconds, latencies, acknowledged, statuses } = await postSessions(cookie);
     const at = (q: number) => latencies[Math.min(latencies.length - 1, Math.floor(q * latencies.length))]!;
     const serverErrors = [...statuses].filter(([status]) => status >= 500).reduce((n, [, count]) => n + count, 0);

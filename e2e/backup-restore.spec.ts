@@ -11,7 +11,8 @@ import { execFile } from "node:child_process";
 import { rmSync } from "node:fs";
 import path from "node:path";
 import { promisify } from "node:util";
-import { OwnServer, localMinute, prepareDemoDatabase, signInByHand } from "./support/own-server";
+import { OwnServer, prepareDemoDatabase } from "./support/own-server";
+import { localMinute, signInByHand } from "./support/http-client";
 import { DEMO, signInAs } from "./support/accounts";
 
 const run = promisify(execFile);

@@ -9,7 +9,8 @@
 import { expect, test } from "@playwright/test";
 import Database from "better-sqlite3";
 import path from "node:path";
-import { OwnServer, localMinute, prepareDemoDatabase, signInByHand } from "./support/own-server";
+import { OwnServer, prepareDemoDatabase } from "./support/own-server";
+import { localMinute, signInByHand } from "./support/http-client";
 import { WalWatcher, readWal } from "./support/wal";
 import { DEMO, signInAs } from "./support/accounts";
 import { createLineModel, simulateSweep } from "../lib/calc/line-model";

@@ -7,7 +7,7 @@
 import { fileURLToPath } from "node:url";
 import { expect, test, type APIRequestContext, type Page } from "@playwright/test";
 import { signInAs, type DemoRole } from "./support/accounts";
-import { localMinute } from "./support/own-server";
+import { localMinute } from "./support/http-client";
 import { discoverMutatingRoutes, ENTRY_POINT_ROLES } from "../test/support/entry-points";
 
 const RANK: Record<DemoRole, number> = { member: 1, steward: 2, admin: 3 };
