@@ -143,6 +143,8 @@ test("a burst of session writes killed hard: acknowledged sessions are whole, no
 
 const SWEEP_POINTS = 150_000;
 const SWEEP_IMPORTS = 4;
+/** Waves sent at most while waiting to catch a transaction mid-write. */
+const SWEEP_WAVES = 4;
 /** Pages a sweep's transaction must have spilled into the log, uncommitted, before the kill (4 KiB each). */
 const UNCOMMITTED_FRAMES_TO_KILL = 64;
 
@@ -163,20 +165,23 @@ test("a large sweep import killed in the middle of its transaction leaves no par
   const acknowledged: string[] = [];
   let killed: Promise<void> | null = null;
   let atKill = { committedFrames: 0, uncommittedFrames: 0 };
-  const imports = Array.from({ length: SWEEP_IMPORTS }, async (_, i) => {
-    const body = JSON.stringify({ coilId: "coil-KM-02", topLoadId: "", takenAt: new Date(Date.now() - (i + 1) * 60_000).toISOString(), seriesResistanceOhm: "22k", sourceAmplitudeV: "20", amplitudeConvention: "peak_to_peak", notes: `crash-sweep ${i}`, ...readings });
-    try {
-      const response = await fetch(`${server.baseURL}/api/sweeps/import`, { method: "POST", headers: { "content-type": "application/json", cookie }, body });
-      if (response.status !== 201) throw new Error(`POST /api/sweeps/import answered ${response.status}: ${await response.text()}`);
-      const { data } = (await response.json()) as { data: { id: string } };
-      if (!killed) acknowledged.push(data.id);
-    } catch (error) {
-      if (!killed) throw error;
-    }
-  });
+  // One wave: SWEEP_IMPORTS imports at once, which SQLite's single writer takes one after another.
+  const fireWave = (wave: number) =>
+    Array.from({ length: SWEEP_IMPORTS }, async (_, i) => {
+      const body = JSON.stringify({ coilId: "coil-KM-02", topLoadId: "", takenAt: new Date(Date.now() - (wave * SWEEP_IMPORTS + i + 1) * 60_000).toISOString(), seriesResistanceOhm: "22k", sourceAmplitudeV: "20", amplitudeConvention: "peak_to_peak", notes: `crash-sweep ${wave}-${i}`, ...readings });
+      try {
+        const response = await fetch(`${server.baseURL}/api/sweeps/import`, { method: "POST", headers: { "content-type": "application/json", cookie }, body });
+        if (response.status !== 201) throw new Error(`POST /api/sweeps/import answered ${response.status}: ${await response.text()}`);
+        const { data } = (await response.json()) as { data: { id: string } };
+        if (!killed) acknowledged.push(data.id);
+      } catch (error) {
+        if (!killed) throw error;
+      }
+    });
   // Watch the log; kill once a sweep has been acknowledged and another's transaction is visibly mid-write.
+  let watching = true;
   const watcher = (async () => {
-    while (!killed) {
+    while (!killed && watching) {
       const state = wal.read();
       if (acknowledged.length > 0 && state.uncommittedFrames >= UNCOMMITTED_FRAMES_TO_KILL) {
         atKill = state;
@@ -186,9 +191,19 @@ test("a large sweep import killed in the middle of its transaction leaves no par
       await new Promise((resolve) => setTimeout(resolve, 2));
     }
   })();
-  const settled = await Promise.race([Promise.all(imports).then(() => "all answered" as const), watcher.then(() => "killed" as const)]);
+  // The watcher polls, so on an unlucky schedule a whole wave can commit between two looks: then send another
+  // (a few at most), rather than call the harness's miss a result.
+  const imports: Promise<void>[] = [];
+  let settled: "killed" | "all answered" = "all answered";
+  for (let wave = 0; wave < SWEEP_WAVES && settled !== "killed"; wave++) {
+    const thisWave = fireWave(wave);
+    imports.push(...thisWave);
+    settled = await Promise.race([Promise.all(thisWave).then(() => "all answered" as const), watcher.then(() => "killed" as const)]);
+  }
+  watching = false;
   await killed;
   await Promise.allSettled(imports);
+  const sent = imports.length;
   expect(settled, "every import was answered before a transaction was caught mid-write").toBe("killed");
   const afterKill = readWal(`${server.dbFile}-wal`);
 
@@ -210,7 +225,7 @@ test("a large sweep import killed in the middle of its transaction leaves no par
     expect(orphans.n).toBe(0);
     test.info().annotations.push({
       type: "crash",
-      description: `${SWEEP_IMPORTS} imports of ${SWEEP_POINTS} points sent, ${acknowledged.length} acknowledged; killed with ${atKill.uncommittedFrames} uncommitted pages in the log (${afterKill.uncommittedFrames} when the process died); ${stored.length} sweeps stored, all whole`,
+      description: `${sent} imports of ${SWEEP_POINTS} points sent (${SWEEP_IMPORTS} a wave), ${acknowledged.length} acknowledged; killed with ${atKill.uncommittedFrames} uncommitted pages in the log (${afterKill.uncommittedFrames} when the process died); ${stored.length} sweeps stored, all whole`,
     });
     console.log(`[crash] sweeps: ${test.info().annotations.at(-1)!.description}`);
   } finally {
