@@ -1,5 +1,6 @@
 /** A small coil with a clean logbook that passes the default lending policy, built straight in the test database. */
 import { testDb } from "./support/db";
+import { TEST_SWITCH } from "./support/bench-fixtures";
 import { DEFAULT_LENDING_CHECKLIST } from "@/lib/calc/lending-checklist";
 
 const DAY = 86_400_000;
@@ -13,20 +14,7 @@ export async function makeCleanCoil(tag: string, now: Date, createdById?: string
   const topLoad = await testDb.topLoad.create({ data: { coilId: coil.id, name: "Small toroid", shape: "toroid", diameterM: 0.1, tubeDiameterM: 0.025 } });
   const built = new Date(now.getTime() - 30 * DAY);
   await testDb.component.create({
-    data: {
-      coilId: coil.id,
-      kind: "switch",
-      partNumber: "MJE13009",
-      switchType: "bjt",
-      voltageRatingV: 400,
-      continuousCurrentA: 12,
-      peakCurrentA: 24,
-      powerRating25CW: 100,
-      maxJunctionTempC: 150,
-      thermalResistanceJcKPerW: 1.25,
-      caseToSinkKPerW: 0.5,
-      installedAt: built,
-    },
+    data: { coilId: coil.id, ...TEST_SWITCH, installedAt: built },
   });
   await testDb.component.create({ data: { coilId: coil.id, kind: "heat_sink", partNumber: "HS-1", sinkThermalResistanceKPerW: 1.5, installedAt: built } });
   await testDb.component.create({ data: { coilId: coil.id, kind: "clamp", partNumber: "TVS-1", clampVoltageV: 150, installedAt: built } });
