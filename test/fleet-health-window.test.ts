@@ -76,7 +76,7 @@ describe("getFleetHealthHistory", () => {
     const [read, handed] = await Promise.all([getCoilPageHistory(coil.id), getCoilPageHistory(coil.id, known)]);
     expect(handed).toEqual(read);
     expect(handed!.coil).not.toHaveProperty("components");
-    const [timelineRead, timelineHanded] = await Promise.all([getCoilTimeline(coil.id), getCoilTimeline(coil.id, 25, known.components)]);
+    const [timelineRead, timelineHanded] = await Promise.all([getCoilTimeline(coil.id), getCoilTimeline(coil.id, 25, { parts: known.components })]);
     expect(timelineHanded).toEqual(timelineRead);
     expect(timelineHanded.events.filter((e) => e.kind === "part-removed")).toHaveLength(1);
   });

@@ -3,7 +3,7 @@
  * coils, every part ever fitted, every session (without heat-sink samples) and every sweep summary.
  */
 import { prisma } from "./client";
-import { Prisma, type Coil, type Component, type RunSession, type TopLoad } from "./generated/client";
+import { Prisma, type Coil, type Component, type RunSession, type Sweep, type TopLoad } from "./generated/client";
 import { HEALTH_WINDOW, selectHealthWindow } from "../analysis/health-window";
 import { findCurrentTopLoad } from "../analysis/coil-comparison";
 
@@ -26,6 +26,16 @@ const sessionSelect = {
 
 const sweepSelect = { id: true, coilId: true, takenAt: true, topLoadId: true, firstSeriesResonanceHz: true } as const;
 
+const SESSION_COLUMNS = Object.keys(sessionSelect)
+  .map((column) => `s."${column}" AS "${column}"`)
+  .join(", ");
+
+type SessionRow = { [K in keyof typeof sessionSelect]: RunSession[K] };
+const SWEEP_COLUMNS = Object.keys(sweepSelect)
+  .map((column) => `w."${column}" AS "${column}"`)
+  .join(", ");
+type SweepRow = { [K in keyof typeof sweepSelect]: Sweep[K] };
+
 function group<T extends { coilId: string }>(rows: T[]): Map<string, T[]> {
   const map = new Map<string, T[]>();
   for (const row of rows) (map.get(row.coilId) ?? map.set(row.coilId, []).get(row.coilId)!).push(row);
@@ -35,10 +45,10 @@ function group<T extends { coilId: string }>(rows: T[]): Map<string, T[]> {
 export async function getCoilHistory(coilId: string) {
   const [coil, components, sessions, sweeps, topLoads] = await Promise.all([
     prisma.coil.findUnique({ where: { id: coilId } }),
-    prisma.component.findMany({ where: { coilId }, orderBy: { installedAt: "asc" } }),
-    prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: { startedAt: "asc" } }),
-    prisma.sweep.findMany({ where: { coilId }, select: sweepSelect, orderBy: { takenAt: "asc" } }),
-    prisma.topLoad.findMany({ where: { coilId }, orderBy: { createdAt: "asc" } }),
+    prisma.component.findMany({ where: { coilId }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }),
+    prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "asc" }, { id: "asc" }] }),
+    prisma.sweep.findMany({ where: { coilId }, select: sweepSelect, orderBy: [{ takenAt: "asc" }, { id: "asc" }] }),
+    prisma.topLoad.findMany({ where: { coilId }, orderBy: [{ createdAt: "asc" }, { id: "asc" }] }),
   ]);
   return coil ? { coil, components, sessions, sweeps, topLoads } : null;
 }
@@ -65,27 +75,33 @@ function splitKnown({ components, topLoads, ...rest }: KnownCoilRecords & { crea
 export async function getCoilPageHistory(coilId: string, knownCoil?: KnownCoilRecords) {
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
   const known = knownCoil && splitKnown(knownCoil);
-  const [coil, components, first, last, sweeps, topLoads] = await Promise.all([
-    known ? known.coil : prisma.coil.findUnique({ where: { id: coilId } }),
+  // Raw statements (lib/db/raw-read.ts says why): this is the coil page's main read.
+  const [coils, components, windowRows, sweeps, topLoads] = await Promise.all([
+    known ? [known.coil] : prisma.$queryRaw<Coil[]>`SELECT * FROM "Coil" WHERE id = ${coilId}`,
     known
       ? [...known.components].sort((a, b) => a.installedAt.getTime() - b.installedAt.getTime() || compareIds(a, b))
-      : prisma.component.findMany({ where: { coilId }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }),
-    prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "asc" }, { id: "asc" }], take: baselineSessions }),
-    prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "desc" }, { id: "desc" }], take: recentSessions }),
-    prisma.sweep.findMany({ where: { coilId }, select: sweepSelect, orderBy: { takenAt: "asc" } }),
+      : prisma.$queryRaw<Component[]>`SELECT * FROM "Component" WHERE "coilId" = ${coilId} ORDER BY "installedAt", id`,
+    // Both ends of the (coilId, startedAt) index in one statement; a session in both halves comes back twice.
+    prisma.$queryRaw<RawSessionRow[]>`
+      SELECT * FROM (SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s WHERE s."coilId" = ${coilId}
+                     ORDER BY s."startedAt", s.id LIMIT ${baselineSessions}) AS baseline
+      UNION ALL
+      SELECT * FROM (SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s WHERE s."coilId" = ${coilId}
+                     ORDER BY s."startedAt" DESC, s.id DESC LIMIT ${recentSessions}) AS recent`,
+    prisma.$queryRaw<SweepRow[]>`SELECT ${Prisma.raw(SWEEP_COLUMNS)} FROM "Sweep" w WHERE w."coilId" = ${coilId} ORDER BY w."takenAt", w.id`,
     known
       ? [...known.topLoads].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || compareIds(a, b))
-      : prisma.topLoad.findMany({ where: { coilId }, orderBy: [{ createdAt: "asc" }, { id: "asc" }] }),
+      : prisma.$queryRaw<TopLoad[]>`SELECT * FROM "TopLoad" WHERE "coilId" = ${coilId} ORDER BY "createdAt", id`,
   ]);
+  const coil = coils[0];
   if (!coil) return null;
-  const byId = new Map([...first, ...last.reverse()].map((s) => [s.id, s]));
-  const sessions = [...byId.values()].sort((a, b) => a.startedAt.getTime() - b.startedAt.getTime() || a.id.localeCompare(b.id));
+  const byId = new Map(windowRows.map((row) => [row.id, toSessionRow(row)]));
+  const sessions = [...byId.values()].sort((a, b) => a.startedAt.getTime() - b.startedAt.getTime() || compareIds(a, b));
   const topLoadId = findCurrentTopLoad(topLoads, sweeps, sessions)?.id ?? null;
-  const running = await prisma.runSession.findFirst({
-    where: { coilId, topLoadId, runningFrequencyHz: { not: null } },
-    select: sessionSelect,
-    orderBy: [{ startedAt: "desc" }, { id: "desc" }],
-  });
+  const [running] = await prisma.$queryRaw<SessionRow[]>`
+    SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s
+    WHERE s."coilId" = ${coilId} AND s."topLoadId" ${topLoadId === null ? Prisma.sql`IS NULL` : Prisma.sql`= ${topLoadId}`} AND s."runningFrequencyHz" IS NOT NULL
+    ORDER BY s."startedAt" DESC, s.id DESC LIMIT 1`;
   const comparisonSessions = running && !byId.has(running.id) ? [running, ...sessions] : sessions;
   return { coil, components, sessions, comparisonSessions, sweeps, topLoads };
 }
@@ -114,11 +130,6 @@ export interface CoilSessionTotals {
 
 export type CoilHealthHistory = CoilHistory & { totals: CoilSessionTotals };
 
-const SESSION_COLUMNS = Object.keys(sessionSelect)
-  .map((column) => `s."${column}" AS "${column}"`)
-  .join(", ");
-
-type SessionRow = { [K in keyof typeof sessionSelect]: RunSession[K] };
 type RawSessionRow = Omit<SessionRow, "startedAt"> & { startedAt: Date | string };
 
 /** Raw rows carry the stored ISO text for DateTime columns; Prisma's own reads give Dates. */

@@ -159,7 +159,7 @@ export async function computeFiguresFor(coilIds: readonly string[], revisions: R
  * The revisions are read before any logbook row, which is what makes the conditional store safe.
  */
 export async function getCoilFigures(coilIds: readonly string[], policy: PolicyVersion, now: Date): Promise<Map<string, CoilFigures>> {
-  const rows = await prisma.coilSummary.findMany();
+  const rows = await prisma.$queryRaw<CoilSummary[]>`SELECT * FROM "CoilSummary"`; // raw: lib/db/raw-read.ts says why
   const rowByCoil = new Map(rows.map((row) => [row.coilId, row]));
   const figures = new Map<string, CoilFigures>();
   const stale: string[] = [];

@@ -41,34 +41,69 @@ async function countRecords(coilId: string) {
 }
 
 type PartRow = { id: string; installedAt: Date; removedAt: Date | null; partNumber: string; kind: string; removalReason: string | null };
+type SessionRow = { id: string; startedAt: Date; supplyVoltageV: number; supplyCurrentA: number; durationS: number; outcome: string };
+type SweepRow = { id: string; takenAt: Date; firstSeriesResonanceHz: number | null; topLoadId: string | null };
 
-/** `knownParts`: every part of the coil, when the caller has read them already (the coil page has). */
-export async function getCoilTimeline(coilId: string, limit = 25, knownParts?: readonly PartRow[]) {
+/**
+ * What the caller has read already (the coil page has), so the timeline does not read it again: every part, every
+ * sweep with every top load (for their names), and sessions that include at least the coil's `limit` newest.
+ */
+export interface KnownTimelineRecords {
+  parts: readonly PartRow[];
+  sweeps?: readonly SweepRow[];
+  topLoads?: readonly { id: string; name: string }[];
+  sessionsIncludingNewest?: readonly SessionRow[];
+}
+
+/** Newest first with an id tie-break, the order the raw statements below use. */
+function newestFirst<T extends { id: string }>(rows: readonly T[], at: (row: T) => Date | null, take: number): T[] {
+  return rows
+    .filter((row) => at(row) !== null)
+    .sort((a, b) => at(b)!.getTime() - at(a)!.getTime() || (a.id < b.id ? 1 : a.id > b.id ? -1 : 0))
+    .slice(0, take);
+}
+
+export async function getCoilTimeline(coilId: string, limit = 25, known?: KnownTimelineRecords) {
   const take = limit;
-  const newest = (rows: readonly PartRow[], at: (row: PartRow) => Date | null) =>
-    rows
-      .filter((row) => at(row) !== null)
-      .sort((a, b) => at(b)!.getTime() - at(a)!.getTime() || (a.id < b.id ? 1 : a.id > b.id ? -1 : 0))
-      .slice(0, take);
+  const knownParts = known?.parts;
+  const knownSweeps = known?.sweeps && known.topLoads ? { sweeps: known.sweeps, topLoadName: new Map(known.topLoads.map((t) => [t.id, t.name])) } : null;
+  // Raw statements, each newest first on its (coilId, time) index with an id tie-break (lib/db/raw-read.ts says why).
   const [sessions, sweeps, failures, fitted, removed, clearances, loansOut, loansBack, counts] = await Promise.all([
-    prisma.runSession.findMany({ where: { coilId }, orderBy: { startedAt: "desc" }, take, select: { id: true, startedAt: true, supplyVoltageV: true, supplyCurrentA: true, durationS: true, outcome: true } }),
-    prisma.sweep.findMany({ where: { coilId }, orderBy: { takenAt: "desc" }, take, select: { id: true, takenAt: true, firstSeriesResonanceHz: true, topLoad: { select: { name: true } } } }),
-    prisma.failure.findMany({ where: { coilId }, orderBy: { occurredAt: "desc" }, take, select: { id: true, occurredAt: true, mode: true, symptoms: true, status: true } }),
+    known?.sessionsIncludingNewest
+      ? newestFirst(known.sessionsIncludingNewest, (s) => s.startedAt, take)
+      : prisma.$queryRaw<SessionRow[]>`
+          SELECT id, "startedAt", "supplyVoltageV", "supplyCurrentA", "durationS", outcome FROM "RunSession"
+          WHERE "coilId" = ${coilId} ORDER BY "startedAt" DESC, id DESC LIMIT ${take}`,
+    knownSweeps
+      ? newestFirst(knownSweeps.sweeps, (s) => s.takenAt, take).map((s) => ({ ...s, topLoadName: s.topLoadId === null ? null : (knownSweeps.topLoadName.get(s.topLoadId) ?? null) }))
+      : prisma.$queryRaw<(SweepRow & { topLoadName: string | null })[]>`
+          SELECT w.id, w."takenAt", w."firstSeriesResonanceHz", w."topLoadId", t.name AS "topLoadName" FROM "Sweep" w LEFT JOIN "TopLoad" t ON t.id = w."topLoadId"
+          WHERE w."coilId" = ${coilId} ORDER BY w."takenAt" DESC, w.id DESC LIMIT ${take}`,
+    prisma.$queryRaw<{ id: string; occurredAt: Date; mode: string; symptoms: string; status: string }[]>`
+      SELECT id, "occurredAt", mode, symptoms, status FROM "Failure" WHERE "coilId" = ${coilId} ORDER BY "occurredAt" DESC, id DESC LIMIT ${take}`,
     knownParts
-      ? newest(knownParts, (c) => c.installedAt)
-      : prisma.component.findMany({ where: { coilId }, orderBy: [{ installedAt: "desc" }, { id: "desc" }], take, select: { id: true, installedAt: true, partNumber: true, kind: true } }),
+      ? newestFirst(knownParts, (c) => c.installedAt, take)
+      : prisma.$queryRaw<PartRow[]>`
+          SELECT id, "installedAt", "removedAt", "partNumber", kind, "removalReason" FROM "Component" WHERE "coilId" = ${coilId}
+          ORDER BY "installedAt" DESC, id DESC LIMIT ${take}`,
     knownParts
-      ? newest(knownParts, (c) => c.removedAt)
-      : prisma.component.findMany({ where: { coilId, removedAt: { not: null } }, orderBy: [{ removedAt: "desc" }, { id: "desc" }], take, select: { id: true, removedAt: true, partNumber: true, kind: true, removalReason: true } }),
-    prisma.clearance.findMany({ where: { coilId }, orderBy: { decidedAt: "desc" }, take, select: { id: true, decidedAt: true, verdict: true, validUntil: true, lapsedAt: true } }),
-    prisma.loan.findMany({ where: { coilId }, orderBy: { outAt: "desc" }, take, select: { id: true, outAt: true, borrower: true, event: true } }),
-    prisma.loan.findMany({ where: { coilId, returnedAt: { not: null } }, orderBy: { returnedAt: "desc" }, take, select: { id: true, returnedAt: true, borrower: true, returnCondition: true } }),
+      ? newestFirst(knownParts, (c) => c.removedAt, take)
+      : prisma.$queryRaw<PartRow[]>`
+          SELECT id, "installedAt", "removedAt", "partNumber", kind, "removalReason" FROM "Component" WHERE "coilId" = ${coilId} AND "removedAt" IS NOT NULL
+          ORDER BY "removedAt" DESC, id DESC LIMIT ${take}`,
+    prisma.$queryRaw<{ id: string; decidedAt: Date; verdict: string; validUntil: Date; lapsedAt: Date | null }[]>`
+      SELECT id, "decidedAt", verdict, "validUntil", "lapsedAt" FROM "Clearance" WHERE "coilId" = ${coilId} ORDER BY "decidedAt" DESC, id DESC LIMIT ${take}`,
+    prisma.$queryRaw<{ id: string; outAt: Date; borrower: string; event: string }[]>`
+      SELECT id, "outAt", borrower, event FROM "Loan" WHERE "coilId" = ${coilId} ORDER BY "outAt" DESC, id DESC LIMIT ${take}`,
+    prisma.$queryRaw<{ id: string; returnedAt: Date; borrower: string; returnCondition: string | null }[]>`
+      SELECT id, "returnedAt", borrower, "returnCondition" FROM "Loan" WHERE "coilId" = ${coilId} AND "returnedAt" IS NOT NULL
+      ORDER BY "returnedAt" DESC, id DESC LIMIT ${take}`,
     countRecords(coilId),
   ]);
 
   const events: TimelineEvent[] = [
     ...sessions.map((s) => ({ kind: "session" as const, at: s.startedAt, title: "Run session", detail: `${s.supplyVoltageV} V, ${s.supplyCurrentA} A for ${Math.round(s.durationS)} s (${s.outcome})`, href: `/sessions/${s.id}` })),
-    ...sweeps.map((s) => ({ kind: "sweep" as const, at: s.takenAt, title: "Sweep", detail: `${s.firstSeriesResonanceHz === null ? "no resonance found" : `first series resonance ${(s.firstSeriesResonanceHz / 1000).toFixed(1)} kHz`} (${s.topLoad?.name ?? "no top load"})`, href: `/sweeps/${s.id}` })),
+    ...sweeps.map((s) => ({ kind: "sweep" as const, at: s.takenAt, title: "Sweep", detail: `${s.firstSeriesResonanceHz === null ? "no resonance found" : `first series resonance ${(s.firstSeriesResonanceHz / 1000).toFixed(1)} kHz`} (${s.topLoadName ?? "no top load"})`, href: `/sweeps/${s.id}` })),
     ...failures.map((f) => ({ kind: "failure" as const, at: f.occurredAt, title: "Failure", detail: `${f.mode.replace(/_/g, " ")}: ${f.symptoms} (${f.status === "open" ? "post-mortem open" : "post-mortem done"})`, href: `/failures/${f.id}` })),
     ...fitted.map((c) => ({ kind: "part-fitted" as const, at: c.installedAt, title: "Part fitted", detail: `${c.partNumber} (${c.kind.replace(/_/g, " ")})`, href: null })),
     ...removed.map((c) => ({ kind: "part-removed" as const, at: c.removedAt!, title: "Part removed", detail: `${c.partNumber} (${c.kind.replace(/_/g, " ")})${c.removalReason ? `: ${c.removalReason}` : ""}`, href: null })),

@@ -4,7 +4,7 @@ import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import { serializableTransaction } from "./serializable";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
-import type { Prisma } from "./generated/client";
+import type { Coil, Component, Prisma, TopLoad } from "./generated/client";
 import { textContains } from "./text-search";
 import type { CoilInput, CoilUpdateInput } from "../validation/coil";
 
@@ -40,16 +40,25 @@ export function listCoilChoices() {
   return prisma.coil.findMany({ select: { id: true, tag: true, name: true, status: true }, orderBy: { tag: "asc" } });
 }
 
-export function getCoilByTag(tag: string) {
-  return prisma.coil.findUnique({
-    where: { tag },
-    include: {
-      topLoads: { orderBy: { createdAt: "asc" } },
-      components: { orderBy: [{ removedAt: "asc" }, { installedAt: "desc" }] },
-      createdBy: { select: { name: true } },
-    },
-  });
+/**
+ * A coil with its top loads, its parts (fitted ones first, then removed ones oldest removal first) and who recorded
+ * it; null for no such tag. Read raw: every coil page and form starts here (lib/db/raw-read.ts says why).
+ */
+export async function getCoilByTag(tag: string): Promise<CoilWithParts | null> {
+  const [row] = await prisma.$queryRaw<(Coil & { createdByName: string | null })[]>`
+    SELECT c.*, u.name AS "createdByName" FROM "Coil" c LEFT JOIN "User" u ON u.id = c."createdById" WHERE c.tag = ${tag}`;
+  if (!row) return null;
+  const [topLoads, components] = await Promise.all([
+    prisma.$queryRaw<TopLoad[]>`SELECT * FROM "TopLoad" WHERE "coilId" = ${row.id} ORDER BY "createdAt", id`,
+    // Written out rather than left to the database: SQLite sorts NULL first and PostgreSQL last.
+    prisma.$queryRaw<Component[]>`
+      SELECT * FROM "Component" WHERE "coilId" = ${row.id} ORDER BY ("removedAt" IS NOT NULL), "removedAt", "installedAt" DESC, id`,
+  ]);
+  const { createdByName, ...coil } = row;
+  return { ...coil, createdBy: createdByName === null ? null : { name: createdByName }, topLoads, components };
 }
+
+export type CoilWithParts = Coil & { createdBy: { name: string } | null; topLoads: TopLoad[]; components: Component[] };
 
 export class DuplicateTagError extends Error {
   constructor(readonly tag: string) {

@@ -6,6 +6,7 @@
  * open failures — is worked out here at read time. Filtered and sorted on the server from the query string.
  */
 import { prisma } from "./client";
+import type { Clearance, Coil, Component, Failure, Loan } from "./generated/client";
 import { getFleetHistory } from "./coil-history";
 import { getCoilFigures } from "./coil-summary";
 import { getCurrentPolicy } from "./policy";
@@ -43,21 +44,35 @@ function groupByCoil<T extends { coilId: string }>(rows: readonly T[]): Map<stri
   return map;
 }
 
+/**
+ * Each coil's latest clearance (the latest decision; ties on the instant broken by id), walking the
+ * (coilId, decidedAt) index. Prisma's `distinct` would read every clearance ever signed and drop the rest in memory.
+ */
+export function readLatestClearances() {
+  return prisma.$queryRaw<Pick<Clearance, "id" | "coilId" | "verdict" | "decidedAt" | "validUntil">[]>`
+    SELECT c.id, c."coilId", c.verdict, c."decidedAt", c."validUntil" FROM "Clearance" c
+    WHERE NOT EXISTS (SELECT 1 FROM "Clearance" d WHERE d."coilId" = c."coilId"
+                        AND (d."decidedAt" > c."decidedAt" OR (d."decidedAt" = c."decidedAt" AND d.id > c.id)))`;
+}
+
+/**
+ * The dashboard's rows. Its reads are raw statements (lib/db/raw-read.ts says why): seven small reads were most of
+ * the warm dashboard's time when they went through Prisma's query API.
+ */
 export async function getFleetOverview(now: Date = new Date()): Promise<FleetRow[]> {
-  const [coils, policy, failures, clearances, loans] = await Promise.all([
-    prisma.coil.findMany({ orderBy: { tag: "asc" }, select: { id: true, tag: true, name: true, status: true } }),
+  const [coils, policy, failures, clearances, loans, components] = await Promise.all([
+    prisma.$queryRaw<Pick<Coil, "id" | "tag" | "name" | "status">[]>`SELECT id, tag, name, status FROM "Coil" ORDER BY tag`,
     getCurrentPolicy(),
-    prisma.failure.findMany({ select: { coilId: true, occurredAt: true, mode: true, status: true } }),
-    prisma.clearance.findMany({ orderBy: { decidedAt: "desc" }, distinct: ["coilId"], select: { id: true, coilId: true, verdict: true, decidedAt: true, validUntil: true } }),
-    prisma.loan.findMany({ where: { returnedAt: null }, select: { id: true, coilId: true, borrower: true, event: true, expectedBackAt: true } }),
+    prisma.$queryRaw<Pick<Failure, "coilId" | "occurredAt" | "mode" | "status">[]>`SELECT "coilId", "occurredAt", mode, status FROM "Failure"`,
+    readLatestClearances(),
+    prisma.$queryRaw<Pick<Loan, "id" | "coilId" | "borrower" | "event" | "expectedBackAt">[]>`
+      SELECT id, "coilId", borrower, event, "expectedBackAt" FROM "Loan" WHERE "returnedAt" IS NULL`,
+    // Parts only for the clearance lapse check (a part fitted since signing), so only for coils that have a
+    // clearance: a coil never cleared shows "none" whatever its parts.
+    prisma.$queryRaw<Pick<Component, "id" | "coilId" | "kind" | "partNumber" | "installedAt" | "removedAt">[]>`
+      SELECT id, "coilId", kind, "partNumber", "installedAt", "removedAt" FROM "Component"
+      WHERE "coilId" IN (SELECT "coilId" FROM "Clearance") ORDER BY "installedAt", id`,
   ]);
-  // Parts only for the clearance lapse check (a part fitted since signing), so only for coils that have a clearance:
-  // a coil never cleared shows "none" whatever its parts.
-  const components = clearances.length === 0 ? [] : await prisma.component.findMany({
-    where: { coilId: { in: clearances.map((c) => c.coilId) } },
-    orderBy: { installedAt: "asc" },
-    select: { id: true, coilId: true, kind: true, partNumber: true, installedAt: true, removedAt: true },
-  });
   const figuresByCoil = await getCoilFigures(
     coils.map((c) => c.id),
     policy,

@@ -4,6 +4,7 @@
  * version 1 the first time it is needed.
  */
 import { prisma } from "./client";
+import type { ClearancePolicy } from "./generated/client";
 import { recordAudit } from "./audit";
 import { serializableTransaction } from "./serializable";
 import { DEFAULT_CLEARANCE_POLICY, type ClearancePolicyRules } from "../calc/clearance-policy";
@@ -18,7 +19,8 @@ export interface PolicyVersion {
 }
 
 export async function getCurrentPolicy(): Promise<PolicyVersion> {
-  const latest = await prisma.clearancePolicy.findFirst({ orderBy: { version: "desc" } });
+  // Raw: nearly every page asks (lib/db/raw-read.ts says why).
+  const [latest] = await prisma.$queryRaw<ClearancePolicy[]>`SELECT * FROM "ClearancePolicy" ORDER BY version DESC LIMIT 1`;
   if (latest) return { ...latest, rules: parseStoredPolicyRules(latest.rulesJson) };
   const created = await serializableTransaction(async (tx) => {
     // Checked again inside the transaction so two first requests cannot both create version 1.

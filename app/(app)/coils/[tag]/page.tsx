@@ -3,10 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
-import { getCoilByTag } from "@/lib/db/coils";
-import { getCoilPageHistory } from "@/lib/db/coil-history";
-import { getCoilTimeline } from "@/lib/db/coil-timeline";
-import { getCurrentPolicy } from "@/lib/db/policy";
+import { readCoilPage, type CoilPageRecords } from "@/lib/db/coil-page";
 import type { ClearancePolicyRules } from "@/lib/calc/clearance-policy";
 import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
 import { compareCoil } from "@/lib/analysis/coil-comparison";
@@ -29,7 +26,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 }
 
 /** Health judged by the current lending policy's thresholds, as the dashboard and the trends page judge it. */
-function assess(history: NonNullable<Awaited<ReturnType<typeof getCoilPageHistory>>>, rules: ClearancePolicyRules) {
+function assess(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
   try {
     const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);
     const last = analyzed.at(-1);
@@ -44,10 +41,9 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const user = await pageUser();
   const tag = decodeURIComponent((await params).tag);
   const query = await searchParams;
-  const coil = await getCoilByTag(tag);
-  if (!coil) notFound();
-  const [history, timeline, policy] = await Promise.all([getCoilPageHistory(coil.id, coil), getCoilTimeline(coil.id, 25, coil.components), getCurrentPolicy()]);
-  if (!history) notFound();
+  const records = await readCoilPage(tag);
+  if (!records) notFound();
+  const { coil, history, timeline, policy } = records;
   const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
   const { health, latest } = assess(history, policy.rules);
   const canEdit = hasRole(user.role, "steward");
