@@ -6,6 +6,7 @@ import { prisma } from "./client";
 import { Prisma, type Coil, type Component, type RunSession, type Sweep, type TopLoad } from "./generated/client";
 import { HEALTH_WINDOW, selectHealthWindow } from "../analysis/health-window";
 import { findCurrentTopLoad } from "../analysis/coil-comparison";
+import { rawDate } from "./raw-read";
 
 const sessionSelect = {
   id: true,
@@ -132,9 +133,9 @@ export type CoilHealthHistory = CoilHistory & { totals: CoilSessionTotals };
 
 type RawSessionRow = Omit<SessionRow, "startedAt"> & { startedAt: Date | string };
 
-/** Raw rows carry the stored ISO text for DateTime columns; Prisma's own reads give Dates. */
+/** A session from a compound raw statement, whose startedAt may be the stored text on SQLite (lib/db/raw-read.ts). */
 function toSessionRow(row: RawSessionRow): SessionRow {
-  return { ...row, startedAt: row.startedAt instanceof Date ? row.startedAt : new Date(row.startedAt) };
+  return { ...row, startedAt: rawDate(row.startedAt) };
 }
 
 /**
