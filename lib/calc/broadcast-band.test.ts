@@ -4,7 +4,7 @@ import { CalcInputError } from "./errors";
 
 describe("medium-wave broadcasting band", () => {
   it("runs 526.5–1606.5 kHz with 9 kHz channels in Regions 1 and 3", () => {
-    // ITU Radio Regulations Art. 5, Geneva 1975 plan (references.md, confirmed).
+    // ITU Radio Regulations Art. 5, Geneva 1975 plan (docs/references.md, confirmed).
     for (const region of [1, 3] as const) {
       expect(broadcastBand(region)).toEqual({ lowerEdge: 526_500, upperEdge: 1_606_500, channelSpacing: 9_000 });
       expect(inBroadcastBand(526_499, region)).toBe(false);
@@ -25,7 +25,7 @@ describe("medium-wave broadcasting band", () => {
   });
 
   it("covers every US AM carrier from 540 to 1700 kHz in Region 2", () => {
-    // 47 CFR §73.14: 117 carriers, 540–1700 kHz in 10 kHz steps (references.md, confirmed).
+    // 47 CFR §73.14: 117 carriers, 540–1700 kHz in 10 kHz steps (docs/references.md, confirmed).
     let count = 0;
     for (let carrier = 540_000; carrier <= 1_700_000; carrier += 10_000) {
       expect(inBroadcastBand(carrier, 2)).toBe(true);

@@ -28,13 +28,13 @@ describe("predictBuild", () => {
   });
 
   it("takes self-capacitance between Medhurst's neighbouring table values", () => {
-    // Medhurst 1947 table (references.md): ℓ/D = 3.32 lies between 3.0 (H = 0.61) and 3.5 (H = 0.67); C[pF] = H·D[cm].
+    // Medhurst 1947 table (docs/references.md): ℓ/D = 3.32 lies between 3.0 (H = 0.61) and 3.5 (H = 0.67); C[pF] = H·D[cm].
     expect(prediction.selfCapacitance).toBeGreaterThan(0.61 * diameter * 100 * 1e-12);
     expect(prediction.selfCapacitance).toBeLessThan(0.67 * diameter * 100 * 1e-12);
   });
 
   it("resonates the inductance with the summed capacitance", () => {
-    // Thomson's formula f = 1/(2π√(LC)) with C = C_self + C_top + C_env (references.md: the sum is an estimate).
+    // Thomson's formula f = 1/(2π√(LC)) with C = C_self + C_top + C_env (docs/references.md: the sum is an estimate).
     expect(prediction.totalCapacitance).toBe(prediction.selfCapacitance);
     expect(prediction.environmentCapacitance).toBe(0);
     expect(relativeError(prediction.firstResonance, 1 / (2 * Math.PI * Math.sqrt(prediction.inductance * prediction.totalCapacitance)))).toBeLessThan(1e-14);
@@ -126,7 +126,7 @@ describe("calibrateEnvironmentCapacitance", () => {
   });
 
   it("reports a negative environment capacitance as such", () => {
-    // A sweep higher than the model's bare-coil resonance implies the models overstate C (references.md, Medhurst caveat).
+    // A sweep higher than the model's bare-coil resonance implies the models overstate C (docs/references.md, Medhurst caveat).
     const bare = predictBuild(coil).firstResonance;
     const calibration = calibrateEnvironmentCapacitance(coil, [{ firstSeriesResonance: bare * 1.1, topLoad: null }]);
     expect(calibration.environmentCapacitance).toBeLessThan(0);

@@ -79,7 +79,7 @@ describe("evaluateClearance", () => {
 
   it("checks the junction margin in kelvin from the thermal margin's T_j", () => {
     const r = evaluate({});
-    // By hand (thermal chain, references.md): P = (45 − 22)/2 = 11.5 W; T_j = 45 + 11.5·(1.25 + 0.5) = 65.125 °C;
+    // By hand (thermal chain, docs/references.md): P = (45 − 22)/2 = 11.5 W; T_j = 45 + 11.5·(1.25 + 0.5) = 65.125 °C;
     // 150 − 65.125 = 84.875 K, shown rounded down to 84.8 K.
     expect(rule(r, "junction-margin").measured).toBe(84.8);
     expect(rule(r, "junction-margin").pass).toBe(true);

@@ -204,7 +204,7 @@ function broadcastRule(facts: ClearanceFacts, region: ItuRegion): ClearanceRuleR
   known.forEach((k) => requirePositive(k.field, k.f));
   const inside = known.filter((k) => inBroadcastBand(k.f, region));
   const parts = known.map((k) => `${k.name} ${round(k.f / 1e3)} kHz${inBroadcastBand(k.f, region) ? " is INSIDE the band" : ""}`);
-  // Odd harmonics of a square-wave drive in the band are worth showing, not worth blocking (references.md).
+  // Odd harmonics of a square-wave drive in the band are worth showing, not worth blocking (docs/references.md).
   const harmonics = harmonicsInBroadcastBand(known[0]!.f, region).filter((h) => h.harmonic > 1);
   const note = harmonics.length > 0 ? ` For information: odd harmonics ${harmonics.map((h) => h.harmonic).join(", ")} of a square-wave drive land in the band.` : "";
   const verdict = inside.length === 0 ? ": outside the band" : "";

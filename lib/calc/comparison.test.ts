@@ -16,7 +16,7 @@ describe("compareMeasured", () => {
   });
 
   it("uses wide default tolerances where the model is known to be loose", () => {
-    // references.md (Knight 2016): the Medhurst-based first resonance is typically ±10–20 % against measurement,
+    // docs/references.md (Knight 2016): the Medhurst-based first resonance is typically ±10–20 % against measurement,
     // so the first-resonance tolerance must be wider than the inductance one (common practice for the values).
     expect(DEFAULT_COMPARISON_TOLERANCES.firstResonance).toBeGreaterThanOrEqual(0.1);
     expect(DEFAULT_COMPARISON_TOLERANCES.firstResonance).toBeGreaterThan(DEFAULT_COMPARISON_TOLERANCES.inductance);

@@ -12,7 +12,7 @@ export type ComparedQuantity = "inductance" | "firstResonance" | "runningFrequen
  * - inductance 5 %: the current-sheet model is exact for its geometry, but measured diameters, winding
  *   length and round-wire effects (a few tenths of a percent, Rosa 1906) plus meter error add up to a few percent;
  * - firstResonance 15 %: pairing Medhurst's self-capacitance with L for a base-grounded coil is typically
- *   ±10–20 % against measurement (D. W. Knight 2016, references.md), before any top load is added;
+ *   ±10–20 % against measurement (D. W. Knight 2016, docs/references.md), before any top load is added;
  * - runningFrequency 10 %: a self-oscillating driver runs within a few percent of the first series resonance
  *   swept with the same top load; 10 % leaves room for streamer loading.
  */

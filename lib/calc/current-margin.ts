@@ -19,7 +19,7 @@ import { DEFAULT_MARGIN_THRESHOLDS, assessMargin, reportUnknownMargin, requireFi
 export const DEFAULT_SWITCH_DUTY = 0.5;
 
 /** Fraction of the period during which the supply delivers the switch pulse current (see the file comment). */
-// Energy balance with rectangular pulses (derived; references.md: I_peak ≈ I_avg / D).
+// Energy balance with rectangular pulses (derived; docs/references.md: I_peak ≈ I_avg / D).
 export function supplyConductionFraction(topology: DriverTopology, dutyPerSwitch: number): number {
   const twoPhase = topology === "push_pull" || topology === "full_bridge";
   if (topology === "single_switch") {
@@ -37,7 +37,7 @@ export function supplyConductionFraction(topology: DriverTopology, dutyPerSwitch
 }
 
 /** Peak and RMS current (A) in one switch from the average supply current. */
-// I_pk = I_avg / (supply conduction fraction), I_rms = I_pk·√D for rectangular pulses (derived; references.md).
+// I_pk = I_avg / (supply conduction fraction), I_rms = I_pk·√D for rectangular pulses (derived; docs/references.md).
 export function estimateSwitchCurrents(args: {
   supplyCurrentA: number;
   topology: DriverTopology;

@@ -86,7 +86,7 @@ describe("junctionToCaseFromRating", () => {
 
 describe("junctionTemperature", () => {
   it("adds the drop across every resistance of the chain", () => {
-    // Thermal chain Tj = Ta + P·(Rθjc + Rθcs + Rθsa) (references.md): 25 + 20 × (0.5 + 0.3 + 1.2) = 65 °C.
+    // Thermal chain Tj = Ta + P·(Rθjc + Rθcs + Rθsa) (docs/references.md): 25 + 20 × (0.5 + 0.3 + 1.2) = 65 °C.
     expect(
       junctionTemperature({ referenceTemp: 25, power: 20, resistances: { junctionToCase: 0.5, caseToSink: 0.3, sinkToAmbient: 1.2 } }),
     ).toBeCloseTo(65, 12);

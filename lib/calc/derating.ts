@@ -44,7 +44,7 @@ export function deratedPower(input: DissipationRating & { /** Case temperature, 
  * value was not recorded. The rating is the power that lifts the junction from the rated case
  * temperature to T_j,max, so this is the resistance the derating line assumes.
  */
-// Rθjc = (Tj,max − Tc,rated)/P25 (derived from the linear derating above; references.md, "The switching transistor").
+// Rθjc = (Tj,max − Tc,rated)/P25 (derived from the linear derating above; docs/references.md, "The switching transistor").
 export function junctionToCaseFromRating(rating: DissipationRating): number {
   const { ratedPower, maxJunctionTemp, ratedCaseTemp } = checkRating(rating);
   return (maxJunctionTemp - ratedCaseTemp) / ratedPower;
@@ -65,7 +65,7 @@ export interface ThermalResistances {
  * The reference is the ambient air when `sinkToAmbient` is given, otherwise the heat-sink
  * temperature (a measured sink already includes its own rise).
  */
-// Thermal chain Tj = Ta + P·(Rθjc + Rθcs + Rθsa): references.md, "The switching transistor" (Toshiba FAQ; IR datasheets).
+// Thermal chain Tj = Ta + P·(Rθjc + Rθcs + Rθsa): docs/references.md, "The switching transistor" (Toshiba FAQ; IR datasheets).
 export function junctionTemperature(input: {
   /** Ambient air temperature (with `sinkToAmbient`) or heat-sink temperature (without), °C. */
   referenceTemp: number;

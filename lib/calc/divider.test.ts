@@ -26,7 +26,7 @@ describe("dividerImpedance", () => {
   });
 
   it("agrees with the exact phasor relation Z = R·H/(1 − H) for resistive loads", () => {
-    // derived (references.md, "Sweeps through a series resistor"): invert H = Z/(R + Z) as a phasor
+    // derived (docs/references.md, "Sweeps through a series resistor"): invert H = Z/(R + Z) as a phasor
     const r = 4_700;
     for (const zTrue of [1, 47, 1_000, 4_700, 33_000, 1e6]) {
       const h = dividerPhasor(r, zTrue, 0);

@@ -43,7 +43,7 @@ export function dividerImpedance(reading: DividerReading): number {
 /**
  * The same formula on already-checked numbers, for loops over whole sweeps (no object per point).
  * Callers guarantee R > 0, 0 ≤ ratio < 1 and |phase| ≤ π/2.
- * Source: |Z/(R+Z)| = m solved for |Z| with Z = |Z|e^{jφ} (derived; /work/shared/references.md,
+ * Source: |Z/(R+Z)| = m solved for |Z| with Z = |Z|e^{jφ} (derived; docs/references.md,
  * "Sweeps through a series resistor"): |Z| = R·m·[m cos φ + √(1 − m² sin² φ)]/(1 − m²).
  */
 export function impedanceFromDividerRatio(seriesResistance: number, ratio: number, phase = 0): number {

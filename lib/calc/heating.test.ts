@@ -123,7 +123,7 @@ describe("fitHeatingCurve", () => {
   });
 
   it("says a run of 0.3 τ is too short, and a run of 4 τ is not", () => {
-    // references.md: a short run cannot pin down the asymptote — report the uncertainty
+    // docs/references.md: a short run cannot pin down the asymptote — report the uncertainty
     for (const seed of [1, 2, 3, 4, 5, 6]) {
       const short = fitHeatingCurve(warmUp(truth, 0.3 * 420, 2, 0.1, seed));
       expect(short.extrapolation).toBe("too-short");

@@ -1,14 +1,14 @@
 /**
  * Heat-sink warm-up: the first-order (lumped-capacitance) curve T(t) = Ta + ΔT∞·(1 − e^(−t/τ)),
  * fitted to a logged run so a steward can see where the sink is heading and how sure that is.
- * Real stacks have several time constants (references.md, "Heat sink warm-up"): a short run cannot
+ * Real stacks have several time constants (docs/references.md, "Heat sink warm-up"): a short run cannot
  * pin down the asymptote, so every fit says how far its extrapolation can be trusted.
  */
 import { CalcInputError, requireFinite, requireNonNegative, requirePositive } from "./errors";
 import { invertSymmetric3 } from "./invert-symmetric-3";
 import { minimizeScalar } from "./minimize-scalar";
 
-/** Specific heat of aluminium, J/(kg·K): 0.897 J/(g·K) (references.md, "Heat sink warm-up"; EDN). */
+/** Specific heat of aluminium, J/(kg·K): 0.897 J/(g·K) (docs/references.md, "Heat sink warm-up"; EDN). */
 export const ALUMINIUM_SPECIFIC_HEAT_J_PER_KG_K = 897;
 
 /** One logged reading: seconds since the power was switched on, sink temperature in °C. */
@@ -251,7 +251,7 @@ export function temperatureAt(curve: HeatingCurve, time: number): number {
 
 /**
  * Seconds after switch-on at which the curve first reaches `limitC` (°C): t = −τ·ln(1 − (T_lim − Ta)/ΔT∞),
- * defined only while the limit lies between Ta and the asymptote (references.md, "Heat sink warm-up").
+ * defined only while the limit lies between Ta and the asymptote (docs/references.md, "Heat sink warm-up").
  * 0 when the curve starts at or beyond the limit; Infinity when the limit is at or beyond the
  * asymptote, i.e. never reached.
  */
@@ -273,7 +273,7 @@ export interface ThermalMass {
   specificHeat: number;
 }
 
-/** τ = Rθ·m·c, s (lumped capacitance; "Thermal time constant versus specific heat", EDN — references.md). */
+/** τ = Rθ·m·c, s (lumped capacitance; "Thermal time constant versus specific heat", EDN — docs/references.md). */
 export function thermalTimeConstant({ thermalResistance, mass, specificHeat }: ThermalMass): number {
   return (
     requirePositive("thermalResistance", thermalResistance) * requirePositive("mass", mass) * requirePositive("specificHeat", specificHeat)

@@ -15,7 +15,7 @@ describe("sheath-helix propagation", () => {
     const sinPsi = pitch / Math.hypot(Math.PI * diameter, pitch);
     const high = sheathHelixPropagation({ diameter, pitch, frequency: 600e6 });
     expect(relativeError(high.velocityFactor, sinPsi)).toBeLessThan(1e-3);
-    // Dispersion (Sensiper 1955; references.md): at low frequency the slow wave is faster than c·sin ψ.
+    // Dispersion (Sensiper 1955; docs/references.md): at low frequency the slow wave is faster than c·sin ψ.
     const low = sheathHelixPropagation({ diameter, pitch, frequency: 300e3 });
     expect(low.velocityFactor).toBeGreaterThan(1.3 * sinPsi);
     expect(relativeError(low.phaseVelocity, low.velocityFactor * 299_792_458)).toBeLessThan(1e-15);
@@ -51,7 +51,7 @@ describe("helix modes", () => {
   });
 
   it("puts overtones below the odd multiples 3× and 5×", () => {
-    // references.md (Sensiper 1955; Corum & Corum 2001): dispersion pulls overtones below 3×, 5×…; never assume (2n − 1)·f₁.
+    // docs/references.md (Sensiper 1955; Corum & Corum 2001): dispersion pulls overtones below 3×, 5×…; never assume (2n − 1)·f₁.
     expect(prediction.modes.map((m) => m.mode)).toEqual([1, 2, 3]);
     expect(prediction.modes[1]!.ratioToFirst).toBeGreaterThan(1);
     expect(prediction.modes[1]!.ratioToFirst).toBeLessThan(3);
@@ -60,7 +60,7 @@ describe("helix modes", () => {
   });
 
   it("shows the quarter-wave-wire estimate low by a large factor for tall coils", () => {
-    // references.md: taking the wire length as a quarter wave underestimates f₁ by a large factor (about 1.7 for tall coils).
+    // docs/references.md: taking the wire length as a quarter wave underestimates f₁ by a large factor (about 1.7 for tall coils).
     for (const [diameter, length, turns] of [[0.1, 0.3, 1000], [0.1, 0.5, 1500], [0.05, 0.3, 1200]] as const) {
       const ratio = predictHelixModes({ diameter, length, turns, modeCount: 1 }).firstModeOverQuarterWave;
       expect(ratio).toBeGreaterThan(1.5);

@@ -23,7 +23,7 @@ function lundinCoefficient(diameter: number, length: number): number {
 
 describe("Nagaoka's coefficient", () => {
   it("is 0.6884 for a coil as long as it is wide", () => {
-    // Nagaoka / Rosa & Grover 1916 value, quoted in /work/shared/references.md: K = 0.6884 at D = ℓ.
+    // Nagaoka / Rosa & Grover 1916 value, quoted in docs/references.md: K = 0.6884 at D = ℓ.
     expect(nagaokaCoefficient(1, 1)).toBeCloseTo(0.6884, 4);
   });
 
@@ -46,7 +46,7 @@ describe("Nagaoka's coefficient", () => {
   });
 
   it("agrees with Lundin's 1985 handbook formula within a few ppm from ℓ/D = 0.01 to 1000", () => {
-    // Lundin, Proc. IEEE 73(9), 1985 (confirmed in references.md to be within a few ppm of the exact K).
+    // Lundin, Proc. IEEE 73(9), 1985 (confirmed in docs/references.md to be within a few ppm of the exact K).
     fc.assert(
       fc.property(fc.double({ min: -2, max: 3, noNaN: true }), (log10Ratio) => {
         const lengthOverDiameter = 10 ** log10Ratio;
@@ -129,7 +129,7 @@ describe("solenoid inductance", () => {
 
 describe("Wheeler's 1928 formula", () => {
   it("is within 1 % of Nagaoka for ℓ/D > 0.4", () => {
-    // Wheeler, Proc. IRE 16, 1928: good to about 1 % for ℓ/D > 0.4 (references.md, confirmed).
+    // Wheeler, Proc. IRE 16, 1928: good to about 1 % for ℓ/D > 0.4 (docs/references.md, confirmed).
     fc.assert(
       fc.property(fc.double({ min: 0.4, max: 100, noNaN: true }), (lengthOverDiameter) => {
         const geometry = { diameter: 0.1, length: 0.1 * lengthOverDiameter, turns: 500 };
@@ -139,7 +139,7 @@ describe("Wheeler's 1928 formula", () => {
   });
 
   it("reads about 0.6 % below Nagaoka at ℓ/D = 4", () => {
-    // references.md (Wheeler 1928 against Nagaoka): about 0.6 % low for ℓ/D ≈ 4.
+    // docs/references.md (Wheeler 1928 against Nagaoka): about 0.6 % low for ℓ/D ≈ 4.
     const geometry = { diameter: 0.1, length: 0.4, turns: 900 };
     const deviation = wheelerInductance(geometry) / solenoidInductance(geometry) - 1;
     expect(deviation).toBeLessThan(-0.005);
@@ -147,7 +147,7 @@ describe("Wheeler's 1928 formula", () => {
   });
 
   it("drifts by more than 1 % for short coils", () => {
-    // references.md: Wheeler drifts badly for short coils (outside ℓ/D > 0.4).
+    // docs/references.md: Wheeler drifts badly for short coils (outside ℓ/D > 0.4).
     const geometry = { diameter: 0.1, length: 0.02, turns: 20 };
     expect(Math.abs(wheelerInductance(geometry) / solenoidInductance(geometry) - 1)).toBeGreaterThan(0.01);
   });

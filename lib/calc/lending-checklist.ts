@@ -9,7 +9,7 @@ export interface ChecklistItem {
   id: string;
   /** The caution as the steward reads it. */
   text: string;
-  /** Where the caution comes from (references.md), or "common practice". */
+  /** Where the caution comes from (docs/references.md), or "common practice". */
   source: string;
 }
 
@@ -32,7 +32,7 @@ export const DEFAULT_LENDING_CHECKLIST: readonly ChecklistItem[] = [
   {
     id: "supply-isolated-and-switched",
     text: "The driver's supply is isolated from the mains and switched: one clearly marked switch within the operator's reach cuts it. The supply, not the arc, is the most direct lethal hazard.",
-    source: "references.md, Safety: the driver's DC supply is the most direct lethal hazard",
+    source: "docs/references.md, Safety: the driver's DC supply is the most direct lethal hazard",
   },
   {
     id: "no-vacuum-glassware",
@@ -47,7 +47,7 @@ export const DEFAULT_LENDING_CHECKLIST: readonly ChecklistItem[] = [
   {
     id: "fire-safety",
     text: "Nothing that can burn (paper, curtains, decorations, solvents) is within reach of the arcs, and a CO₂ or dry-powder extinguisher is at hand.",
-    source: "references.md, Safety: RF output can ignite things",
+    source: "docs/references.md, Safety: RF output can ignite things",
   },
   {
     id: "no-touching-arcs",

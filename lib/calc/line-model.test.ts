@@ -114,7 +114,7 @@ describe("lineModelImpedance", () => {
   });
 
   it("does not put overtones at odd multiples: dispersion pulls them down, a top load pushes them up", () => {
-    // references.md, "Why higher resonances are not odd multiples"
+    // docs/references.md, "Why higher resonances are not odd multiples"
     const f1 = 200e3;
     const dispersive = createLineModel({ firstSeriesResonance: f1, characteristicImpedance: 10e3, dispersionExponent: 0.2 });
     for (let n = 2; n <= 5; n++) {

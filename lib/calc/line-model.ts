@@ -2,7 +2,7 @@
  * A synthetic secondary, seen from its grounded base: a lossy, optionally dispersive transmission
  * line, open at the top except for a top-load capacitance. It produces impedance curves with
  * alternating series (|Z| minimum) and parallel (|Z| maximum) resonances whose spacing is NOT the
- * odd-multiple ladder of an ideal quarter-wave line (references.md: "Never assume fₙ = (2n − 1)·f₁").
+ * odd-multiple ladder of an ideal quarter-wave line (docs/references.md: "Never assume fₙ = (2n − 1)·f₁").
  * Used for demo data and to test the sweep analysis against known answers; it is not a predictor
  * of a real coil's resonances (the sheath-helix model is the physical one).
  */
@@ -141,7 +141,7 @@ export interface SimulatedSweepInput {
 }
 
 /**
- * The amplitudes a divider sweep of the model would show: |Vout| = Vin·|Z/(R + Z)| (references.md,
+ * The amplitudes a divider sweep of the model would show: |Vout| = Vin·|Z/(R + Z)| (docs/references.md,
  * "Sweeps through a series resistor"), plus optional Gaussian reading noise. A noisy reading is
  * folded to its magnitude, as an amplitude measurement never reads below zero.
  */

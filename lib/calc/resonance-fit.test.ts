@@ -3,7 +3,7 @@ import { fitResonance } from "./resonance-fit";
 
 /**
  * Readings m = |Z/(R + Z)| of an ideal isolated resonance, for which the fit's model is exact:
- * series Z = Rs + j·X′·(f − f0), parallel Y = G + j·B′·(f − f0) (references.md, "Sweeps through a
+ * series Z = Rs + j·X′·(f − f0), parallel Y = G + j·B′·(f − f0) (docs/references.md, "Sweeps through a
  * series resistor"; the half-power points are X = ±Rs and B = ±G, so Q = f0·X′/(2Rs) = f0·B′/(2G)).
  */
 function idealReadings(kind: "series" | "parallel", r: number, f0: number, q: number, level: number, fs: number[]) {

@@ -13,7 +13,7 @@
  * phase the resonance implies), (2) averages noise over every sample near the resonance rather
  * than trusting the three noisiest, and (3) yields the −3 dB bandwidth of the resonance itself
  * (X = ±R_s, or B = ±G) from the same fit, instead of reading the divider output at √2 × its
- * minimum, which underestimates Q unless R ≫ |Z| (references.md, "Sweeps through a series resistor").
+ * minimum, which underestimates Q unless R ≫ |Z| (docs/references.md, "Sweeps through a series resistor").
  * The three-point log–log parabola remains the fallback for resonances only a sample or two wide.
  */
 import { borrowScratch } from "./scratch-buffers";
@@ -70,7 +70,7 @@ export interface ResonanceFitInput {
 
 /**
  * Refines one extremum of a sorted sweep; see the module comment for the method.
- * Sources: the resonance forms above (derived; references.md, "Sweeps through a series resistor");
+ * Sources: the resonance forms above (derived; docs/references.md, "Sweeps through a series resistor");
  * Q = f₀/Δf at half power (textbook definition).
  */
 export function fitResonance(input: ResonanceFitInput): ResonanceEstimate {

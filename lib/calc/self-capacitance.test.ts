@@ -5,7 +5,7 @@ import { MEDHURST_TABLE, medhurstH, medhurstSelfCapacitance } from "./self-capac
 
 describe("Medhurst's H", () => {
   it("reproduces every node of Medhurst's 1947 table exactly", () => {
-    // Medhurst, Wireless Engineer 24, 1947 — the table as reproduced in /work/shared/references.md.
+    // Medhurst, Wireless Engineer 24, 1947 — the table as reproduced in docs/references.md.
     const table: [number, number][] = [
       [0.1, 0.96], [0.15, 0.79], [0.2, 0.7], [0.25, 0.64], [0.3, 0.6], [0.35, 0.57], [0.4, 0.54], [0.45, 0.52],
       [0.5, 0.5], [0.6, 0.48], [0.7, 0.47], [0.8, 0.46], [0.9, 0.46], [1.0, 0.46], [1.5, 0.47], [2.0, 0.5],
@@ -45,7 +45,7 @@ describe("Medhurst's H", () => {
   });
 
   it("refuses ratios outside Medhurst's 0.1–50", () => {
-    // Medhurst 1947 measured 0.1 ≤ ℓ/D ≤ 50; references.md: refuse outside.
+    // Medhurst 1947 measured 0.1 ≤ ℓ/D ≤ 50; docs/references.md: refuse outside.
     expect(() => medhurstH(0.0999)).toThrow(CalcInputError);
     expect(() => medhurstH(50.01)).toThrow(CalcInputError);
     expect(() => medhurstH(Number.NaN)).toThrow(CalcInputError);

@@ -12,7 +12,7 @@ import { CalcInputError, requirePositive } from "./errors";
 /**
  * Medhurst's H = C[pF]/D[cm] against ℓ/D (R. G. Medhurst, "H.F. resistance and self-capacitance of
  * single-layer solenoids", Wireless Engineer 24, 1947, pp. 35–43 and 80–92; as reproduced in
- * /work/shared/references.md). Pairs of [ℓ/D, H].
+ * docs/references.md). Pairs of [ℓ/D, H].
  */
 export const MEDHURST_TABLE: readonly (readonly [lengthOverDiameter: number, h: number])[] = [
   [0.1, 0.96], [0.15, 0.79], [0.2, 0.7], [0.25, 0.64], [0.3, 0.6], [0.35, 0.57], [0.4, 0.54], [0.45, 0.52],

@@ -352,7 +352,7 @@ describe("analyzeSweep Q", () => {
 
   it("reads Q from the resonance itself, not from the divider output at √2 × its minimum", () => {
     // textbook series RLC: Q = ω₀L/Rs; with R only a few times Rs the √2-reading method is far off
-    // (references.md, "Sweeps through a series resistor")
+    // (docs/references.md, "Sweeps through a series resistor")
     const rs = 1_000;
     const l = 10e-3;
     const c = 100e-12;

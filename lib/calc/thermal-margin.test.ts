@@ -6,7 +6,7 @@ const inputValue = (m: { inputs: { name: string; value: number }[] }, name: stri
 
 describe("inferSinkDissipation", () => {
   it("reads the heat through a sink from its rise over ambient", () => {
-    // Thermal chain (references.md), sink stage: (55 − 25) K / 1.5 K/W = 20 W.
+    // Thermal chain (docs/references.md), sink stage: (55 − 25) K / 1.5 K/W = 20 W.
     expect(inferSinkDissipation({ sinkTempC: 55, ambientTempC: 25, sinkToAmbientKPerW: 1.5 })).toBeCloseTo(20, 12);
     expect(inferSinkDissipation({ sinkTempC: 24, ambientTempC: 25, sinkToAmbientKPerW: 1.5 })).toBe(0);
     expect(() => inferSinkDissipation({ sinkTempC: 40, ambientTempC: 25, sinkToAmbientKPerW: 0 })).toThrow(/^sinkToAmbientKPerW/);
@@ -19,7 +19,7 @@ describe("assessThermalMargin", () => {
 
   it("infers dissipation from the sink, computes case and junction temperatures and reports the tighter criterion", () => {
     const m = assessThermalMargin({ ...device, ambientTempC: 25, heatSinkEndC: 55 });
-    // By hand from the thermal chain (references.md): P = 30/1.5 = 20 W; T_case = 55 + 20·0.5 = 65 °C;
+    // By hand from the thermal chain (docs/references.md): P = 30/1.5 = 20 W; T_case = 55 + 20·0.5 = 65 °C;
     // T_j = 55 + 20·(0.45 + 0.5) = 74 °C; linear derating (Toshiba FAQ): P_derated = 280·(150 − 65)/125 = 190.4 W.
     expect(inputValue(m, "P")).toBeCloseTo(20, 12);
     expect(inputValue(m, THERMAL_INPUT_NAMES.caseTemp)).toBeCloseTo(65, 12);

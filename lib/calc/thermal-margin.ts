@@ -24,7 +24,7 @@ export const THERMAL_INPUT_NAMES = {
 } as const;
 
 /** Heat flowing through a heat sink (W) inferred from its rise over ambient, assuming it reached steady state. */
-// P = (T_sink − T_ambient)/Rθsa: the sink stage of the thermal chain Tj = Ta + P·ΣRθ (references.md), rearranged.
+// P = (T_sink − T_ambient)/Rθsa: the sink stage of the thermal chain Tj = Ta + P·ΣRθ (docs/references.md), rearranged.
 export function inferSinkDissipation(args: { sinkTempC: number; ambientTempC: number; sinkToAmbientKPerW: number }): number {
   const rise = requireFinite("sinkTempC", args.sinkTempC) - requireFinite("ambientTempC", args.ambientTempC);
   return Math.max(0, rise) / requirePositive("sinkToAmbientKPerW", args.sinkToAmbientKPerW);
@@ -55,7 +55,7 @@ export interface ThermalMarginArgs {
  * Both reach zero headroom together when Rθjc is the one the rating implies; a datasheet Rθjc lower
  * than that makes the derating check the stricter, and the junction check catches a higher one.
  */
-// Linear derating and the thermal chain: Toshiba permissible-dissipation FAQ; onsemi/Fairchild derating curves (references.md).
+// Linear derating and the thermal chain: Toshiba permissible-dissipation FAQ; onsemi/Fairchild derating curves (docs/references.md).
 export function assessThermalMargin(args: ThermalMarginArgs): Margin {
   const thinBelow = requireInRange("thinBelowHeadroom", args.thinBelowHeadroom ?? DEFAULT_MARGIN_THRESHOLDS.thermal, 0, 1);
   const ambient = requireFinite("ambientTempC", args.ambientTempC);

@@ -20,7 +20,7 @@ describe("sphere and disc", () => {
   });
 
   it("give the thin disc 2/π of the sphere of the same radius", () => {
-    // Encyclopaedia Britannica 11th ed., "Electrostatics" (references.md, confirmed).
+    // Encyclopaedia Britannica 11th ed., "Electrostatics" (docs/references.md, confirmed).
     expect(relativeError(discCapacitance(0.3), (2 / Math.PI) * sphereCapacitance(0.3))).toBeLessThan(1e-15);
   });
 });
@@ -35,7 +35,7 @@ describe("toroid", () => {
   });
 
   it("approaches the thin-ring limit 4π²ε0R/ln(8R/r) as r/R → 0, within a shrinking tolerance", () => {
-    // Exact limit of the series (Smythe; references.md): the thin-ring formula. The tolerance r/R shrinks with the tube.
+    // Exact limit of the series (Smythe; docs/references.md): the thin-ring formula. The tolerance r/R shrinks with the tube.
     let previousGap = Number.POSITIVE_INFINITY;
     for (const tubeOverMajor of [0.3, 0.1, 1e-2, 1e-3, 1e-4, 1e-5]) {
       const majorRadius = 0.25;
@@ -64,7 +64,7 @@ describe("toroid", () => {
   it("sits below the sphere around it and below the can around it", () => {
     // Monotone under inclusion (Pólya & Szegő 1951, from memory): a torus lies inside the sphere of its outer
     // diameter and inside the closed can of the same diameter and height equal to the tube diameter.
-    // The can fit's own error (0.3 %, references.md) is far smaller than the margins here.
+    // The can fit's own error (0.3 %, docs/references.md) is far smaller than the margins here.
     for (const [outerDiameter, tubeDiameter] of [[0.6, 0.15], [0.5, 0.24], [0.3, 0.03], [1.0, 0.002]] as const) {
       const toroid = toroidCapacitance({ outerDiameter, tubeDiameter });
       expect(toroid).toBeLessThan(sphereCapacitance(outerDiameter));
@@ -81,7 +81,7 @@ describe("toroid", () => {
 
 describe("closed cylinder (can)", () => {
   it("becomes the thin disc at zero height", () => {
-    // Exact limit of the fit (references.md): [8 + 0] ε0 a = disc.
+    // Exact limit of the fit (docs/references.md): [8 + 0] ε0 a = disc.
     expect(relativeError(cylinderCapacitance({ diameter: 0.3, height: 0 }), discCapacitance(0.3))).toBeLessThan(1e-15);
   });
 

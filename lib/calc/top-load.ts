@@ -65,7 +65,7 @@ export function toroidCapacitance({ outerDiameter, tubeDiameter }: { outerDiamet
 
 /**
  * Isolated closed cylinder ("can") of radius a and height h, F: C ≈ [8 + 4.1 (h/a)^0.76] ε0 a.
- * Origin of this fit unconfirmed (see /work/shared/references.md); it tends to the thin disc 8 ε0 a as h → 0
+ * Origin of this fit unconfirmed (see docs/references.md); it tends to the thin disc 8 ε0 a as h → 0
  * and agrees with a boundary-element check within 0.3 % for h/a ≤ 8, so taller cans are refused.
  */
 export function cylinderCapacitance({ diameter, height }: { diameter: number; height: number }): number {

@@ -24,7 +24,7 @@ export const PEAK_VOLTAGE_FACTORS = {
 export type PeakVoltageFactors = { [K in keyof typeof PEAK_VOLTAGE_FACTORS]: number };
 
 /** Estimated collector/drain peak (V) from the supply and the topology, with the factor used and why. */
-// Rules of thumb per topology (references.md, "The switching transistor": several times the supply unclamped; common practice).
+// Rules of thumb per topology (docs/references.md, "The switching transistor": several times the supply unclamped; common practice).
 export function estimatePeakSwitchVoltage(args: {
   supplyVoltageV: number;
   topology: DriverTopology;
@@ -57,7 +57,7 @@ export function estimatePeakSwitchVoltage(args: {
  * Voltage margin: measured peak (or an estimate, flagged as such) against the switch's rating.
  * "Thin" below `thinBelowHeadroom` (default 0.2: Renesas advises staying within 80 % of the rated V_DSS).
  */
-// Headroom 1 − V_peak/V_rating; 80 % guidance from the Renesas knowledge base (references.md; vendor guidance, not a standard).
+// Headroom 1 − V_peak/V_rating; 80 % guidance from the Renesas knowledge base (docs/references.md; vendor guidance, not a standard).
 export function assessVoltageMargin(args: {
   /** The switch's voltage rating (V_CEO, V_DSS or V_CES), V; null when not recorded. */
   voltageRatingV?: number | null;

@@ -14,7 +14,7 @@ function warmUp(ambient: number, rise: number, tau: number, duration: number, no
 
 describe("analyzeWarmUp", () => {
   it("predicts the junction from the sink: Tj = Tsink + P·(Rθjc + Rθcs)", () => {
-    // references.md, "The switching transistor": thermal chain Tj = Ta + P·(Rθjc + Rθcs + Rθsa)
+    // docs/references.md, "The switching transistor": thermal chain Tj = Ta + P·(Rθjc + Rθcs + Rθsa)
     const result = analyzeWarmUp({
       samples: warmUp(25, 50, 300, 1_500, 0, 1),
       dissipation: 12,
@@ -29,7 +29,7 @@ describe("analyzeWarmUp", () => {
   });
 
   it("gives the time to the junction limit from the closed form", () => {
-    // derived (references.md, "Heat sink warm-up"): t = −τ·ln(1 − (T_lim − Ta)/ΔT∞), T_lim = 150 − 20·1.2
+    // derived (docs/references.md, "Heat sink warm-up"): t = −τ·ln(1 − (T_lim − Ta)/ΔT∞), T_lim = 150 − 20·1.2
     const result = analyzeWarmUp({
       samples: warmUp(20, 160, 400, 2_000, 0, 1),
       dissipation: 20,

@@ -32,7 +32,7 @@ export interface WarmUpAnalysis {
 
 /**
  * Fits the warm-up and carries it to the junction: Tj = Tsink + P·(Rθjc + Rθcs) (thermal chain;
- * references.md, "The switching transistor"), so the sink may reach junctionLimitC − P·(Rθjc + Rθcs).
+ * docs/references.md, "The switching transistor"), so the sink may reach junctionLimitC − P·(Rθjc + Rθcs).
  * Without P and Rθ the junction is taken at sink temperature, which is optimistic; the explanation says so.
  */
 export function analyzeWarmUp(input: WarmUpInput): WarmUpAnalysis {

@@ -16,7 +16,7 @@ describe("AWG diameter", () => {
   });
 
   it("agrees with the standard's rounded table to within its rounding", () => {
-    // ASTM B258 table values in inches to 0.0001 in (from memory). The table is rounded (references.md: up to about
+    // ASTM B258 table values in inches to 0.0001 in (from memory). The table is rounded (docs/references.md: up to about
     // 0.3 % off the formula), so each entry must match to half a unit in its last place, 0.00005 in.
     const table: [number, number][] = [
       [10, 0.1019],
@@ -56,7 +56,7 @@ describe("copper resistivity", () => {
   });
 
   it("rises about 0.4 %/K", () => {
-    // references.md: "about 0.4 %/K" (confirmed); α = 0.00393 /K from memory.
+    // docs/references.md: "about 0.4 %/K" (confirmed); α = 0.00393 /K from memory.
     const perKelvin = (copperResistivity(70) / copperResistivity(20) - 1) / 50;
     expect(perKelvin).toBeGreaterThan(0.0038);
     expect(perKelvin).toBeLessThan(0.0041);

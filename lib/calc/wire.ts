@@ -83,7 +83,7 @@ export function wireDcResistance({
 /**
  * AC resistance of an isolated straight round wire, Ω, with the current confined to one skin depth:
  * R = ρ ℓ/(π δ (d − δ)) when δ < d/2, else the DC value (the two agree at δ = d/2)
- * (references.md, "AC resistance of round wire"; textbook annulus approximation).
+ * (docs/references.md, "AC resistance of round wire"; textbook annulus approximation).
  * Proximity effect is neglected: in a close-wound coil it multiplies the loss by Medhurst's factor, about 1.2–5,
  * so this is a lower bound on a coil's resistance.
  */
