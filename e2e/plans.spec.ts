@@ -71,9 +71,9 @@ test("a member plans two variants and compares them; a steward saves one as a pl
   await stewardPlan.planTwoVariants();
   await stewardPlan.compare();
   await expect(stewardPlan.table().getByRole("columnheader", { name: "Tall" })).toBeVisible();
-  await stewardPage.getByLabel("Tag").fill("E2E-P1");
+  await stewardPage.getByLabel("Tag", { exact: true }).fill("E2E-P1");
   await stewardPage.getByLabel("Name", { exact: true }).fill("Planned tall");
-  await stewardPage.getByLabel("Builder").fill("Browser tester");
+  await stewardPage.getByLabel("Builder", { exact: true }).fill("Browser tester");
   await stewardPage.getByLabel("Variant to save").selectOption({ label: "Tall" });
   await stewardPage.getByRole("button", { name: "Save as a planned coil" }).click();
 
