@@ -1,5 +1,8 @@
 import { beforeEach, describe, expect, it } from "vitest";
 import { countAllRows, makeUser, resetDatabase, testDb } from "./support/db";
+import { ALL_YES, makeCleanCoil } from "./fleet-fixtures";
+import { ClearanceRefusedError, signClearance } from "@/lib/db/clearances";
+import { clearanceDecisionSchema } from "@/lib/validation/clearance";
 import { buildStoredPlan, workOutVariants } from "@/app/(app)/coils/plan/compare-variants";
 import { planBuild, type PlanPolicy } from "@/lib/analysis/build-plan";
 import { setCoilStatus, DuplicateTagError } from "@/lib/db/coils";
@@ -137,6 +140,18 @@ describe("a planned coil is not in service", () => {
     expect(active.status).toBe("active");
     // The plan stays with the coil once it is in service, so measurements keep being compared with it.
     expect(readStoredPlan(active.planJson)).not.toBeNull();
+  });
+
+  it("is not cleared for lending, though its records pass every rule, until it is set to active", async () => {
+    const steward = await makeUser("s@club.test", "steward");
+    const now = new Date();
+    const coil = await makeCleanCoil("PL-07", now);
+    await setCoilStatus(steward.id, coil.id, "planned");
+    const decision = clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES, maxSupplyVoltageV: "24 V", maxRunS: "12", conditions: "" });
+    await expect(signClearance(steward.id, decision, now)).rejects.toBeInstanceOf(ClearanceRefusedError);
+    expect(await testDb.clearance.count()).toBe(0);
+    await setCoilStatus(steward.id, coil.id, "active");
+    expect((await signClearance(steward.id, decision, now)).verdict).toBe("cleared");
   });
 
   it("keeps its plan through a JSON logbook export", async () => {
