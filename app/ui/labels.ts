@@ -6,7 +6,7 @@ export const TOPOLOGY_LABEL: Record<string, string> = {
   full_bridge: "Full bridge",
 };
 
-export const COIL_STATUS_LABEL: Record<string, string> = { active: "Active", repair: "In repair", retired: "Retired" };
+export const COIL_STATUS_LABEL: Record<string, string> = { planned: "Planned", active: "Active", repair: "In repair", retired: "Retired" };
 
 export const OUTCOME_LABEL: Record<string, string> = {
   normal: "Normal",

@@ -55,6 +55,10 @@ export async function signClearance(actorId: string, input: ClearanceDecisionInp
   const evaluated = await evaluateCoilForClearance(input.coilId, input.checklist, now);
   if (!evaluated) throw new ClearanceRefusedError("That coil does not exist.");
   const { policy, evaluation } = evaluated;
+  // A planned coil is not yet in service: it is never cleared, whatever its records say.
+  if (input.verdict === "cleared" && (await prisma.coil.findUnique({ where: { id: input.coilId }, select: { status: true } }))?.status === "planned") {
+    throw new ClearanceRefusedError("Cannot clear: the coil is only planned. Set it to active once it is built; a refusal may still be recorded.");
+  }
   if (input.verdict === "cleared" && evaluation.verdict !== "pass") {
     const failed = evaluation.rules.filter((r) => !r.pass);
     throw new ClearanceRefusedError(`Cannot clear: ${failed.length} rule${failed.length === 1 ? "" : "s"} failed (${failed.map((r) => r.label).join("; ")}). You may record a refusal instead.`, failed);

@@ -10,7 +10,7 @@ import type { CoilInput, CoilUpdateInput } from "../validation/coil";
 
 export interface CoilListFilter {
   q?: string;
-  status?: "active" | "repair" | "retired";
+  status?: "planned" | "active" | "repair" | "retired";
   sort?: "tag" | "name" | "updated";
 }
 
@@ -82,7 +82,7 @@ export async function createCoil(actorId: string, input: CoilInput) {
   }
 }
 
-export async function setCoilStatus(actorId: string, coilId: string, status: "active" | "repair" | "retired") {
+export async function setCoilStatus(actorId: string, coilId: string, status: "planned" | "active" | "repair" | "retired") {
   return prisma.$transaction(async (tx) => {
     const before = await tx.coil.findUniqueOrThrow({ where: { id: coilId }, select: { status: true, tag: true } });
     // The status is on the edit form too: bumping the version makes a form opened before this change stale.

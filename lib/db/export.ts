@@ -48,6 +48,7 @@ function toCoilDocument(coil: CoilWithEverything): CoilDocument {
     primaryDiameterM: coil.primaryDiameterM,
     environmentCapacitanceF: coil.environmentCapacitanceF,
     environmentCalibratedAt: isoOrNull(coil.environmentCalibratedAt),
+    planJson: coil.planJson,
     notes: coil.notes,
     createdAt: iso(coil.createdAt),
     createdBy: coil.createdBy?.email ?? null,

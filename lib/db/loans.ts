@@ -13,7 +13,7 @@ import { describeClearanceState, describeLendingBlock, type ClearanceStateKind }
 import { findPartReplacements } from "../analysis/clearance-facts";
 import type { LoanCreateInput, LoanReturnInput } from "../validation/loan";
 
-export type LoanRefusalReason = Exclude<ClearanceStateKind, "valid"> | "already-out" | "no-coil" | "bad-date";
+export type LoanRefusalReason = Exclude<ClearanceStateKind, "valid"> | "already-out" | "no-coil" | "bad-date" | "planned";
 
 export class LoanRefusedError extends Error {
   constructor(
@@ -74,8 +74,10 @@ export async function createLoan(actorId: string, input: LoanCreateInput, now: D
     throw new LoanRefusedError("bad-date", "Expected back: the date must be in the future.", "expectedBackAt");
   }
   return serializableTransaction(async (tx) => {
-    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
+    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true, status: true } });
     if (!coil) throw new LoanRefusedError("no-coil", "That coil does not exist.");
+    // A planned coil is not yet in service: whatever its record says, it is not lent.
+    if (coil.status === "planned") throw new LoanRefusedError("planned", `${coil.tag} is only planned; set it to active once it is built and cleared.`);
     const out = await tx.loan.findFirst({ where: { coilId: coil.id, returnedAt: null }, select: { borrower: true, expectedBackAt: true } });
     if (out) throw new LoanRefusedError("already-out", `${coil.tag} is already out on loan to ${out.borrower}; it must be returned first.`);
     const [latest, failures, components] = await Promise.all([

@@ -15,7 +15,7 @@ export const coilTagSchema = z
   .toUpperCase()
   .regex(/^[A-Z0-9][A-Z0-9-]{1,15}$/, "Tag: 2–16 letters, digits or dashes, like CY-07.");
 
-export const coilStatusSchema = z.enum(["active", "repair", "retired"], { error: "Status: choose active, repair or retired." });
+export const coilStatusSchema = z.enum(["planned", "active", "repair", "retired"], { error: "Status: choose planned, active, repair or retired." });
 export const topologySchema = z.enum(["single_switch", "push_pull", "half_bridge", "full_bridge"], {
   error: "Driver: choose single switch, push-pull, half bridge or full bridge.",
 });

@@ -157,7 +157,7 @@ export const coilDocumentSchema = z
     tag: coilTagSchema,
     name: words(80).min(1, "expected a name"),
     builderName: words(80),
-    status: z.enum(["active", "repair", "retired"]),
+    status: z.enum(["planned", "active", "repair", "retired"]),
     topology: z.enum(["single_switch", "push_pull", "half_bridge", "full_bridge"]),
     formDiameterM: positive,
     windingLengthM: positive,
@@ -171,6 +171,8 @@ export const coilDocumentSchema = z
     primaryDiameterM: optionalNum,
     environmentCapacitanceF: optionalNum,
     environmentCalibratedAt: optionalTime,
+    // The planner's stored plan (lib/validation/plan.ts storedPlanSchema) as text; absent in files from before planned coils.
+    planJson: z.string().max(200_000).nullable().default(null),
     notes: words(5_000),
     createdAt: time,
     createdBy: person,

@@ -10,7 +10,7 @@ const page = z.preprocess(first, z.coerce.number().int().min(1).max(100_000).cat
 
 export const coilListQuerySchema = z.object({
   q: optionalText,
-  status: z.preprocess(first, z.enum(["active", "repair", "retired"]).optional().catch(undefined)),
+  status: z.preprocess(first, z.enum(["planned", "active", "repair", "retired"]).optional().catch(undefined)),
   sort: z.preprocess(first, z.enum(["tag", "name", "updated"]).catch("tag").default("tag")),
   page,
 });

@@ -24,6 +24,9 @@ export const ENTRY_POINT_ROLES: Record<string, Required> = {
   "app/(app)/coils/actions.ts#createCoilAction": "steward",
   "app/(app)/coils/actions.ts#updateCoilAction": "steward",
   "app/(app)/coils/actions.ts#importLogbookAction": "steward",
+  // Any member may work out a plan (nothing is stored); saving it as a planned coil is adding a coil: stewards.
+  "app/(app)/coils/plan/actions.ts#comparePlanAction": "member",
+  "app/(app)/coils/plan/actions.ts#savePlanAction": "steward",
   "app/(app)/failures/actions.ts#recordFailure": "member",
   "app/(app)/failures/actions.ts#completePostMortemAction": "steward",
   "app/(app)/loans/actions.ts#lendCoilAction": "steward",

@@ -65,6 +65,7 @@ export function CoilForm({ mode, coilId, version, values = {} }: { mode: "new" |
         <div className="field">
           <label htmlFor="coil-status-select">Status</label>
           <select id="coil-status-select" name="status" defaultValue={typed("status") || "active"} aria-describedby="coil-status-error">
+            <option value="planned">Planned</option>
             <option value="active">Active</option>
             <option value="repair">In repair</option>
             <option value="retired">Retired</option>

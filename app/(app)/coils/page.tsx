@@ -28,6 +28,7 @@ export default async function CoilsPage({ searchParams }: { searchParams: Promis
               <Link href="/coils/import">Import</Link>
             </>
           )}
+          <Link href="/coils/plan">Plan a build</Link>
           <a href="/api/export/fleet.json">Fleet JSON</a>
           <a href="/api/export/fleet.csv">Fleet summary CSV</a>
         </div>
@@ -41,6 +42,7 @@ export default async function CoilsPage({ searchParams }: { searchParams: Promis
           <label htmlFor="status">Status</label>
           <select id="status" name="status" defaultValue={query.status ?? ""}>
             <option value="">Any</option>
+            <option value="planned">Planned</option>
             <option value="active">Active</option>
             <option value="repair">In repair</option>
             <option value="retired">Retired</option>

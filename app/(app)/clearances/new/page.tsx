@@ -34,6 +34,11 @@ export default async function NewClearancePage({ searchParams }: { searchParams:
         {formatDate(latestSession?.startedAt)}, latest sweep with the current top load {formatDate(latestSweep?.takenAt)}.
       </p>
       <SafetyCautions context="lend" />
+      {coil.status === "planned" && (
+        <p className="notice danger" role="alert">
+          {coil.tag} is only planned: it cannot be cleared until it is built and set to active. A refusal may still be recorded.
+        </p>
+      )}
       <h2>Recorded checks</h2>
       <p className={`notice ${dataRulesPass ? "ok" : "danger"}`}>
         {dataRulesPass

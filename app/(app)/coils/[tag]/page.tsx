@@ -14,6 +14,7 @@ import { formatDate, formatQuantity } from "@/lib/units/format";
 import { COIL_STATUS_LABEL, TOP_LOAD_SHAPE_LABEL, TOPOLOGY_LABEL } from "@/app/ui/labels";
 import { CoilStatusForm } from "./status-form";
 import { PredictionSection } from "./prediction-section";
+import { PlanSection } from "./plan-section";
 import { HealthSection } from "./health-section";
 import { PartsSection } from "./parts-section";
 import { TimelineSection } from "./timeline-section";
@@ -70,14 +71,19 @@ export default async function CoilPage({ params, searchParams }: Props) {
           {justSaved === "counted" ? describeTurnsCount(coil.windingLengthM, coil.wireDiameterM) : `${coil.turns} turns`}.
         </div>
       )}
+      {query.planned && (
+        <div className="notice ok" role="status">
+          Plan saved: {coil.tag} is recorded as planned, with its planned parts and figures. Set its status to active when it goes into service.
+        </div>
+      )}
       <nav aria-label="Coil actions" className="no-print actions-row">
         {canEdit && <Link href={`${base}/edit`}>Edit the build</Link>}
         {canEdit && <Link href={`${base}/top-loads/new`}>Add a top load</Link>}
         {canEdit && <Link href={`${base}/parts/new`}>Fit a part</Link>}
         <Link href={`${base}/label`}>Print label</Link>
         <Link href={`/fleet/${encodeURIComponent(coil.tag)}/trends`}>Trends</Link>
-        {canEdit && <Link href={`/clearances/new?coil=${encodeURIComponent(coil.tag)}`}>Clear for lending</Link>}
-        {canEdit && <Link href={`/loans/new?coil=${encodeURIComponent(coil.tag)}`}>Lend</Link>}
+        {canEdit && coil.status !== "planned" && <Link href={`/clearances/new?coil=${encodeURIComponent(coil.tag)}`}>Clear for lending</Link>}
+        {canEdit && coil.status !== "planned" && <Link href={`/loans/new?coil=${encodeURIComponent(coil.tag)}`}>Lend</Link>}
       </nav>
       {canEdit && <CoilStatusForm coilId={coil.id} status={coil.status} />}
 
@@ -133,6 +139,7 @@ export default async function CoilPage({ params, searchParams }: Props) {
         </section>
       </div>
 
+      <PlanSection planJson={coil.planJson} measuredInductanceH={coil.measuredInductanceH} sweeps={history.sweeps} sessions={history.sessions} />
       <PredictionSection comparison={comparison} />
       <PartsSection tag={coil.tag} parts={coil.components} canEdit={canEdit} />
       <TimelineSection tag={coil.tag} events={timeline.events} truncated={timeline.truncated} counts={timeline.counts} />

@@ -11,6 +11,7 @@ export function CoilStatusForm({ coilId, status }: { coilId: string; status: str
       <input type="hidden" name="coilId" value={coilId} />
       <label htmlFor="coil-status">Status</label>
       <select id="coil-status" name="status" defaultValue={status} aria-describedby="coil-status-result">
+        <option value="planned">Planned</option>
         <option value="active">Active</option>
         <option value="repair">In repair</option>
         <option value="retired">Retired</option>

@@ -34,6 +34,11 @@ export default async function NewLoanPage({ searchParams }: { searchParams: Prom
         Clearance: <ClearanceBadge state={state} />{" "}
         {clearance && <Link href={`/clearances/${clearance.id}`}>see the decision</Link>}
       </p>
+      {coil.status === "planned" && (
+        <p className="notice danger" role="alert">
+          {coil.tag} is only planned: it is not lent until it is built, set to active and cleared.
+        </p>
+      )}
       {block ? (
         <p className="notice danger" role="alert">
           {block} <Link href={`/clearances/new?coil=${encodeURIComponent(coil.tag)}`}>Start a clearance</Link>

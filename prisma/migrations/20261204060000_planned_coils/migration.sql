@@ -1,0 +1,3 @@
+-- AlterTable
+ALTER TABLE "Coil" ADD COLUMN "planJson" TEXT;
+

@@ -1,0 +1,6 @@
+-- AlterEnum
+ALTER TYPE "CoilStatus" ADD VALUE 'planned';
+
+-- AlterTable
+ALTER TABLE "Coil" ADD COLUMN     "planJson" TEXT;
+
