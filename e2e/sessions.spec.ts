@@ -20,6 +20,7 @@ test("a member logs a session with pasted samples and sees its margins, warm-up 
   await expect(page.locator("figure.chart canvas")).toBeVisible();
   await expect(page.getByTestId("longest-run")).toContainText(/Longest run at 18 V: (about .+ before the junction reaches|never reaches the limit)/);
   await expect(page.getByText("Extrapolation")).toBeVisible();
+  await expect(page.getByRole("heading", { level: 2, name: "Power cross-check" })).toBeVisible();
   await expect(page.getByRole("heading", { name: "Parts fitted that day" })).toBeVisible();
   await expect(page.getByRole("rowheader", { name: "KX-M200" })).toBeVisible();
 

@@ -58,6 +58,9 @@ test("import a sweep CSV, map its columns and units, preview, and see its resona
   const first = readHz(await page.locator("dl.facts").first().locator("dt:text-is('First series resonance') + dd").innerText());
   expect(Math.abs(first / FIXTURE_FIRST_RESONANCE_HZ - 1)).toBeLessThan(0.03);
   await expect(page.getByRole("table", { name: /Series resonances are \|Z\| minima/ }).getByRole("rowheader", { name: "Series 1" })).toBeVisible();
+  // the fitted frequency carries its standard error, and the |Z| note says which way the amplitude-only reading errs
+  await expect(page.getByRole("table", { name: /Series resonances are \|Z\| minima/ }).getByRole("row", { name: /Series 1/ })).toContainText(/Hz ± [\d.]+ [kM]?Hz/);
+  await expect(page.getByText(/always reads \|Z\| high, never low/)).toBeVisible();
   await expect(page.getByRole("heading", { name: "Measured against the prediction" })).toBeVisible();
   await expect(page.getByText(/(within|outside) the ±15 % tolerance/)).toBeVisible();
 });

@@ -63,6 +63,10 @@ describe("recording a sweep", () => {
     expect(sweep.takenById).toBe(member.id);
     expect(sweep.resonances.filter((r) => r.kind === "series").length).toBeGreaterThanOrEqual(1);
     expect(sweep.resonances.filter((r) => r.kind === "parallel").length).toBeGreaterThanOrEqual(1);
+    // each fitted frequency is stored with its standard error, a small fraction of the frequency
+    const firstSeries = sweep.resonances.find((r) => r.kind === "series" && r.ordinal === 1)!;
+    expect(firstSeries.frequencyStandardErrorHz).toBeGreaterThan(0);
+    expect(firstSeries.frequencyStandardErrorHz!).toBeLessThan(0.01 * firstSeries.frequencyHz);
     const after = await testDb.coil.findUniqueOrThrow({ where: { id: coil.id } });
     expect(after.environmentCapacitanceF).not.toBeNull();
     expect(after.environmentCalibratedAt).not.toBeNull();

@@ -30,6 +30,8 @@ export interface ComponentRecord {
   caseToSinkKPerW?: number | null;
   sinkThermalResistanceKPerW?: number | null;
   sinkMassKg?: number | null;
+  /** Clamp parts: the collector/drain level the clamp holds, V. */
+  clampVoltageV?: number | null;
 }
 
 export interface SessionRecord {

@@ -63,6 +63,7 @@ export function analyzeRunSession(
     {
       topology: coil.topology,
       voltageClamp: parts.clamp !== null,
+      voltageClampV: parts.clamp?.clampVoltageV ?? null,
       supplyVoltageV: session.supplyVoltageV,
       supplyCurrentA: session.supplyCurrentA,
       ambientTempC: session.ambientTempC,

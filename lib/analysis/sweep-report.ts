@@ -4,7 +4,7 @@
  * "what would this top load do?" prediction.
  */
 import { predictBuild, predictTopLoadChange, type TopLoadChangePrediction, type TopLoadSpec } from "../calc/build-prediction";
-import { broadcastBand, inBroadcastBand, type BroadcastBand, type ItuRegion } from "../calc/broadcast-band";
+import { broadcastBandAt, broadcastBands, type ItuRegion, type NamedBroadcastBand } from "../calc/broadcast-band";
 import { DEFAULT_CLEARANCE_POLICY } from "../calc/clearance-policy";
 import { compareMeasured, type Comparison } from "../calc/comparison";
 import { dividerImpedance } from "../calc/divider";
@@ -80,7 +80,7 @@ export function whatIfSpec(input: WhatIfTopLoad): TopLoadSpec {
 }
 
 export type WhatIfResult =
-  | { ok: true; prediction: TopLoadChangePrediction; inBand: boolean; band: BroadcastBand; region: number }
+  | { ok: true; prediction: TopLoadChangePrediction; inBand: boolean; band: NamedBroadcastBand; region: number }
   | { ok: false; field: string; reason: string };
 
 /**
@@ -96,7 +96,9 @@ export function predictWhatIf(
 ): WhatIfResult {
   try {
     const prediction = predictTopLoadChange(secondaryBuildOf(coil, topLoadSpecOf(currentTopLoad)), coil.environmentCapacitanceF ?? 0, whatIfSpec(input));
-    return { ok: true, prediction, inBand: inBroadcastBand(prediction.predictedFirstResonance, region), band: broadcastBand(region), region };
+    // The band the prediction lands in (long wave in Region 1, medium wave), else the region's medium-wave band for reference.
+    const band = broadcastBandAt(prediction.predictedFirstResonance, region);
+    return { ok: true, prediction, inBand: band !== null, band: band ?? (broadcastBands(region).at(-1) as NamedBroadcastBand), region };
   } catch (error) {
     if (error instanceof CalcInputError) {
       const field = error.field.replace(/^newTopLoad\./, "").replace(/^outerDiameter$/, "diameter");

@@ -97,11 +97,21 @@ describe("evaluateClearance", () => {
     expect(evaluate(low, { ...DEFAULT_CLEARANCE_POLICY, ituRegion: 3 }).verdict).toBe("pass");
   });
 
-  it("shows odd harmonics in the band without failing on them", () => {
-    // Fourier series of a square wave: odd harmonics only. 200 kHz → 600, 1000, 1400 kHz (n = 3, 5, 7) in 525–1705 kHz.
+  it("shows harmonics in the band, even ones too, without failing on them", () => {
+    // Fourier series: a single switch's drive lacks half-wave symmetry, so even harmonics appear too.
+    // 200 kHz → 600 … 1600 kHz (n = 3 … 8) in Region 2's 525–1705 kHz (ITU RR Article 5); n = 9 is 1800 kHz, out.
     const r = rule(evaluate({ runningFrequencyHz: 200e3, firstSeriesResonanceHz: 198e3 }), "broadcast-band");
     expect(r.pass).toBe(true);
-    expect(r.detail).toMatch(/odd harmonics 3, 5, 7/);
+    expect(r.detail).toMatch(/harmonics 3, 4, 5, 6, 7, 8 of the drive/);
+  });
+
+  it("fails a Region 1 fundamental in the long-wave band", () => {
+    // ITU RR Article 5, Region 1 LF broadcasting 148.5–283.5 kHz (edges from memory): 200 kHz is inside, 300 kHz is not.
+    const region1 = { ...DEFAULT_CLEARANCE_POLICY, ituRegion: 1 as const };
+    const r = rule(evaluate({ runningFrequencyHz: 200e3, firstSeriesResonanceHz: 198e3 }, region1), "broadcast-band");
+    expect(r.pass).toBe(false);
+    expect(r.detail).toMatch(/INSIDE the long-wave band/);
+    expect(rule(evaluate({ runningFrequencyHz: 300e3, firstSeriesResonanceHz: 298e3 }, region1), "broadcast-band").pass).toBe(true);
   });
 
   it("fails the band rule when no frequency is known", () => {

@@ -4,7 +4,7 @@
  * out fails its rule and says what is missing, so nothing passes silently. Passing means the coil
  * passed the team's recorded checks; it is not a statement that the build is safe.
  */
-import { broadcastBand, harmonicsInBroadcastBand, inBroadcastBand, type ItuRegion } from "./broadcast-band";
+import { broadcastBandAt, broadcastBands, harmonicsInBroadcastBand, inBroadcastBand, type ItuRegion } from "./broadcast-band";
 import { CalcInputError, requireInRange, requireNonNegative, requirePositive } from "./errors";
 import { DEFAULT_LENDING_CHECKLIST, type ChecklistItem } from "./lending-checklist";
 import type { Margin, MarginKind } from "./margin";
@@ -193,9 +193,9 @@ function junctionRule(thermal: Margin | null | undefined, policy: ClearancePolic
 }
 
 function broadcastRule(facts: ClearanceFacts, region: ItuRegion): ClearanceRuleResult {
-  const band = broadcastBand(region);
-  const threshold = `outside ${band.lowerEdge / 1e3}–${band.upperEdge / 1e3} kHz (ITU Region ${region})`;
-  const base = { id: "broadcast-band", label: "Fundamental outside the medium-wave broadcast band", threshold, unit: "Hz" };
+  const bands = broadcastBands(region);
+  const threshold = `outside ${bands.map((b) => `${b.lowerEdge / 1e3}–${b.upperEdge / 1e3} kHz`).join(" and ")} (ITU Region ${region})`;
+  const base = { id: "broadcast-band", label: bands.length > 1 ? "Fundamental outside the long- and medium-wave broadcast bands" : "Fundamental outside the medium-wave broadcast band", threshold, unit: "Hz" };
   const known = [
     { name: "running frequency", f: facts.runningFrequencyHz, field: "facts.runningFrequencyHz" },
     { name: "first series resonance", f: facts.firstSeriesResonanceHz, field: "facts.firstSeriesResonanceHz" },
@@ -203,11 +203,15 @@ function broadcastRule(facts: ClearanceFacts, region: ItuRegion): ClearanceRuleR
   if (known.length === 0) return { ...base, measured: null, pass: false, detail: "Neither a running frequency nor a swept first series resonance is recorded." };
   known.forEach((k) => requirePositive(k.field, k.f));
   const inside = known.filter((k) => inBroadcastBand(k.f, region));
-  const parts = known.map((k) => `${k.name} ${round(k.f / 1e3)} kHz${inBroadcastBand(k.f, region) ? " is INSIDE the band" : ""}`);
-  // Odd harmonics of a square-wave drive in the band are worth showing, not worth blocking (docs/references.md).
+  const parts = known.map((k) => `${k.name} ${round(k.f / 1e3)} kHz${inBroadcastBand(k.f, region) ? ` is INSIDE the ${broadcastBandAt(k.f, region)?.name} band` : ""}`);
+  // Harmonics of the drive in a band are worth showing, not worth blocking (docs/references.md); a single switch's
+  // asymmetric drive has even harmonics as well as odd (broadcast-band.ts).
   const harmonics = harmonicsInBroadcastBand(known[0]!.f, region).filter((h) => h.harmonic > 1);
-  const note = harmonics.length > 0 ? ` For information: odd harmonics ${harmonics.map((h) => h.harmonic).join(", ")} of a square-wave drive land in the band.` : "";
-  const verdict = inside.length === 0 ? ": outside the band" : "";
+  const note =
+    harmonics.length > 0
+      ? ` For information: harmonics ${harmonics.map((h) => h.harmonic).join(", ")} of the drive land in a broadcast band (a single switch's drive has even harmonics as well as odd).`
+      : "";
+  const verdict = inside.length === 0 ? ": outside the bands" : "";
   return { ...base, measured: (inside[0] ?? known[0]!).f, pass: inside.length === 0, detail: `${parts.join("; ")}${verdict}.${note}` };
 }
 

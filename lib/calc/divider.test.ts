@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { dividerImpedance, impedanceFromDividerRatio } from "./divider";
+import { amplitudeOnlyOverstatement, dividerImpedance, impedanceFromDividerRatio } from "./divider";
 import { CalcInputError } from "./errors";
 
 /** Vout/Vin as a phasor for Z = re + j·im behind a series R: H = Z/(R + Z). */
@@ -110,5 +110,37 @@ describe("dividerImpedance", () => {
     expect(() =>
       dividerImpedance({ seriesResistance: 10, sourceAmplitude: 1, measuredAmplitude: 0.5, phase: 2 }),
     ).toThrow(/phase/);
+  });
+});
+
+describe("amplitudeOnlyOverstatement", () => {
+  it("is the amplitude-only reading over the true |Z| of a reactive load, never below 1", () => {
+    // exact solution: the divider phasor H = Z/(R + Z) (docs/references.md, "Sweeps through a series resistor")
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1, max: 1e6, noNaN: true }),
+        fc.double({ min: -1.55, max: 1.55, noNaN: true }),
+        (magnitude, phase) => {
+          const r = 10_000;
+          const h = dividerPhasor(r, magnitude * Math.cos(phase), magnitude * Math.sin(phase));
+          const m = Math.hypot(h.re, h.im);
+          const amplitudeOnly = (r * m) / (1 - m);
+          const factor = amplitudeOnlyOverstatement(m, phase);
+          expect(factor).toBeCloseTo(amplitudeOnly / magnitude, 6);
+          expect(factor).toBeGreaterThanOrEqual(1 - 1e-12);
+          expect(factor).toBeLessThanOrEqual(1 / Math.cos(phase) + 1e-9);
+        },
+      ),
+    );
+  });
+
+  it("tends to 1/cos φ when |Z| ≫ R and to 1 when |Z| ≪ R", () => {
+    // derived: m → 1 gives 2/(2 cos φ); m → 0 gives 1/1
+    const phase = Math.PI / 4;
+    expect(amplitudeOnlyOverstatement(0.9999, phase)).toBeCloseTo(Math.SQRT2, 3);
+    expect(amplitudeOnlyOverstatement(1e-4, phase)).toBeCloseTo(1, 3);
+    expect(amplitudeOnlyOverstatement(0.5, 0)).toBe(1);
+    expect(() => amplitudeOnlyOverstatement(1, phase)).toThrow(/ratio/);
+    expect(() => amplitudeOnlyOverstatement(0.5, 2)).toThrow(/phase/);
   });
 });

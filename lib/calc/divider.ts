@@ -53,3 +53,17 @@ export function impedanceFromDividerRatio(seriesResistance: number, ratio: numbe
   return (seriesResistance * ratio * (ratio * Math.cos(phase) + root)) / (1 - ratio * ratio);
 }
 
+
+/**
+ * How many times the amplitude-only reading R·m/(1 − m) overstates the true |Z| when Z has phase φ:
+ * (1 + m)/(m·cos φ + √(1 − m² sin² φ)), the ratio of the two formulas above (derived; docs/references.md,
+ * "Sweeps through a series resistor"). Never below 1 (the amplitude-only reading never reads low); 1 at
+ * φ = 0; close to 1 while |Z| ≪ R (m → 0); tends to 1/cos φ as |Z| ≫ R (m → 1), √2 at ±45°,
+ * growing without bound as Z turns purely reactive between resonances.
+ */
+export function amplitudeOnlyOverstatement(ratio: number, phase: number): number {
+  const m = requireInRange("ratio", ratio, 0, 1 - Number.EPSILON);
+  const phi = requireInRange("phase", phase, -Math.PI / 2, Math.PI / 2);
+  const sin = Math.sin(phi);
+  return (1 + m) / (m * Math.cos(phi) + Math.sqrt(1 - m * m * sin * sin));
+}

@@ -38,6 +38,7 @@ export * from "./voltage-margin";
 export * from "./current-margin";
 export * from "./thermal-margin";
 export * from "./session-margins";
+export * from "./switch-losses";
 
 // Heat-sink warm-up
 export * from "./heating";

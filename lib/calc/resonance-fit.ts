@@ -1,20 +1,25 @@
 /**
- * Pinning one resonance down between the samples of a divider sweep: its frequency, its impedance
- * and, when the data allow, its Q.
+ * Pinning one resonance down between the samples of a divider sweep: its frequency with its standard
+ * error, its impedance and, when the data allow, its Q with its standard error.
  *
- * Method: a local Lorentzian fit, done as a weighted linear least-squares parabola in f of a
- * transformed reading. Near a series resonance Z = R_s + jX with X ≈ X′·(f − f₀); behind the series
- * resistor R the reading m = |Z/(R + Z)| then obeys exactly
- *   m²/(1 − m²) = (R_s² + X²)/(R(R + 2R_s))   — a parabola in f,
- * and near a parallel resonance Y = G + jB, B ≈ B′·(f − f₀):
- *   1/m² = (1 + RG)² + R²B²                      — a parabola in f as well.
- * Chosen over a three-point parabola in log f/log |Z| because it (1) is exact for an isolated
- * resonance, including the amplitude-only divider's error off resonance (the transform uses the
- * phase the resonance implies), (2) averages noise over every sample near the resonance rather
- * than trusting the three noisiest, and (3) yields the −3 dB bandwidth of the resonance itself
- * (X = ±R_s, or B = ±G) from the same fit, instead of reading the divider output at √2 × its
- * minimum, which underestimates Q unless R ≫ |Z| (docs/references.md, "Sweeps through a series resistor").
- * The three-point log–log parabola remains the fallback for resonances only a sample or two wide.
+ * Method: a resonance-model fit, done as a weighted linear least-squares quadratic in s = f² of a
+ * transformed reading. For a series RLC branch Z = R_s + jX, X = 2πL·(f − f₀²/f) = 2πL·(s − s₀)/f,
+ * behind the series resistor R the reading m = |Z/(R + Z)| obeys exactly
+ *   m²/(1 − m²)·s = (R_s²·s + (2πL)²·(s − s₀)²)/(R(R + 2R_s))   — a quadratic in s,
+ * and for a parallel RLC Y = G + jB, B = 2πC·(s − s₀)/f:
+ *   s/m² = (1 + RG)²·s + R²(2πC)²·(s − s₀)²                      — a quadratic in s as well.
+ * Both read y(s) = α·s + β·(s − s₀)², three parameters, linear in the quadratic's coefficients.
+ * An earlier version fitted a parabola in f (X ≈ X′·(f − f₀)), exact only as Q → ∞: on a broad
+ * (Q ≈ 5–10) resonance the reactance is visibly asymmetric in f (f − f₀²/f rises faster below f₀
+ * than above), and the vertex of a parabola in f drifted from f₀ by a fraction of the bandwidth,
+ * more the more lopsided the window (coarse or uneven steps). This form is exact for an isolated
+ * RLC resonance at any Q, averages noise over every sample near the resonance, and yields the Q of
+ * the resonance itself instead of reading the divider output at √2 × its minimum, which
+ * underestimates Q unless R ≫ |Z| (docs/references.md, "Sweeps through a series resistor").
+ * The fit's parameter covariance (scaled by the reduced χ² when the scatter exceeds the noise
+ * model) is propagated to f₀ and ln Q (JCGM 100:2008, GUM §5.1 — from memory).
+ * The three-point log–log parabola remains the fallback for resonances only a sample or two wide;
+ * it reports no standard error.
  */
 import { borrowScratch } from "./scratch-buffers";
 import { fitWeightedQuadratic } from "./weighted-quadratic-fit";
@@ -24,6 +29,12 @@ export type ResonanceKind = "series" | "parallel";
 export interface ResonanceEstimate {
   /** Hz */
   frequency: number;
+  /**
+   * Standard error of `frequency` from the fit, Hz (one σ, first-order propagation of the fit's
+   * covariance). Undefined for the three-point fallback and for a fit on exactly three samples,
+   * which leave nothing to judge the scatter by.
+   */
+  frequencyStandardError?: number;
   /** |Z| at resonance (resistive there, so the divider reading is exact), Ω. */
   impedance: number;
   /**
@@ -31,7 +42,9 @@ export interface ResonanceEstimate {
    * half-power points and the fit pins Δf to within MAX_Q_RELATIVE_ERROR (one standard error).
    */
   q?: number;
-  /** How the estimate was made: the Lorentzian fit, the three-point fallback, or the raw sample. */
+  /** Standard error of `q` (present exactly when `q` is). */
+  qStandardError?: number;
+  /** How the estimate was made: the resonance-model fit, the three-point fallback, or the raw sample. */
   method: "lorentzian" | "parabola" | "sample";
 }
 
@@ -41,6 +54,8 @@ const MIN_POINTS_FOR_Q = 5;
 const MIN_POINTS_WITHIN_HALF_POWER = 3;
 /** Largest relative standard error of the bandwidth for which a Q is still reported. */
 export const MAX_Q_RELATIVE_ERROR = 0.1;
+/** Fewest samples a refit window is widened to, so the fit has scatter left to judge itself by. */
+const MIN_FIT_POINTS = 6;
 /** Refits on f₀ ± Δf until the window stops changing, at most this often. */
 const MAX_REFITS = 4;
 
@@ -132,18 +147,31 @@ export function fitResonance(input: ResonanceFitInput): ResonanceEstimate {
     fit.bandwidthRelativeError <= MAX_Q_RELATIVE_ERROR;
   return {
     frequency: fit.frequency,
+    ...(fit.frequencyStandardError === null ? {} : { frequencyStandardError: fit.frequencyStandardError }),
     impedance,
-    ...(resolved ? { q: fit.frequency / fit.bandwidth } : {}),
+    ...(resolved ? { q: fit.q, qStandardError: fit.q * fit.bandwidthRelativeError } : {}),
     method: "lorentzian",
   };
 }
 
-/** Indices of the samples within centre ± halfWidth, grown outward from `peak`, inside from … to. */
+/**
+ * Indices of the samples within centre ± halfWidth, grown outward from `peak`, inside from … to,
+ * then widened a sample at a time (on the side whose next sample is nearer the centre) until it
+ * holds MIN_FIT_POINTS: a coarse sweep may have only two or three samples within ±Δf of a sharp
+ * resonance, too few to judge the fit's scatter. The model stays exact beyond ±Δf for an isolated
+ * resonance; the neighbouring turning points still bound the window.
+ */
 function bandWindow(f: Float64Array, peak: number, from: number, to: number, centre: number, halfWidth: number): [number, number] {
   let lo = peak;
   let hi = peak;
   while (lo > from && (f[lo - 1] as number) >= centre - halfWidth) lo--;
   while (hi < to && (f[hi + 1] as number) <= centre + halfWidth) hi++;
+  while (hi - lo + 1 < MIN_FIT_POINTS && (lo > from || hi < to)) {
+    const below = lo > from ? centre - (f[lo - 1] as number) : Number.POSITIVE_INFINITY;
+    const above = hi < to ? (f[hi + 1] as number) - centre : Number.POSITIVE_INFINITY;
+    if (below <= above) lo--;
+    else hi++;
+  }
   return [lo, hi];
 }
 
@@ -159,18 +187,25 @@ function parallelTransform(m: number): number {
 
 interface WindowFit {
   frequency: number;
-  /** The transformed reading at the vertex. */
+  /** Standard error of the frequency, Hz; null when the fit has no covariance (three samples). */
+  frequencyStandardError: number | null;
+  /** α of the module comment: the transformed reading m²/(1 − m²) or 1/m² at resonance. */
   vMin: number;
-  /** Full −3 dB bandwidth, Hz. */
+  q: number;
+  /** Full −3 dB bandwidth f₀/Q, Hz. */
   bandwidth: number;
-  /** Standard error of ln(bandwidth); Infinity when it cannot be estimated. */
+  /** Standard error of ln Q (= that of ln Δf); Infinity when it cannot be estimated. */
   bandwidthRelativeError: number;
 }
 
 /**
- * The transformed readings of samples lo … hi against u = (f − centre)/half-width, weighted by
- * 1/σ_v², σ_v = |dv/dm|·σ_m with σ_m² = (relative·m)² + absolute²: dv/dm = 2m/(1 − m²)² (series),
- * −2/m³ (parallel). Null unless the vertex is a minimum inside the window and physically possible.
+ * Fits y = v·s/s_c against u = (s − s_c)/h, s = f², s_c and h the centre and half-width of the
+ * window in s, weighted by 1/σ_y², σ_y = (s/s_c)·|dv/dm|·σ_m with σ_m² = (relative·m)² + absolute²:
+ * dv/dm = 2m/(1 − m²)² (series), −2/m³ (parallel). In these variables the model of the module
+ * comment reads y = α·(1 + u/k) + c·(u − u₀)², k = s_c/h, so the quadratic a + b·u + c·u² gives
+ * u₀ as the root of c·u² + 2ck·u + (k·b − a) = 0 nearer zero, α = a − c·u₀², f₀ = √(h·(k + u₀)),
+ * Q² = c·k·(k + u₀)/α (series: ω₀L/R_s) or Q = √(c·k·(k + u₀))/(√α − 1) (parallel: ω₀C/G).
+ * Null unless the resonance lies inside the window and is physically possible.
  */
 function fitWindow(
   series: boolean,
@@ -184,65 +219,100 @@ function fitWindow(
   const count = hi - lo + 1;
   if (count < 3) return null;
   const u = scratch.subarray(0, count);
-  const v = scratch.subarray(count, 2 * count);
+  const y = scratch.subarray(count, 2 * count);
   const w = scratch.subarray(2 * count, 3 * count);
   const fLo = f[lo] as number;
   const fHi = f[hi] as number;
-  const centre = (fLo + fHi) / 2;
-  const scale = (fHi - fLo) / 2;
-  for (let k = 0; k < count; k++) {
-    const m = ratio[lo + k] as number;
-    u[k] = ((f[lo + k] as number) - centre) / scale;
+  const centre = (fLo * fLo + fHi * fHi) / 2;
+  const halfWidth = (fHi * fHi - fLo * fLo) / 2;
+  const k = centre / halfWidth;
+  for (let i = 0; i < count; i++) {
+    const m = ratio[lo + i] as number;
+    const fi = f[lo + i] as number;
+    const s = fi * fi;
+    const scale = s / centre;
+    u[i] = (s - centre) / halfWidth;
     const sigmaM2 = noise.relative * noise.relative * m * m + noise.absolute * noise.absolute;
+    let slope: number;
     if (series) {
       const oneMinus = 1 - m * m;
-      v[k] = (m * m) / oneMinus;
-      const slope = (2 * m) / (oneMinus * oneMinus);
-      w[k] = 1 / (slope * slope * sigmaM2);
+      y[i] = (scale * m * m) / oneMinus;
+      slope = (2 * m) / (oneMinus * oneMinus);
     } else {
-      v[k] = 1 / (m * m);
-      const m3 = m * m * m;
-      w[k] = (m3 * m3) / (4 * sigmaM2);
+      y[i] = scale / (m * m);
+      slope = 2 / (m * m * m);
     }
+    w[i] = 1 / (scale * scale * slope * slope * sigmaM2);
   }
-  const fit = fitWeightedQuadratic(u, v, w, count);
+  const fit = fitWeightedQuadratic(u, y, w, count);
   if (fit === null || !(fit.c > 0)) return null;
   const { a, b, c } = fit;
-  const frequency = centre + (scale * -b) / (2 * c);
+  const d = (k * b - a) / c;
+  if (!(k * k - d > 0)) return null;
+  const root = Math.sqrt(k * k - d); // = k + u₀ > 0, i.e. s₀ > 0
+  const u0 = -d / (k + root); // the root nearer zero, written without cancellation
+  const frequency = Math.sqrt(halfWidth * root);
   if (!(frequency >= fLo && frequency <= fHi)) return null;
-  const vMin = a - (b * b) / (4 * c);
-  // Half power: X² = R_s², i.e. c·u² = vMin (series); R²B² = (RG)², i.e. c·u² = (√vMin − 1)² (parallel).
-  // d ln(Δf)/d vMin, for the error propagation below.
-  let dLogBandDv: number;
-  let bandwidth: number;
-  if (series) {
-    if (!(vMin > 0)) return null;
-    bandwidth = 2 * scale * Math.sqrt(vMin / c);
-    dLogBandDv = 1 / (2 * vMin);
-  } else {
-    if (!(vMin > 1)) return null;
-    const root = Math.sqrt(vMin);
-    bandwidth = (2 * scale * (root - 1)) / Math.sqrt(c);
-    dLogBandDv = 1 / (2 * root * (root - 1));
-  }
-  return { frequency, vMin, bandwidth, bandwidthRelativeError: logBandwidthError(fit.covariance, b, c, dLogBandDv) };
+  const vMin = a - c * u0 * u0;
+  if (series ? !(vMin > 0) : !(vMin > 1)) return null;
+  const q = series ? Math.sqrt((c * k * root) / vMin) : Math.sqrt(c * k * root) / (Math.sqrt(vMin) - 1);
+
+  // Gradients with respect to (a, b, c), by implicit differentiation of the root.
+  const dU = [1 / (2 * c * root), -k / (2 * c * root), -(u0 * u0 + 2 * k * u0) / (2 * c * root)];
+  const dAlpha = [1 - 2 * c * u0 * (dU[0] as number), -2 * c * u0 * (dU[1] as number), -u0 * u0 - 2 * c * u0 * (dU[2] as number)];
+  const dFrequency = dU.map((x) => (x * halfWidth) / (2 * frequency));
+  const alphaFactor = series ? 1 / (2 * vMin) : 1 / (2 * Math.sqrt(vMin) * (Math.sqrt(vMin) - 1));
+  const dLogQ = [0, 1, 2].map((j) => (dU[j] as number) / (2 * root) + (j === 2 ? 1 / (2 * c) : 0) - alphaFactor * (dAlpha[j] as number));
+  const covariance = absoluteCovariance(fit.covariance, u, y, w, count, a, b, c);
+  const frequencyVariance = covariance === null ? null : quadraticForm(covariance, dFrequency);
+  const logQVariance = covariance === null ? null : quadraticForm(covariance, dLogQ);
+  return {
+    frequency,
+    frequencyStandardError: frequencyVariance === null || !(frequencyVariance >= 0) ? null : Math.sqrt(frequencyVariance),
+    vMin,
+    q,
+    bandwidth: frequency / q,
+    bandwidthRelativeError: logQVariance === null || !(logQVariance >= 0) ? Number.POSITIVE_INFINITY : Math.sqrt(logQVariance),
+  };
 }
 
 /**
- * Standard error of ln Δf by first-order propagation (gᵀ·Cov·g) through vMin = a − b²/(4c) and the
- * −½·ln c that both bandwidth forms share (JCGM 100:2008, GUM §5.1 — from memory).
+ * The fit's covariance with the scatter judged against the noise model: the weights are absolute
+ * (1/σ² from the sweep's own noise estimate), so Cov = (XᵀWX)⁻¹·max(1, χ²/ν), ν = N − 3 — the
+ * reduced χ² only ever widens it, when the samples scatter more than the noise model says (model
+ * error, a neighbouring resonance, a glitch). fitWeightedQuadratic scales by χ²/ν itself, which is
+ * undone here. (Press et al., Numerical Recipes, §15.4 and §15.6 — from memory.)
  */
-function logBandwidthError(covariance: Float64Array | null, b: number, c: number, dLogBandDv: number): number {
-  if (covariance === null) return Number.POSITIVE_INFINITY;
-  const g0 = dLogBandDv;
-  const g1 = (-dLogBandDv * b) / (2 * c);
-  const g2 = (dLogBandDv * b * b) / (4 * c * c) - 1 / (2 * c);
-  const g = [g0, g1, g2];
+function absoluteCovariance(
+  covariance: Float64Array | null,
+  u: Float64Array,
+  y: Float64Array,
+  w: Float64Array,
+  count: number,
+  a: number,
+  b: number,
+  c: number,
+): Float64Array | null {
+  if (covariance === null) return null;
+  let chiSquare = 0;
+  for (let i = 0; i < count; i++) {
+    const ui = u[i] as number;
+    const r = (y[i] as number) - (a + ui * (b + ui * c));
+    chiSquare += (w[i] as number) * r * r;
+  }
+  const reduced = chiSquare / (count - 3);
+  if (!(reduced > 0)) return covariance; // an exact fit: nothing scatters, the covariance is zero
+  const factor = Math.max(1, reduced) / reduced;
+  return covariance.map((x) => x * factor);
+}
+
+/** gᵀ·Cov·g for a 3×3 row-major covariance. */
+function quadraticForm(covariance: Float64Array, g: readonly number[]): number {
   let variance = 0;
   for (let r = 0; r < 3; r++) {
-    for (let k = 0; k < 3; k++) variance += (g[r] as number) * (covariance[3 * r + k] as number) * (g[k] as number);
+    for (let j = 0; j < 3; j++) variance += (g[r] as number) * (covariance[3 * r + j] as number) * (g[j] as number);
   }
-  return variance >= 0 ? Math.sqrt(variance) : Number.POSITIVE_INFINITY;
+  return variance;
 }
 
 /**

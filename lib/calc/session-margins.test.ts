@@ -27,13 +27,27 @@ describe("sessionMargins", () => {
     expect(m.voltage.kind).toBe("voltage");
     // common practice: 130 V from 24 V against 140 V is far too little headroom.
     expect(m.voltage.status).toBe("thin");
-    // common practice: 2.5 A average at 50 % duty → 5 A peak, well inside 20 A / 12 A.
+    // derived (current-margin.ts): a single switch's ramp at 50 % duty peaks at 2·2.5/0.5 = 10 A, inside 20 A / 12 A.
     expect(m.current.status).toBe("ok");
     expect(m.thermal.kind).toBe("thermal");
     // The switch row's case-to-sink value is used when the path gives none.
     expect(m.thermal.inputs.find((i) => i.name === "Rθcs")).toMatchObject({ value: 0.4, estimated: false });
     // P = (52 − 22)/2 = 15 W; T_case = 52 + 15·0.4 = 58 °C; P_derated = 100·92/125 = 73.6 W (linear derating, Toshiba FAQ).
     expect(m.thermal.inputs.find((i) => i.name === "P_derated")?.value).toBeCloseTo(73.6, 9);
+  });
+
+  it("derates the continuous current rating at the case temperature the thermal chain works out", () => {
+    const m = sessionMargins(session, switchRow, { sinkThermalResistanceKPerW: 2 });
+    // T_case = 58 °C (above); linear derating as for power (docs/references.md): 12·(150 − 58)/(150 − 25) = 8.832 A
+    expect(m.current.inputs.find((i) => i.name === "T_case")?.value).toBeCloseTo(58, 9);
+    expect(m.current.inputs.find((i) => i.name === "I_continuous,derated")?.value).toBeCloseTo(8.832, 9);
+  });
+
+  it("takes a clamped single switch's unmeasured peak from the clamp's recorded voltage", () => {
+    const clamped = { ...session, peakSwitchVoltageV: null, voltageClamp: true, voltageClampV: 150 };
+    const m = sessionMargins(clamped, { ...switchRow, voltageRatingV: 200 }, { sinkThermalResistanceKPerW: 2 });
+    // project requirement (issue 15's worked example): 24 V supply, 150 V clamp, 200 V part → 25 % headroom
+    expect(m.voltage.headroom).toBeCloseTo(0.25, 12);
   });
 
   it("applies the caller's thresholds", () => {

@@ -6,7 +6,7 @@
 import { assessCurrentMargin } from "./current-margin";
 import type { DriverTopology } from "./driver-topology";
 import { DEFAULT_MARGIN_THRESHOLDS, type Margin, type MarginThresholds } from "./margin";
-import { assessThermalMargin } from "./thermal-margin";
+import { THERMAL_INPUT_NAMES, assessThermalMargin } from "./thermal-margin";
 import { assessVoltageMargin, type PeakVoltageFactors } from "./voltage-margin";
 
 /** What was recorded about one run session, plus the driver it ran on. */
@@ -14,6 +14,8 @@ export interface SessionForMargins {
   topology: DriverTopology;
   /** A single-switch driver with a diode clamp into a capacitor bled to the supply. */
   voltageClamp?: boolean;
+  /** The fitted clamp's recorded voltage (clamp component's clampVoltageV), V; null when not recorded. */
+  voltageClampV?: number | null;
   supplyVoltageV: number;
   /** Average supply current. */
   supplyCurrentA: number;
@@ -62,7 +64,8 @@ export interface SessionMargins {
 }
 
 /** Voltage, current and thermal margins of one session (see the three assess…Margin functions for the methods). */
-// Methods and sources: voltage-margin.ts (Renesas 80 % guidance), current-margin.ts (I_peak ≈ I_avg/D), thermal-margin.ts (linear derating).
+// Methods and sources: voltage-margin.ts (clamp voltage or supply multiple; Renesas 80 % guidance), current-margin.ts
+// (ramp or rectangle from I_avg, continuous rating derated by T_case), thermal-margin.ts (linear derating).
 export function sessionMargins(
   session: SessionForMargins,
   switchRatings: SwitchRatings,
@@ -70,6 +73,21 @@ export function sessionMargins(
   options: SessionMarginOptions = {},
 ): SessionMargins {
   const thresholds: MarginThresholds = { ...DEFAULT_MARGIN_THRESHOLDS, ...options.thresholds };
+  const thermal = assessThermalMargin({
+    ambientTempC: session.ambientTempC,
+    heatSinkEndC: session.heatSinkEndC,
+    sinkSteadyStateC: session.sinkSteadyStateC,
+    dissipationW: session.dissipationW,
+    sinkToAmbientKPerW: thermalPath.sinkThermalResistanceKPerW,
+    caseToSinkKPerW: thermalPath.caseToSinkKPerW ?? switchRatings.caseToSinkKPerW,
+    junctionToCaseKPerW: switchRatings.thermalResistanceJcKPerW,
+    ratedPowerW: switchRatings.powerRating25CW,
+    maxJunctionTempC: switchRatings.maxJunctionTempC,
+    switchesOnSink: thermalPath.switchesOnSink,
+    thinBelowHeadroom: thresholds.thermal,
+  });
+  // The case temperature the thermal chain worked out (read by its input name only), to derate the continuous current rating.
+  const caseTemp = thermal.inputs.find((input) => input.name === THERMAL_INPUT_NAMES.caseTemp);
   return {
     voltage: assessVoltageMargin({
       voltageRatingV: switchRatings.voltageRatingV,
@@ -77,6 +95,7 @@ export function sessionMargins(
       supplyVoltageV: session.supplyVoltageV,
       topology: session.topology,
       clamped: session.voltageClamp,
+      clampVoltageV: session.voltageClampV,
       factors: options.peakVoltageFactors,
       thinBelowHeadroom: thresholds.voltage,
     }),
@@ -86,20 +105,11 @@ export function sessionMargins(
       dutyCycle: session.dutyCycle,
       peakCurrentA: switchRatings.peakCurrentA,
       continuousCurrentA: switchRatings.continuousCurrentA,
+      caseTempC: caseTemp?.value ?? null,
+      caseTempEstimated: caseTemp?.estimated ?? true,
+      maxJunctionTempC: switchRatings.maxJunctionTempC,
       thinBelowHeadroom: thresholds.current,
     }),
-    thermal: assessThermalMargin({
-      ambientTempC: session.ambientTempC,
-      heatSinkEndC: session.heatSinkEndC,
-      sinkSteadyStateC: session.sinkSteadyStateC,
-      dissipationW: session.dissipationW,
-      sinkToAmbientKPerW: thermalPath.sinkThermalResistanceKPerW,
-      caseToSinkKPerW: thermalPath.caseToSinkKPerW ?? switchRatings.caseToSinkKPerW,
-      junctionToCaseKPerW: switchRatings.thermalResistanceJcKPerW,
-      ratedPowerW: switchRatings.powerRating25CW,
-      maxJunctionTempC: switchRatings.maxJunctionTempC,
-      switchesOnSink: thermalPath.switchesOnSink,
-      thinBelowHeadroom: thresholds.thermal,
-    }),
+    thermal,
   };
 }

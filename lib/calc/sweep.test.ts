@@ -405,6 +405,68 @@ describe("analyzeSweep Q", () => {
   });
 });
 
+describe("analyzeSweep on broad resonances (Q 5–10), coarse uneven steps, seeded noise", () => {
+  // Exact series-RLC and parallel-RLC impedances behind the series resistor (docs/references.md,
+  // "Sweeps through a series resistor": the divider reading is exact for a known Z), 30 readings
+  // over 0.5–1.8 × f0 with steps between 0.3× and 1.7× the mean (about 4 % of f0 each), 1 % noise.
+  const f0 = 250e3;
+  const w0 = 2 * Math.PI * f0;
+  const seeds = Array.from({ length: 200 }, (_, i) => 1_000 + i);
+  const cases = [
+    { kind: "series" as const, q: 5 },
+    { kind: "series" as const, q: 10 },
+    { kind: "parallel" as const, q: 5 },
+    { kind: "parallel" as const, q: 10 },
+  ];
+  for (const { kind, q } of cases) {
+    it(`locates a ${kind} resonance at Q = ${q} closer than the raw extreme sample, with an honest standard error`, () => {
+      const resistance = kind === "series" ? 2_000 : 20_000;
+      let impedance: (f: number) => { re: number; im: number };
+      if (kind === "series") {
+        const rs = 200;
+        const l = (q * rs) / w0; // Q = ω0·L/Rs
+        impedance = seriesRlc(rs, l, 1 / (w0 * w0 * l));
+      } else {
+        const rp = 20_000;
+        const l = rp / (q * w0); // Q = Rp/(ω0·L)
+        impedance = parallelRlc(rp, l, 1 / (w0 * w0 * l));
+      }
+      let fitError = 0;
+      let sampleError = 0;
+      let fitCloser = 0;
+      let withinOne = 0;
+      let withinThree = 0;
+      for (const seed of seeds) {
+        const points = readings(impedance, unevenFrequencies(30, 0.5 * f0, 1.8 * f0, seed), { noise: 0.01, seed: seed + 7, resistance });
+        const result = analyzeSweep({ seriesResistance: resistance, sourceAmplitude: VIN, points });
+        const found = kind === "series" ? result.seriesResonances : result.parallelResonances;
+        const other = kind === "series" ? result.parallelResonances : result.seriesResonances;
+        expect(found.length).toBe(1);
+        expect(other).toEqual([]);
+        const resonance = found[0] as (typeof found)[number];
+        const extreme = points.reduce((best, p) =>
+          (kind === "series" ? p.amplitude < best.amplitude : p.amplitude > best.amplitude) ? p : best,
+        );
+        const error = Math.abs(resonance.frequency - f0);
+        fitError += error;
+        sampleError += Math.abs(extreme.frequency - f0);
+        if (error < Math.abs(extreme.frequency - f0)) fitCloser++;
+        const standardError = resonance.frequencyStandardError;
+        expect(standardError).toBeGreaterThan(0);
+        if (error <= (standardError ?? 0)) withinOne++;
+        if (error <= 3 * (standardError ?? 0)) withinThree++;
+      }
+      // closer than the raw sample on average, and in most sweeps
+      expect(fitError).toBeLessThan(0.2 * sampleError);
+      expect(fitCloser / seeds.length).toBeGreaterThan(0.75);
+      // coverage: a Gaussian error lies within 1σ 68 % and within 3σ 99.7 % of the time (textbook)
+      expect(withinThree / seeds.length).toBeGreaterThanOrEqual(0.95);
+      expect(withinOne / seeds.length).toBeGreaterThan(0.5);
+      expect(withinOne / seeds.length).toBeLessThan(0.98); // an inflated error would cover everything
+    });
+  }
+});
+
 describe("analyzeSweep input checks", () => {
   const ok = (frequency: number, amplitude = 5): SweepPoint => ({ frequency, amplitude });
   const fieldOf = (call: () => unknown) => {

@@ -48,12 +48,16 @@ export interface SweepInput {
 }
 
 export interface SeriesResonance {
-  /** Hz */
+  /** Hz, from a resonance-model fit around the extremum (resonance-fit.ts), not the raw sample. */
   frequency: number;
+  /** One standard error of `frequency`, Hz; omitted when the fit could not judge it (too few samples). */
+  frequencyStandardError?: number;
   /** |Z| at resonance (resistive there), Ω. */
   impedance: number;
   /** Q = f₀/Δf of this resonance; omitted unless the data bracket both half-power points. */
   q?: number;
+  /** One standard error of `q`; present exactly when `q` is. */
+  qStandardError?: number;
 }
 
 /** Same fields as a series resonance; `impedance` is the peak |Z|, Ω. */
@@ -104,7 +108,9 @@ export function analyzeSweep(input: SweepInput): SweepAnalysis {
       absoluteNoise: noise.absolute,
     });
     const resonance: SeriesResonance = { frequency: fit.frequency, impedance: fit.impedance };
+    if (fit.frequencyStandardError !== undefined) resonance.frequencyStandardError = fit.frequencyStandardError;
     if (fit.q !== undefined) resonance.q = fit.q;
+    if (fit.qStandardError !== undefined) resonance.qStandardError = fit.qStandardError;
     (kind === -1 ? seriesResonances : parallelResonances).push(resonance);
   }
   return {

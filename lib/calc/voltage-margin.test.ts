@@ -99,3 +99,42 @@ describe("assessVoltageMargin", () => {
     );
   });
 });
+
+describe("assessVoltageMargin with a recorded clamp voltage", () => {
+  it("takes a clamped single switch's peak as the clamp voltage: 24 V supply, 150 V clamp, 200 V part → 25 % headroom", () => {
+    // project requirement (issue 15's worked example, not an outside source): 1 − 150/200 = 0.25, where the
+    // 2.7 × supply rule read 1 − 64.8/200 = 0.676
+    const m = assessVoltageMargin({ voltageRatingV: 200, supplyVoltageV: 24, topology: "single_switch", clamped: true, clampVoltageV: 150 });
+    expect(m.headroom).toBeCloseTo(0.25, 12);
+    expect(m.inputs.find((i) => i.name === "V_peak")?.value).toBe(150);
+    expect(m.estimated).toBe(false);
+    expect(m.notes.join(" ")).toMatch(/nothing added for the clamp's own overshoot/);
+    const old = assessVoltageMargin({ voltageRatingV: 200, supplyVoltageV: 24, topology: "single_switch", clamped: true });
+    expect(old.headroom).toBeCloseTo(1 - (2.7 * 24) / 200, 12);
+  });
+
+  it("keeps the supply multiple, marked an estimate, when the clamp's voltage is not recorded, and says so", () => {
+    const m = assessVoltageMargin({ voltageRatingV: 200, supplyVoltageV: 24, topology: "single_switch", clamped: true, clampVoltageV: null });
+    expect(m.estimated).toBe(true);
+    expect(m.inputs[0]?.value).toBeCloseTo(2.7 * 24, 12);
+    expect(m.notes.join(" ")).toMatch(/clamp is fitted but its voltage is not recorded/);
+  });
+
+  it("leaves an unclamped switch on the supply multiple, ignoring a stray clamp voltage", () => {
+    const m = assessVoltageMargin({ voltageRatingV: 200, supplyVoltageV: 24, topology: "single_switch", clamped: false, clampVoltageV: 150 });
+    expect(m.inputs[0]?.value).toBeCloseTo(5 * 24, 12);
+    expect(m.estimated).toBe(true);
+  });
+
+  it("prefers a measured peak and notes overshoot beyond the clamp", () => {
+    const m = assessVoltageMargin({ voltageRatingV: 200, peakSwitchVoltageV: 170, supplyVoltageV: 24, topology: "single_switch", clamped: true, clampVoltageV: 150 });
+    expect(m.headroom).toBeCloseTo(1 - 170 / 200, 12);
+    expect(m.notes.join(" ")).toMatch(/overshoots the clamp/);
+  });
+
+  it("flags a clamp voltage at or below the supply and refuses a non-positive one", () => {
+    const m = assessVoltageMargin({ voltageRatingV: 200, supplyVoltageV: 48, topology: "single_switch", clamped: true, clampVoltageV: 40 });
+    expect(m.notes.join(" ")).toMatch(/not above the supply/);
+    expect(() => assessVoltageMargin({ voltageRatingV: 200, supplyVoltageV: 24, topology: "single_switch", clamped: true, clampVoltageV: -5 })).toThrow(/clampVoltageV/);
+  });
+});

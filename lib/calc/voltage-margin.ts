@@ -56,6 +56,13 @@ export function estimatePeakSwitchVoltage(args: {
 /**
  * Voltage margin: measured peak (or an estimate, flagged as such) against the switch's rating.
  * "Thin" below `thinBelowHeadroom` (default 0.2: Renesas advises staying within 80 % of the rated V_DSS).
+ *
+ * Unmeasured peak of a clamped single switch: the clamp's recorded voltage (the level it holds the
+ * collector/drain to), not a multiple of the supply. Nothing is added for the clamp's own overshoot
+ * (its turn-on time and lead inductance): that is layout-specific and only a measured peak shows it,
+ * so the notes ask for one. Without a recorded clamp voltage the supply multiple stays, marked an
+ * estimate. Worked example (issue 15, a project requirement): 24 V supply, 150 V clamp, 200 V part →
+ * headroom 1 − 150/200 = 25 % (the 2.7 × supply rule gave 1 − 64.8/200 ≈ 68 %).
  */
 // Headroom 1 − V_peak/V_rating; 80 % guidance from the Renesas knowledge base (docs/references.md; vendor guidance, not a standard).
 export function assessVoltageMargin(args: {
@@ -66,6 +73,11 @@ export function assessVoltageMargin(args: {
   supplyVoltageV: number;
   topology: DriverTopology;
   clamped?: boolean;
+  /**
+   * The fitted clamp's recorded voltage (Component kind "clamp", clampVoltageV): the collector/drain
+   * level it holds the switch to, V. Null or absent when not recorded; ignored unless `clamped`.
+   */
+  clampVoltageV?: number | null;
   factors?: Partial<PeakVoltageFactors>;
   thinBelowHeadroom?: number;
 }): Margin {
@@ -76,9 +88,18 @@ export function assessVoltageMargin(args: {
   if (rating !== undefined) requirePositive("voltageRatingV", rating);
   const measured = requireFiniteOrAbsent("peakSwitchVoltageV", args.peakSwitchVoltageV);
   if (measured !== undefined) requirePositive("peakSwitchVoltageV", measured);
+  const clampVoltage = args.clamped ? requireFiniteOrAbsent("clampVoltageV", args.clampVoltageV) : undefined;
+  if (clampVoltage !== undefined) requirePositive("clampVoltageV", clampVoltage);
+  // Only a single switch's clamp is modelled (the topologies' rules of thumb above say why the others differ).
+  const creditedClampV = args.topology === "single_switch" ? clampVoltage : undefined;
 
   const inputs: MarginInput[] = [];
   const notes: string[] = [];
+  if (clampVoltage !== undefined && clampVoltage <= supply) {
+    notes.push(
+      `The recorded clamp voltage (${formatVolts(clampVoltage)}) is not above the supply (${formatVolts(supply)}): the clamp would conduct all the time, so check the clamp's record.`,
+    );
+  }
   if (measured !== undefined) {
     inputs.push({ name: "V_peak", value: measured, unit: "V", estimated: false, source: "measured collector/drain peak" });
     if (measured < supply) {
@@ -86,6 +107,17 @@ export function assessVoltageMargin(args: {
         `The measured peak (${formatVolts(measured)}) is below the supply (${formatVolts(supply)}); the switch must block at least the supply, so check the probe attenuation setting.`,
       );
     }
+    if (creditedClampV !== undefined && measured > creditedClampV) {
+      notes.push(`The measured peak overshoots the clamp's recorded ${formatVolts(creditedClampV)} (its turn-on time and lead inductance); the measurement is used.`);
+    }
+  } else if (creditedClampV !== undefined) {
+    inputs.push(
+      { name: "V_peak", value: creditedClampV, unit: "V", estimated: false, source: "recorded clamp voltage: the clamp holds the collector/drain there" },
+      { name: "V_supply", value: supply, unit: "V", estimated: false, source: "session supply voltage" },
+    );
+    notes.push(
+      `Peak not measured: taken as the clamp's recorded ${formatVolts(creditedClampV)}, with nothing added for the clamp's own overshoot (its turn-on time and lead inductance); measure the collector/drain peak to include it.`,
+    );
   } else {
     const estimate = estimatePeakSwitchVoltage({ supplyVoltageV: supply, topology: args.topology, clamped: args.clamped, factors: args.factors });
     inputs.push(
@@ -97,6 +129,9 @@ export function assessVoltageMargin(args: {
         args.topology === "single_switch" ? (args.clamped ? " with a clamp" : " without a clamp") : ""
       }. Measure the collector/drain peak to replace this estimate.`,
     );
+    if (args.clamped && args.topology === "single_switch") {
+      notes.push("A clamp is fitted but its voltage is not recorded: the peak is a rule-of-thumb multiple of the supply. Record the clamp voltage on the clamp component.");
+    }
     if (args.clamped && args.topology !== "single_switch") {
       notes.push("The clamp is not credited for this topology: the estimate keeps the unclamped factor.");
     }

@@ -131,7 +131,16 @@ export async function recordSweep(actorId: string, input: SweepRecordInput, how:
       ];
       if (resonances.length > 0) {
         await tx.sweepResonance.createMany({
-          data: resonances.map(({ kind, ordinal, r }) => ({ sweepId: sweep.id, kind, ordinal, frequencyHz: r.frequency, impedanceOhm: r.impedance, q: r.q ?? null })),
+          data: resonances.map(({ kind, ordinal, r }) => ({
+            sweepId: sweep.id,
+            kind,
+            ordinal,
+            frequencyHz: r.frequency,
+            impedanceOhm: r.impedance,
+            q: r.q ?? null,
+            frequencyStandardErrorHz: r.frequencyStandardError ?? null,
+            qStandardError: r.qStandardError ?? null,
+          })),
         });
       }
       const calibrationNote = await recalibrateCoil(tx, coil);

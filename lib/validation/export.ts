@@ -74,7 +74,17 @@ const sweepSchema = z.object({
   createdAt: time,
   points: z.array(z.object({ frequencyHz: positive, amplitudeV: num })).max(100_000, "expected at most 100 000 points"),
   resonances: z.array(
-    z.object({ id, kind: z.enum(["series", "parallel"]), ordinal: z.number().int("expected a whole number").min(1), frequencyHz: positive, impedanceOhm: num, q: optionalNum }),
+    z.object({
+      id,
+      kind: z.enum(["series", "parallel"]),
+      ordinal: z.number().int("expected a whole number").min(1),
+      frequencyHz: positive,
+      impedanceOhm: num,
+      q: optionalNum,
+      // absent from files written before the fit reported its standard errors
+      frequencyStandardErrorHz: optionalNum.optional(),
+      qStandardError: optionalNum.optional(),
+    }),
   ),
 });
 

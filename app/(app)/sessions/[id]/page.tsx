@@ -9,6 +9,8 @@ import { COMPONENT_KIND_LABEL, FAILURE_MODE_LABEL, OUTCOME_LABEL } from "@/app/u
 import { MARGIN_KIND_LABEL } from "@/app/ui/margin-labels";
 import { MarginDetails } from "./margin-details";
 import { WarmUpSection } from "./warm-up-section";
+import { checkSwitchLosses } from "@/lib/analysis/switch-loss-check";
+import { PowerCrossCheckSection } from "./power-cross-check-section";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -104,6 +106,7 @@ export default async function SessionPage({ params }: Props) {
       </section>
 
       <WarmUpSection analysis={analysis} samples={session.samples} supplyVoltageV={session.supplyVoltageV} />
+      <PowerCrossCheckSection check={checkSwitchLosses(session.coil, session, analysis)} />
 
       <section aria-labelledby="parts">
         <h2 id="parts">Parts fitted that day</h2>

@@ -81,6 +81,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
         <dt>First series resonance</dt>
         <dd>
           <strong>{formatQuantity(sweep.firstSeriesResonanceHz, "Hz", 4)}</strong>
+          {typeof series[0]?.frequencyStandardErrorHz === "number" && ` ± ${formatQuantity(series[0].frequencyStandardErrorHz, "Hz", 2)} (one standard error of the fit)`}
         </dd>
         <dt>Taken by</dt>
         <dd>{sweep.takenBy?.name ?? "—"}</dd>
@@ -97,7 +98,10 @@ export default async function SweepPage({ params, searchParams }: Props) {
         <LineChart title={`|Z| of ${sweep.coil.tag} seen through ${formatQuantity(sweep.seriesResistanceOhm, "Ω")}`} series={chartSeries} x={{ label: "Frequency", format: "frequency", log: true }} y={{ label: "|Z|", format: "ohms", log: true }} />
         <p className="muted">
           |Z| = R·m/(1 − m), m = reading ÷ source amplitude, assumes the coil&apos;s impedance is in phase with the current (resistive). That holds at the
-          resonances themselves; between them |Z| may be misread by up to a factor of √2.
+          resonances themselves. Between them the impedance has a phase φ, and a reading of amplitudes alone always reads |Z| high, never low: by a
+          factor (1 + m)/(m·cos φ + √(1 − m²·sin² φ)), close to 1 where |Z| is well below R and approaching 1/cos φ where it is well above R (√2 at
+          ±45°, 3× at ±70°, without limit as the coil turns purely reactive). Only the resonances&apos; frequencies, impedances and Q are read where
+          this error vanishes.
           {curve.decimated &&
             ` The chart shows ${curve.points.length} of ${curve.total} readings: the lowest and highest in each narrow slice of frequency, so no peak or dip is lost; the analysis used them all.`}
         </p>

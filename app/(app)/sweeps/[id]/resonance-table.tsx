@@ -7,6 +7,13 @@ interface StoredResonance {
   frequencyHz: number;
   impedanceOhm: number;
   q: number | null;
+  frequencyStandardErrorHz: number | null;
+  qStandardError: number | null;
+}
+
+/** "± 120 Hz" beside a fitted value, or nothing when the fit could not judge its own error. */
+function plusMinus(standardError: number | null, format: (value: number) => string): string {
+  return standardError === null ? "" : ` ± ${format(standardError)}`;
 }
 
 export function ResonanceTable({ resonances }: { resonances: StoredResonance[] }) {
@@ -16,7 +23,11 @@ export function ResonanceTable({ resonances }: { resonances: StoredResonance[] }
       <h2 id="resonances">Resonances found</h2>
       <div className="table-wrap">
         <table>
-          <caption>Series resonances are |Z| minima, parallel resonances |Z| maxima; Q only where the readings bracket both half-power points.</caption>
+          <caption>
+            Series resonances are |Z| minima, parallel resonances |Z| maxima, each located by fitting a resonance model to the readings around
+            it (not the highest or lowest reading, which is off by up to half a frequency step and biased on a broad peak). ± is one standard
+            error of the fit; Q only where the readings bracket both half-power points.
+          </caption>
           <thead>
             <tr>
               <th scope="col">Resonance</th>
@@ -31,9 +42,12 @@ export function ResonanceTable({ resonances }: { resonances: StoredResonance[] }
                 <th scope="row">
                   {r.kind === "series" ? "Series" : "Parallel"} {r.ordinal}
                 </th>
-                <td className="num">{formatQuantity(r.frequencyHz, "Hz", 4)}</td>
+                <td className="num">
+                  {formatQuantity(r.frequencyHz, "Hz", 4)}
+                  {plusMinus(r.frequencyStandardErrorHz, (e) => formatQuantity(e, "Hz", 2))}
+                </td>
                 <td className="num">{formatQuantity(r.impedanceOhm, "Ω")}</td>
-                <td className="num">{r.q === null ? "not resolved" : formatNumber(r.q, 0)}</td>
+                <td className="num">{r.q === null ? "not resolved" : `${formatNumber(r.q, r.q < 20 ? 1 : 0)}${plusMinus(r.qStandardError, (e) => formatNumber(e, r.q !== null && r.q < 20 ? 1 : 0))}`}</td>
               </tr>
             ))}
             {sorted.length === 0 && (

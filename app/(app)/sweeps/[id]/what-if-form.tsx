@@ -54,7 +54,7 @@ export function WhatIfForm({ values, errors, result, currentHz }: { values: Reco
             </p>
             {result.inBand && (
               <p>
-                Broadcast band: {formatQuantity(result.prediction.predictedFirstResonance, "Hz", 4)} lies in the medium-wave broadcasting band of ITU region {result.region} (
+                Broadcast band: {formatQuantity(result.prediction.predictedFirstResonance, "Hz", 4)} lies in the {result.band.name} broadcasting band of ITU region {result.region} (
                 {formatQuantity(result.band.lowerEdge, "Hz", 4)}–{formatQuantity(result.band.upperEdge, "Hz", 4)}). A coil running there can interfere with reception; choose a larger top load or keep runs short and follow your local rules.
               </p>
             )}

@@ -53,7 +53,10 @@ export function ImportPreview({ prepared }: { prepared: PreparedImport }) {
                   <td>
                     {r.kind} {r.n}
                   </td>
-                  <td className="num">{formatQuantity(r.frequency, "Hz", 4)}</td>
+                  <td className="num">
+                    {formatQuantity(r.frequency, "Hz", 4)}
+                    {r.frequencyStandardError === undefined ? "" : ` ± ${formatQuantity(r.frequencyStandardError, "Hz", 2)}`}
+                  </td>
                   <td className="num">{formatQuantity(r.impedance, "Ω")}</td>
                   <td className="num">{r.q === undefined ? "—" : formatNumber(r.q, 0)}</td>
                 </tr>
