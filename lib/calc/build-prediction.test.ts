@@ -169,3 +169,14 @@ describe("predictTopLoadChange", () => {
     expect(() => predictTopLoadChange(coil, -50e-12, null)).toThrow(/^calibratedEnvironmentCapacitance:/);
   });
 });
+
+describe("predictBuild with an aluminium winding", () => {
+  it("scales the DC resistance by the resistivity ratio 0.028264 / (1/58) (IEC 60889 / IEC 60028, aluminium from memory)", () => {
+    const copper = predictBuild(coil);
+    const aluminium = predictBuild({ ...coil, wireMaterial: "aluminium" });
+    expect(aluminium.dcResistance / copper.dcResistance).toBeCloseTo(0.028264 * 58, 9);
+    expect(aluminium.qEstimate).toBeLessThan(copper.qEstimate);
+    expect(aluminium.firstResonance).toBe(copper.firstResonance);
+    expect(() => predictBuild({ ...coil, wireMaterial: "silver" as never })).toThrow(/^wireMaterial:/);
+  });
+});

@@ -8,7 +8,8 @@ describe("the public surface of lib/calc", () => {
       "resonantFrequency", "dividerImpedance", "analyzeSweep", "deratedPower", "fitHeatingCurve", "inBroadcastBand",
       "skinDepth", "awgDiameter", "copperResistivity", "predictBuild", "calibrateEnvironmentCapacitance", "predictTopLoadChange",
       "compareMeasured", "sessionMargins", "analyzeWarmUp", "theilSenTrend", "projectCrossing", "assessCoilHealth",
-      "rankLikelyCauses", "evaluateClearance", "clearanceLapse", "partReliability",
+      "rankLikelyCauses", "evaluateClearance", "clearanceLapse", "partReliability", "predictFromGeometry", "propagateUncertainty",
+      "estimateRunningOffset", "predictRunningFrequency", "summarizeDeviations",
     ] as const;
     for (const name of names) expect(typeof (calc as Record<string, unknown>)[name], name).toBe("function");
   });
