@@ -4,6 +4,9 @@
  * coil page, or the whole fleet's for the prediction-quality page (four narrow queries, fine for 500 coils).
  */
 import { prisma } from "./client";
+import { compareCoil, type CoilComparison } from "../analysis/coil-comparison";
+import { needsFleetObservations, pairFleetRunning, pairRunningWithSweeps } from "../analysis/running-offset";
+import type { getCoilPageHistory } from "./coil-history";
 
 const coilSelect = {
   id: true,
@@ -50,4 +53,18 @@ export async function readFleetRunningInputs() {
     readRunningFrequencies(),
   ]);
   return { sweeps, sessions };
+}
+
+/**
+ * The coil page's prediction table from its history: the coil's running frequencies read in full (the offset is
+ * learnt from every earlier session), the fleet's only when the coil has too few of its own.
+ */
+export async function readCoilComparison(history: NonNullable<Awaited<ReturnType<typeof getCoilPageHistory>>>): Promise<CoilComparison> {
+  const runningSessions = await readRunningFrequencies(history.coil.id);
+  let fleetObservations: ReturnType<typeof pairFleetRunning> = [];
+  if (needsFleetObservations(pairRunningWithSweeps(runningSessions, history.sweeps))) {
+    const { sweeps, sessions } = await readFleetRunningInputs();
+    fleetObservations = pairFleetRunning(sweeps, sessions);
+  }
+  return compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions, runningSessions, fleetObservations);
 }

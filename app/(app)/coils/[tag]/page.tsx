@@ -6,9 +6,7 @@ import { hasRole } from "@/lib/auth/roles";
 import { readCoilPage, type CoilPageRecords } from "@/lib/db/coil-page";
 import type { ClearancePolicyRules } from "@/lib/calc/clearance-policy";
 import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
-import { compareCoil } from "@/lib/analysis/coil-comparison";
-import { needsFleetObservations, pairFleetRunning, pairRunningWithSweeps } from "@/lib/analysis/running-offset";
-import { readFleetRunningInputs, readRunningFrequencies } from "@/lib/db/prediction-history";
+import { readCoilComparison } from "@/lib/db/prediction-history";
 import { selectHealthWindow } from "@/lib/analysis/health-window";
 import { CalcInputError } from "@/lib/calc/errors";
 import { describeTurnsCount } from "@/lib/validation/coil";
@@ -39,12 +37,6 @@ function assess(history: CoilPageRecords["history"], rules: ClearancePolicyRules
   }
 }
 
-/** Other coils' running-offset observations, for a coil with too few of its own. */
-async function readFleetObservations() {
-  const { sweeps, sessions } = await readFleetRunningInputs();
-  return pairFleetRunning(sweeps, sessions);
-}
-
 export default async function CoilPage({ params, searchParams }: Props) {
   const user = await pageUser();
   const tag = decodeURIComponent((await params).tag);
@@ -52,9 +44,7 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const records = await readCoilPage(tag);
   if (!records) notFound();
   const { coil, history, timeline, policy } = records;
-  const runningSessions = await readRunningFrequencies(coil.id);
-  const fleetObservations = needsFleetObservations(pairRunningWithSweeps(runningSessions, history.sweeps)) ? await readFleetObservations() : [];
-  const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions, runningSessions, fleetObservations);
+  const comparison = await readCoilComparison(history);
   const { health, latest } = assess(history, policy.rules);
   const canEdit = hasRole(user.role, "steward");
   const base = `/coils/${encodeURIComponent(coil.tag)}`;
