@@ -83,7 +83,7 @@ export function PredictionSection({ comparison }: { comparison: CoilComparison }
             figure for the next sweep), DC resistance {formatQuantity(prediction.dcResistance, "Ω")}, Q at most {Math.round(prediction.qEstimate)}.
           </p>
           <details>
-            <summary>What the models assume</summary>
+            <summary>What the model assumes</summary>
             <ul>
               {prediction.assumptions.map((a) => (
                 <li key={a}>{a}</li>
