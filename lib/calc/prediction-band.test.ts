@@ -4,6 +4,7 @@ import { DEFAULT_BUILD_TOLERANCES, DEFAULT_ENVIRONMENT_CAPACITANCE_F, predictFro
 import { solenoidInductance } from "./inductance";
 import { medhurstSelfCapacitance } from "./self-capacitance";
 import { sphereCapacitance } from "./top-load";
+import { createSeededRandom } from "./seeded-random";
 
 /** A small secondary: 75 mm form, 250 mm winding, 900 turns of 0.254 mm wire, a 100 mm ball on top. */
 const build: GeometryOnlyBuild = { formDiameter: 0.075, windingLength: 0.25, turns: 900, wireDiameter: 0.254e-3, topLoad: { kind: "sphere", diameter: 0.1 } };
@@ -50,6 +51,30 @@ describe("predictFromGeometry", () => {
   it("refuses a negative tolerance and a build the models refuse, naming the field", () => {
     expect(() => predictFromGeometry(build, { ...DEFAULT_BUILD_TOLERANCES, turns: -0.1 })).toThrow(/^tolerances\.turns:/);
     expect(() => predictFromGeometry({ ...build, turns: 5000 })).toThrow(/^turns:/);
+  });
+
+  it("agrees with a JCGM 101:2008 Monte Carlo propagation of the geometric tolerances within 5 %", () => {
+    // JCGM 101 §7: draw the inputs from their distributions, evaluate the model, take the standard deviation.
+    // 800 turns leave room for the drawn turns and wire to stay in a single layer.
+    const loose = { ...build, turns: 800 };
+    const tolerances = { ...noTolerance, formDiameter: 0.01, windingLength: 0.02, turns: 0.01, wireDiameter: 0.02 };
+    const gum = predictFromGeometry(loose, tolerances);
+    const rng = createSeededRandom(101);
+    const draws = Array.from({ length: 4000 }, () =>
+      predictFromGeometry(
+        {
+          ...loose,
+          formDiameter: build.formDiameter * (1 + 0.01 * rng.normal()),
+          windingLength: build.windingLength * (1 + 0.02 * rng.normal()),
+          turns: loose.turns * (1 + 0.01 * rng.normal()),
+          wireDiameter: build.wireDiameter * (1 + 0.02 * rng.normal()),
+        },
+        noTolerance,
+      ).firstResonance,
+    );
+    const mean = draws.reduce((a, b) => a + b, 0) / draws.length;
+    const sd = Math.sqrt(draws.reduce((a, b) => a + (b - mean) ** 2, 0) / (draws.length - 1));
+    expect(Math.abs(sd / gum.standardUncertainty - 1)).toBeLessThan(0.05);
   });
 
   const tolerance = fc.double({ min: 0, max: 0.2, noNaN: true });
