@@ -12,7 +12,7 @@ beforeAll(async () => {
   // Passwords are not exercised here, so one placeholder hash serves every demo person.
   const passwordHashes = Object.fromEntries(DEMO_PEOPLE.map((p) => [p.key, "not-a-real-hash"])) as Record<DemoPersonKey, string>;
   await loadDemoDataset(generateDemoDataset({ anchor: new Date(Date.UTC(2025, 4, 1)), passwordHashes }));
-});
+}, 60_000); // generating and loading the whole demo club takes a few seconds, more on a busy machine
 
 async function demoComparisons() {
   const coils = await testDb.coil.findMany({ select: { tag: true }, orderBy: { tag: "asc" } });

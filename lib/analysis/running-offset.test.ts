@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { checkRunningFrequency, needsFleetObservations, pairFleetRunning, pairRunningWithSweeps } from "./running-offset";
+import { checkAllRunningFrequencies, checkRunningFrequency, needsFleetObservations, pairFleetRunning, pairRunningWithSweeps } from "./running-offset";
 
 const day = (d: number) => new Date(Date.UTC(2025, 0, d));
 const sweeps = [
@@ -40,6 +40,19 @@ describe("checkRunningFrequency", () => {
     const second = checkRunningFrequency(own[1]!, own, fleet);
     expect(second.prediction.offset).toMatchObject({ source: "fleet", count: 2 });
     expect(second.prediction.offset.ratio).toBeCloseTo(0.985, 12);
+  });
+
+  it("gives the same checks by running totals for the whole fleet as one by one", () => {
+    const byCoil = new Map([["a", own], ["b", fleet.filter((o) => o.coilId === "b")]]);
+    const all = checkAllRunningFrequencies(byCoil);
+    for (const [coilId, observations] of byCoil) {
+      const oneByOne = observations.map((o) => checkRunningFrequency(o, observations, fleet));
+      all.get(coilId)!.forEach((check, i) => {
+        expect(check.prediction.offset.source).toBe(oneByOne[i]!.prediction.offset.source);
+        expect(check.prediction.frequency).toBeCloseTo(oneByOne[i]!.prediction.frequency, 6);
+        expect(check.prediction.standardUncertainty).toBeCloseTo(oneByOne[i]!.prediction.standardUncertainty, 6);
+      });
+    }
   });
 
   it("reads the fleet only when the coil has too few observations of its own", () => {

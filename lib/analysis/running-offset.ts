@@ -3,7 +3,7 @@
  * model learns from (lib/calc/running-frequency.ts), and each session's out-of-sample prediction: made only
  * from observations dated before that session (cross-validation in time, Stone 1974, docs/references.md).
  */
-import { estimateRunningOffset, MIN_RUNNING_OFFSET_OBSERVATIONS, predictRunningFrequency, type RunningFrequencyPrediction } from "../calc/running-frequency";
+import { estimateRunningOffset, estimateRunningOffsetFromMoments, MIN_RUNNING_OFFSET_OBSERVATIONS, predictRunningFrequency, type RatioMoments, type RunningFrequencyPrediction } from "../calc/running-frequency";
 
 export interface RunningSessionRow {
   id: string;
@@ -72,6 +72,60 @@ export function checkRunningFrequency(observation: RunningOffsetObservation, own
     ownRatios.length >= MIN_RUNNING_OFFSET_OBSERVATIONS ? [] : fleet.filter((o) => before(o) && (o.coilId === null || o.coilId !== observation.coilId)).map((o) => o.ratio);
   const prediction = predictRunningFrequency(observation.sweptHz, estimateRunningOffset(ownRatios, fleetRatios));
   return { observation, prediction, deviation: (observation.runningHz - prediction.frequency) / prediction.frequency };
+}
+
+type Totals = { count: number; sum: number; sumOfSquares: number };
+const minus = (a: RatioMoments, b: RatioMoments): RatioMoments => ({ count: a.count - b.count, sum: a.sum - b.sum, sumOfSquares: a.sumOfSquares - b.sumOfSquares });
+
+/** Running totals of ratios over observations in time order: totals[i] covers the first i. */
+function prefixTotals(observations: readonly RunningOffsetObservation[]): RatioMoments[] {
+  const totals: RatioMoments[] = [{ count: 0, sum: 0, sumOfSquares: 0 }];
+  const t: Totals = { count: 0, sum: 0, sumOfSquares: 0 };
+  for (const o of observations) {
+    t.count++;
+    t.sum += o.ratio;
+    t.sumOfSquares += o.ratio * o.ratio;
+    totals.push({ ...t });
+  }
+  return totals;
+}
+
+/** How many of the time-ordered observations are strictly before `at` (binary search). */
+function countBefore(observations: readonly RunningOffsetObservation[], at: number): number {
+  let [lo, hi] = [0, observations.length];
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (observations[mid]!.at.getTime() < at) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * checkRunningFrequency for every observation of every coil, by running totals instead of re-filtering: the same
+ * rule (own observations strictly earlier, else other coils' strictly earlier, else the prior) in O(n log n) for a
+ * fleet's thousands of sessions. Each coil's observations must carry its coilId.
+ */
+export function checkAllRunningFrequencies(observationsByCoil: ReadonlyMap<string, readonly RunningOffsetObservation[]>): Map<string, RunningFrequencyCheck[]> {
+  const byTime = (a: RunningOffsetObservation, b: RunningOffsetObservation) => a.at.getTime() - b.at.getTime();
+  const fleet = [...observationsByCoil.values()].flat().sort(byTime);
+  const fleetTotals = prefixTotals(fleet);
+  const checks = new Map<string, RunningFrequencyCheck[]>();
+  for (const [coilId, observations] of observationsByCoil) {
+    const own = [...observations].sort(byTime);
+    const ownTotals = prefixTotals(own);
+    checks.set(
+      coilId,
+      own.map((observation) => {
+        const at = observation.at.getTime();
+        const ownBefore = ownTotals[countBefore(own, at)]!;
+        const offset = estimateRunningOffsetFromMoments(ownBefore, minus(fleetTotals[countBefore(fleet, at)]!, ownBefore));
+        const prediction = predictRunningFrequency(observation.sweptHz, offset);
+        return { observation, prediction, deviation: (observation.runningHz - prediction.frequency) / prediction.frequency };
+      }),
+    );
+  }
+  return checks;
 }
 
 export const OFFSET_SOURCE_WORDS = {

@@ -189,6 +189,17 @@ export function predictBuild(build: SecondaryBuild): BuildPrediction {
   };
 }
 
+/**
+ * The lumped first series resonance alone, f = 1/(2π√(L·C)) (Thomson's formula with predictBuild's L and C), without
+ * the wire's resistance and Q: for callers that predict many sweeps (the fleet's prediction quality).
+ */
+export function predictFirstResonance(build: SecondaryBuild): number {
+  const coil = modelCoil(build);
+  const total = coil.selfCapacitance + computeTopLoadCapacitance(build.topLoad, "topLoad") + requireFinite("environmentCapacitance", build.environmentCapacitance ?? 0);
+  if (total <= 0) throw new CalcInputError("environmentCapacitance", "a value that leaves a positive total capacitance", build.environmentCapacitance);
+  return resonantFrequency(coil.inductance, total);
+}
+
 /** One measured sweep used for calibration. */
 export interface ResonanceMeasurement {
   /** Measured first series resonance, Hz. */

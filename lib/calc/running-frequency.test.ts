@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { estimateRunningOffset, predictRunningFrequency, RUNNING_OFFSET_PRIOR } from "./running-frequency";
+import { estimateRunningOffset, estimateRunningOffsetFromMoments, predictRunningFrequency, ratioMoments, RUNNING_OFFSET_PRIOR } from "./running-frequency";
 
 describe("estimateRunningOffset", () => {
   it("falls back to the common-practice prior, 1 ± 5 % rectangular (u = 0.05/√3, JCGM 100:2008 §4.3.7)", () => {
@@ -20,6 +20,12 @@ describe("estimateRunningOffset", () => {
     const fleet = estimateRunningOffset([1.1], [0.99, 1.01, 1.03]);
     expect(fleet).toMatchObject({ source: "fleet", count: 3 });
     expect(fleet.ratio).toBeCloseTo(1.01, 12);
+  });
+
+  it("gives the same estimate from running totals as from the list", () => {
+    const ratios = [1.021, 1.034, 1.027, 1.04];
+    expect(estimateRunningOffsetFromMoments(ratioMoments(ratios), ratioMoments([]))).toEqual(estimateRunningOffset(ratios));
+    expect(() => estimateRunningOffsetFromMoments({ count: -1, sum: 0, sumOfSquares: 0 }, ratioMoments([]))).toThrow(/^own\.count:/);
   });
 
   it("refuses a ratio that is not positive, naming it", () => {

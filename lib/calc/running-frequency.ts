@@ -29,12 +29,39 @@ export interface RunningOffsetEstimate {
   readonly count: number;
 }
 
-function learn(ratios: readonly number[], source: "coil" | "fleet"): RunningOffsetEstimate {
-  const n = ratios.length;
-  const mean = ratios.reduce((sum, r) => sum + r, 0) / n;
-  const variance = ratios.reduce((sum, r) => sum + (r - mean) ** 2, 0) / (n - 1);
+/** Count, sum and sum of squares of observed ratios: enough to learn from, and cheap to keep as a running total. */
+export interface RatioMoments {
+  readonly count: number;
+  readonly sum: number;
+  readonly sumOfSquares: number;
+}
+
+/** Moments of a list of ratios. */
+export function ratioMoments(ratios: readonly number[]): RatioMoments {
+  return { count: ratios.length, sum: ratios.reduce((a, r) => a + r, 0), sumOfSquares: ratios.reduce((a, r) => a + r * r, 0) };
+}
+
+function learn({ count: n, sum, sumOfSquares }: RatioMoments, source: "coil" | "fleet"): RunningOffsetEstimate {
+  const mean = sum / n;
+  // Sample variance from the moments; ratios sit near 1 with spreads of 1e-4 and more, far above rounding.
+  const variance = Math.max(0, (sumOfSquares - n * mean * mean) / (n - 1));
   // Predictive standard deviation of one new observation: s·√(1 + 1/n) (textbook prediction interval, from memory).
   return { ratio: mean, standardUncertainty: Math.sqrt(variance * (1 + 1 / n)), source, count: n };
+}
+
+function requireMoments(name: "own" | "fleet", m: RatioMoments): void {
+  if (!Number.isInteger(m.count) || m.count < 0) throw new CalcInputError(`${name}.count`, "a whole number ≥ 0", m.count);
+  if (!Number.isFinite(m.sum)) throw new CalcInputError(`${name}.sum`, "a finite number", m.sum);
+  if (!Number.isFinite(m.sumOfSquares)) throw new CalcInputError(`${name}.sumOfSquares`, "a finite number", m.sumOfSquares);
+}
+
+/** estimateRunningOffset from the ratios' moments (the same rule), for callers that keep running totals. */
+export function estimateRunningOffsetFromMoments(own: RatioMoments, fleet: RatioMoments): RunningOffsetEstimate {
+  requireMoments("own", own);
+  requireMoments("fleet", fleet);
+  if (own.count >= MIN_RUNNING_OFFSET_OBSERVATIONS) return learn(own, "coil");
+  if (fleet.count >= MIN_RUNNING_OFFSET_OBSERVATIONS) return learn(fleet, "fleet");
+  return { ...RUNNING_OFFSET_PRIOR, source: "prior", count: 0 };
 }
 
 /**
@@ -44,9 +71,7 @@ function learn(ratios: readonly number[], source: "coil" | "fleet"): RunningOffs
 export function estimateRunningOffset(ownRatios: readonly number[], fleetRatios: readonly number[] = []): RunningOffsetEstimate {
   ownRatios.forEach((r, i) => requirePositive(`ownRatios[${i}]`, r));
   fleetRatios.forEach((r, i) => requirePositive(`fleetRatios[${i}]`, r));
-  if (ownRatios.length >= MIN_RUNNING_OFFSET_OBSERVATIONS) return learn(ownRatios, "coil");
-  if (fleetRatios.length >= MIN_RUNNING_OFFSET_OBSERVATIONS) return learn(fleetRatios, "fleet");
-  return { ...RUNNING_OFFSET_PRIOR, source: "prior", count: 0 };
+  return estimateRunningOffsetFromMoments(ratioMoments(ownRatios), ratioMoments(fleetRatios));
 }
 
 export interface RunningFrequencyPrediction {
