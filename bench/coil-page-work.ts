@@ -2,6 +2,7 @@
 import { readCoilPage, type CoilPageRecords } from "../lib/db/coil-page";
 import { analyzeSessions, assessCoil } from "../lib/analysis/coil-health-input";
 import { compareCoil } from "../lib/analysis/coil-comparison";
+import { readCoilComparison } from "../lib/db/prediction-history";
 import { selectHealthWindow } from "../lib/analysis/health-window";
 import type { ClearancePolicyRules } from "../lib/calc/clearance-policy";
 
@@ -9,8 +10,12 @@ import type { ClearancePolicyRules } from "../lib/calc/clearance-policy";
 /** What the page works out from what it read: the prediction table and the health judged by the current policy. */
 export function computeCoilPageFigures(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
   const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
+  return { comparison, health: judgeHealth(history, rules) };
+}
+
+function judgeHealth(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
   const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);
-  return { comparison, health: assessCoil(analyzed, history.sweeps, new Date(), rules) };
+  return assessCoil(analyzed, history.sweeps, new Date(), rules);
 }
 
 export async function readBusyCoilPage(tag: string) {
@@ -21,5 +26,6 @@ export async function readBusyCoilPage(tag: string) {
 
 export async function loadCoilPage(tag: string) {
   const { coil, history, timeline, policy } = await readBusyCoilPage(tag);
-  return { coil, timeline, ...computeCoilPageFigures(history, policy.rules) };
+  // As the page does: the prediction table reads the coil's running frequencies (and the fleet's when it has few).
+  return { coil, timeline, comparison: await readCoilComparison(history), health: judgeHealth(history, policy.rules) };
 }

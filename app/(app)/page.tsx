@@ -52,7 +52,7 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
         </p>
       )}
       <p className="no-print">
-        <Link href="/fleet/reliability">Reliability per part</Link> · <Link href="/clearances">Clearance decisions</Link> · <Link href="/loans">Loans</Link>
+        <Link href="/fleet/reliability">Reliability per part</Link> · <Link href="/fleet/predictions">Prediction quality</Link> · <Link href="/clearances">Clearance decisions</Link> · <Link href="/loans">Loans</Link>
       </p>
       <FleetFilters query={query} />
       <div className="table-wrap">

@@ -4,6 +4,7 @@
  * the clean sessions since the last failure or repair. The policy's rules (lib/calc) do the judging.
  */
 import type { ClearanceFacts, ClearancePolicyRules } from "../calc/clearance-policy";
+import { findLatestSweepWithCurrentTopLoad } from "./current-top-load";
 import { analyzeRunSession, type SessionAnalysis } from "./session-analysis";
 import type { CoilRecord, ComponentRecord, SampleRecord, SessionRecord, SweepRecord } from "./records";
 
@@ -84,14 +85,9 @@ export function buildClearanceFacts(
   };
 }
 
-/**
- * A sweep describes the coil with the top load it wore, so only sweeps with the top load of the latest
- * session count. When the latest session does not record its top load, the latest sweep stands in.
- */
+/** A sweep describes the coil with the top load it wore, so only sweeps with the current top load count (current-top-load.ts's rule). */
 export function findLatestSweepForCurrentTopLoad(sweeps: readonly SweepRecord[], latestSession: SessionRecord | null): SweepRecord | null {
-  const currentTopLoad = latestSession?.topLoadId ?? null;
-  const candidates = currentTopLoad === null ? sweeps : sweeps.filter((s) => s.topLoadId === currentTopLoad);
-  return candidates.at(-1) ?? null;
+  return findLatestSweepWithCurrentTopLoad(sweeps, latestSession ? [latestSession] : []);
 }
 
 function maxTime(dates: readonly Date[]): Date | null {

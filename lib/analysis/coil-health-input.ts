@@ -1,6 +1,7 @@
 /** A coil's logbook, analysed session by session, turned into lib/calc's health assessment. */
 import { assessCoilHealth, type CoilHealth } from "../calc/coil-health";
 import type { CoilSession, CoilSweep } from "../calc/coil-logbook";
+import { findCurrentTopLoadId } from "./current-top-load";
 import { analyzeRunSession, type SessionAnalysis } from "./session-analysis";
 import { DEFAULT_CLEARANCE_POLICY, type ClearancePolicyRules } from "../calc/clearance-policy";
 import type { CoilRecord, ComponentRecord, SessionRecord, SweepRecord } from "./records";
@@ -44,15 +45,14 @@ export function assessCoil(
   now: Date,
   policy: Pick<ClearancePolicyRules, "minVoltageHeadroom" | "minCurrentHeadroom" | "minThermalHeadroom"> = DEFAULT_CLEARANCE_POLICY,
 ): CoilHealth {
-  const currentTopLoad = analyzed.at(-1)?.session.topLoadId ?? null;
+  const currentTopLoad = findCurrentTopLoadId(sweeps, analyzed.map((a) => a.session));
   const sessions = analyzed.map((a) => {
     const row = toCoilSession(a);
     return (a.session.topLoadId ?? null) === currentTopLoad ? row : { ...row, runningFrequencyHz: null };
   });
-  const sweepTopLoad = sweeps.at(-1)?.topLoadId ?? null;
   return assessCoilHealth({
     sessions,
-    sweeps: toCoilSweeps(sweeps.filter((s) => (s.topLoadId ?? null) === sweepTopLoad)),
+    sweeps: toCoilSweeps(sweeps.filter((s) => (s.topLoadId ?? null) === currentTopLoad)),
     now,
     thresholds: { voltageHeadroom: policy.minVoltageHeadroom, currentHeadroom: policy.minCurrentHeadroom, thermalHeadroom: policy.minThermalHeadroom },
   });

@@ -10,6 +10,8 @@ export interface CoilRecord {
   windingLengthM: number;
   turns: number;
   wireDiameterM: number;
+  /** Sets the resistivity in the build prediction; copper when absent. */
+  wireMaterial?: "copper" | "aluminium";
   environmentCapacitanceF: number | null;
   measuredInductanceH: number | null;
 }

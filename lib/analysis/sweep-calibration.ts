@@ -4,6 +4,7 @@
  */
 import { calibrateEnvironmentCapacitance, type EnvironmentCalibration, type SecondaryBuild, type TopLoadSpec } from "../calc/build-prediction";
 import type { TopLoadRecord } from "./records";
+import { topLoadSpecOf } from "./top-load-spec";
 
 export interface SecondaryRecord {
   formDiameterM: number;
@@ -27,25 +28,6 @@ export function secondaryBuildOf(coil: SecondaryRecord, topLoad: TopLoadSpec | n
   };
 }
 
-/** A stored top load as lib/calc's spec; null for a bare coil or a row missing the dimensions its shape needs. */
-export function topLoadSpecOf(topLoad: Omit<TopLoadRecord, "id"> | null | undefined): TopLoadSpec | null {
-  if (!topLoad) return null;
-  const { shape, diameterM, tubeDiameterM, heightM, measuredCapacitanceF } = topLoad;
-  switch (shape) {
-    case "sphere":
-    case "disc":
-      return diameterM === null ? null : { kind: shape, diameter: diameterM };
-    case "toroid":
-      return diameterM === null || tubeDiameterM === null ? null : { kind: "toroid", outerDiameter: diameterM, tubeDiameter: tubeDiameterM };
-    case "cylinder":
-      return diameterM === null || heightM === null ? null : { kind: "cylinder", diameter: diameterM, height: heightM };
-    case "measured":
-      return measuredCapacitanceF === null ? null : { capacitance: measuredCapacitanceF };
-    default:
-      return null;
-  }
-}
-
 export interface CalibrationSweep {
   id: string;
   takenAt: Date;
@@ -59,7 +41,11 @@ export interface CoilCalibration {
   sweeps: CalibrationSweep[];
 }
 
-/** Calibrate over every sweep that found a first series resonance; null when none did. Throws CalcInputError for a build lib/calc refuses. */
+/**
+ * Calibrate over every sweep that found a first series resonance; null when none did. Throws CalcInputError for
+ * a build lib/calc refuses. This is the value for predicting the NEXT sweep; to compare with a measured sweep use
+ * calibrateOnEarlierSweeps, so the comparison is out of sample.
+ */
 export function calibrateCoilFromSweeps(coil: SecondaryRecord, sweeps: readonly CalibrationSweep[]): CoilCalibration | null {
   const used = sweeps.filter((s) => s.firstSeriesResonanceHz !== null);
   if (used.length === 0) return null;
@@ -68,4 +54,16 @@ export function calibrateCoilFromSweeps(coil: SecondaryRecord, sweeps: readonly 
     used.map((s) => ({ firstSeriesResonance: s.firstSeriesResonanceHz!, topLoad: topLoadSpecOf(s.topLoad) })),
   );
   return { calibration, sweeps: used };
+}
+
+/**
+ * Calibrate only on sweeps taken strictly before `before`, so a prediction compared with the sweep taken then was
+ * never fitted on it (cross-validation, Stone 1974, docs/references.md). Null when no earlier sweep found a
+ * resonance: there is nothing to calibrate on yet.
+ */
+export function calibrateOnEarlierSweeps(coil: SecondaryRecord, sweeps: readonly CalibrationSweep[], before: Date): CoilCalibration | null {
+  return calibrateCoilFromSweeps(
+    coil,
+    sweeps.filter((s) => s.takenAt.getTime() < before.getTime()),
+  );
 }

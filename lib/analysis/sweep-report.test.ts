@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { compareWithPrediction, impedanceCurve, predictWhatIf, summarizeCalibration } from "./sweep-report";
-import { topLoadSpecOf } from "./sweep-calibration";
+import { topLoadSpecOf } from "./top-load-spec";
 
 // A build like the demo club's KM-02 (invented): 50 mm form, 200 mm winding, 880 turns of 0.202 mm wire.
 const coil = { formDiameterM: 0.05, windingLengthM: 0.2, turns: 880, wireDiameterM: 0.000202, environmentCapacitanceF: 3e-12 };
@@ -39,15 +39,25 @@ describe("predictWhatIf", () => {
 });
 
 describe("compareWithPrediction and summarizeCalibration", () => {
-  it("compares against the calibrated prediction, which the calibration sweep itself reproduces", () => {
-    const sweeps = [{ id: "s1", takenAt: new Date("2025-01-01T00:00:00Z"), firstSeriesResonanceHz: 300_000, topLoad: toroid }];
-    const summary = summarizeCalibration(coil, sweeps);
-    expect(summary.ok).toBe(true);
-    if (!summary.ok) return;
-    const calibrated = { ...coil, environmentCapacitanceF: summary.calibration.environmentCapacitance };
-    const comparison = compareWithPrediction(calibrated, toroid, 300_000);
-    expect(comparison.ok && comparison.comparison.deviation).toBeCloseTo(0, 9);
-    expect(compareWithPrediction(calibrated, toroid, null).ok).toBe(false);
+  const day = (d: number) => new Date(Date.UTC(2025, 0, d));
+  const sweeps = [
+    { id: "s1", takenAt: day(1), firstSeriesResonanceHz: 300_000, topLoad: toroid },
+    { id: "s2", takenAt: day(2), firstSeriesResonanceHz: 297_000, topLoad: toroid },
+    { id: "s3", takenAt: day(3), firstSeriesResonanceHz: 303_000, topLoad: toroid },
+  ];
+
+  it("calibrates only on sweeps strictly before the one compared (out of sample, Stone 1974)", () => {
+    const comparison = compareWithPrediction(coil, toroid, sweeps[2]!, sweeps);
+    expect(comparison.ok && comparison.calibrated.ok && comparison.calibrated.fittedOn.map((s) => s.id)).toEqual(["s1", "s2"]);
+    // The earlier sweeps' median environment predicts between their resonances (298.5 kHz), so 303 kHz deviates by about +1.5 %.
+    if (comparison.ok && comparison.calibrated.ok) expect(comparison.calibrated.comparison.deviation).toBeCloseTo(303 / 298.5 - 1, 2);
+  });
+
+  it("says there is nothing to calibrate on for the first sweep, instead of a 0.0 % deviation", () => {
+    const first = compareWithPrediction(coil, toroid, sweeps[0]!, sweeps);
+    expect(first.ok && first.calibrated).toMatchObject({ ok: false, reason: expect.stringMatching(/Nothing to calibrate on yet/) });
+    expect(first.ok && first.geometryOnly.lowHz).toBeLessThan(first.ok ? first.geometryOnly.highHz : 0);
+    expect(compareWithPrediction(coil, toroid, { takenAt: day(4), firstSeriesResonanceHz: null }, sweeps).ok).toBe(false);
     expect(summarizeCalibration(coil, [{ ...sweeps[0]!, firstSeriesResonanceHz: null }])).toMatchObject({ ok: false });
   });
 });

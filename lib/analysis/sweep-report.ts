@@ -1,6 +1,6 @@
 /**
  * What the sweep page shows, computed from the stored sweep: the |Z| curve (thinned for display),
- * the first series resonance against the build's prediction, the coil's calibration, and the
+ * the first series resonance against predictions made without it (geometry only; calibrated on earlier sweeps), the coil's calibration, and the
  * "what would this top load do?" prediction.
  */
 import { predictBuild, predictTopLoadChange, type TopLoadChangePrediction, type TopLoadSpec } from "../calc/build-prediction";
@@ -10,7 +10,9 @@ import { compareMeasured, type Comparison } from "../calc/comparison";
 import { dividerImpedance } from "../calc/divider";
 import { CalcInputError } from "../calc/errors";
 import { decimateMinMax, type XY } from "./decimate-min-max";
-import { calibrateCoilFromSweeps, secondaryBuildOf, topLoadSpecOf, type CalibrationSweep, type CoilCalibration, type SecondaryRecord } from "./sweep-calibration";
+import { predictFromGeometry } from "../calc/prediction-band";
+import { calibrateCoilFromSweeps, calibrateOnEarlierSweeps, secondaryBuildOf, type CalibrationSweep, type CoilCalibration, type SecondaryRecord } from "./sweep-calibration";
+import { topLoadSpecOf } from "./top-load-spec";
 import type { TopLoadRecord } from "./records";
 import type { WhatIfTopLoad } from "../validation/sweep";
 
@@ -34,19 +36,63 @@ export function impedanceCurve(sweep: { seriesResistanceOhm: number; sourceAmpli
   return { points: thinned, total: points.length, decimated: thinned.length < points.length };
 }
 
+export interface OutOfSampleCalibrated {
+  predictedHz: number;
+  comparison: Comparison;
+  /** The earlier sweeps the environment capacitance was fitted on. */
+  fittedOn: { id: string; takenAt: Date }[];
+}
+
 export type PredictionComparison =
-  | { ok: true; predictedHz: number; measuredHz: number; comparison: Comparison; calibrated: boolean }
+  | {
+      ok: true;
+      measuredHz: number;
+      /** From geometry and parts alone, with its GUM band. */
+      geometryOnly: { predictedHz: number; lowHz: number; highHz: number; comparison: Comparison };
+      /** Calibrated on the coil's sweeps strictly before this one; a reason when there were none. */
+      calibrated: ({ ok: true } & OutOfSampleCalibrated) | { ok: false; reason: string };
+    }
   | { ok: false; reason: string };
 
 type CoilForPrediction = SecondaryRecord & { environmentCapacitanceF: number | null };
 
-/** The first series resonance measured against predictBuild with the coil's calibrated environment and this sweep's top load. */
-export function compareWithPrediction(coil: CoilForPrediction, topLoad: Omit<TopLoadRecord, "id"> | null, measuredHz: number | null): PredictionComparison {
+/**
+ * This sweep's first series resonance against two predictions made without it: from geometry and parts alone
+ * (predictFromGeometry), and with the environment capacitance calibrated on the coil's sweeps taken strictly
+ * before this one (cross-validation, Stone 1974, docs/references.md) — never the coil's stored value, which
+ * this sweep helped calibrate.
+ */
+export function compareWithPrediction(
+  coil: SecondaryRecord,
+  topLoad: Omit<TopLoadRecord, "id"> | null,
+  sweep: { takenAt: Date; firstSeriesResonanceHz: number | null },
+  calibrationSweeps: readonly CalibrationSweep[],
+): PredictionComparison {
+  const measuredHz = sweep.firstSeriesResonanceHz;
   if (measuredHz === null) return { ok: false, reason: "This sweep shows no series resonance, so there is nothing to compare." };
   try {
-    const predicted = predictBuild(secondaryBuildOf(coil, topLoadSpecOf(topLoad), coil.environmentCapacitanceF)).firstResonance;
-    const comparison = compareMeasured({ quantity: "firstResonance", predicted, measured: measuredHz });
-    return { ok: true, predictedHz: predicted, measuredHz, comparison, calibrated: coil.environmentCapacitanceF !== null };
+    const spec = topLoadSpecOf(topLoad);
+    const geometry = predictFromGeometry({ formDiameter: coil.formDiameterM, windingLength: coil.windingLengthM, turns: coil.turns, wireDiameter: coil.wireDiameterM, topLoad: spec });
+    const geometryOnly = {
+      predictedHz: geometry.firstResonance,
+      lowHz: geometry.low,
+      highHz: geometry.high,
+      comparison: compareMeasured({ quantity: "firstResonance", predicted: geometry.firstResonance, measured: measuredHz }),
+    };
+    const fit = calibrateOnEarlierSweeps(coil, calibrationSweeps, sweep.takenAt);
+    if (!fit) return { ok: true, measuredHz, geometryOnly, calibrated: { ok: false, reason: "Nothing to calibrate on yet: no earlier sweep of this coil shows a series resonance." } };
+    const predictedHz = predictBuild(secondaryBuildOf(coil, spec, fit.calibration.environmentCapacitance)).firstResonance;
+    return {
+      ok: true,
+      measuredHz,
+      geometryOnly,
+      calibrated: {
+        ok: true,
+        predictedHz,
+        comparison: compareMeasured({ quantity: "firstResonance", predicted: predictedHz, measured: measuredHz }),
+        fittedOn: fit.sweeps.map((s) => ({ id: s.id, takenAt: s.takenAt })),
+      },
+    };
   } catch (error) {
     if (error instanceof CalcInputError) return { ok: false, reason: `No prediction: ${error.message}.` };
     throw error;

@@ -3,6 +3,7 @@ import { describe, expect, it } from "vitest";
 import {
   calibrateEnvironmentCapacitance,
   predictBuild,
+  predictFirstResonance,
   predictTopLoadChange,
   type SecondaryBuild,
   type TopLoadSpec,
@@ -167,5 +168,24 @@ describe("predictTopLoadChange", () => {
     expect(() => predictTopLoadChange(coil, Number.NaN, null)).toThrow(/^calibratedEnvironmentCapacitance:/);
     expect(() => predictTopLoadChange(coil, 0, { kind: "sphere", diameter: 0 })).toThrow(/^newTopLoad\.diameter:/);
     expect(() => predictTopLoadChange(coil, -50e-12, null)).toThrow(/^calibratedEnvironmentCapacitance:/);
+  });
+});
+
+describe("predictFirstResonance", () => {
+  it("is predictBuild's first resonance (Thomson's formula on the same L and C)", () => {
+    const build = { ...coil, topLoad: { kind: "sphere", diameter: 0.1 } as const, environmentCapacitance: 2e-12 };
+    expect(predictFirstResonance(build)).toBe(predictBuild(build).firstResonance);
+    expect(() => predictFirstResonance({ ...coil, environmentCapacitance: -1e-9 })).toThrow(/^environmentCapacitance:/);
+  });
+});
+
+describe("predictBuild with an aluminium winding", () => {
+  it("scales the DC resistance by the resistivity ratio 0.028264 / (1/58) (IEC 60889 / IEC 60028, aluminium from memory)", () => {
+    const copper = predictBuild(coil);
+    const aluminium = predictBuild({ ...coil, wireMaterial: "aluminium" });
+    expect(aluminium.dcResistance / copper.dcResistance).toBeCloseTo(0.028264 * 58, 9);
+    expect(aluminium.qEstimate).toBeLessThan(copper.qEstimate);
+    expect(aluminium.firstResonance).toBe(copper.firstResonance);
+    expect(() => predictBuild({ ...coil, wireMaterial: "silver" as never })).toThrow(/^wireMaterial:/);
   });
 });

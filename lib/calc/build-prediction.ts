@@ -9,7 +9,7 @@
  * by tens of percent — so the environment term is calibrated per coil from measured sweeps and may come out
  * negative when the models overstate the capacitance.
  */
-import { COPPER_RESISTIVITY_20C_OHM_M } from "./constants";
+import { WIRE_RESISTIVITY_20C_OHM_M, type WireMaterial } from "./constants";
 import { CalcInputError, requireFinite, requireNonNegative, requirePositive } from "./errors";
 import { solenoidInductance, wheelerInductance } from "./inductance";
 import { capacitanceForResonance, resonantFrequency } from "./resonance";
@@ -30,7 +30,9 @@ export interface SecondaryBuild {
   readonly turns: number;
   /** Bare copper diameter of the wire, m. */
   readonly wireDiameter: number;
-  /** Wire resistivity, Ω·m; default annealed copper at 20 °C (IEC 60028). */
+  /** Wire material; sets the resistivity at 20 °C (copper IEC 60028, aluminium IEC 60889). Default copper. */
+  readonly wireMaterial?: WireMaterial;
+  /** Wire resistivity, Ω·m; overrides wireMaterial when given. */
   readonly resistivity?: number;
   /** Top load on the coil; null or absent for a bare coil. */
   readonly topLoad?: TopLoadSpec | null;
@@ -135,7 +137,9 @@ function describeTopLoad(topLoad: TopLoadSpec | null | undefined): string {
  */
 export function predictBuild(build: SecondaryBuild): BuildPrediction {
   const coil = modelCoil(build);
-  const resistivity = requirePositive("resistivity", build.resistivity ?? COPPER_RESISTIVITY_20C_OHM_M);
+  const material = build.wireMaterial ?? "copper";
+  if (!Object.hasOwn(WIRE_RESISTIVITY_20C_OHM_M, material)) throw new CalcInputError("wireMaterial", "copper or aluminium", material);
+  const resistivity = requirePositive("resistivity", build.resistivity ?? WIRE_RESISTIVITY_20C_OHM_M[material]);
   const topLoad = computeTopLoadCapacitance(build.topLoad, "topLoad");
   const environment = requireFinite("environmentCapacitance", build.environmentCapacitance ?? 0);
   const total = coil.selfCapacitance + topLoad + environment;
@@ -161,6 +165,9 @@ export function predictBuild(build: SecondaryBuild): BuildPrediction {
       : environment < 0
         ? "The environment capacitance is negative: it corrects models that overstate this coil's capacitance and is not a physical capacitance."
         : "The environment capacitance is the value given (normally calibrated from this coil's sweeps).",
+    build.resistivity === undefined
+      ? `Resistance uses ${material === "aluminium" ? "hard-drawn aluminium (0.028264 Ω·mm²/m, IEC 60889)" : "annealed copper (1/58 Ω·mm²/m, IEC 60028)"} at 20 °C.`
+      : "Resistance uses the resistivity given.",
     "AC resistance counts skin effect only; the proximity effect between neighbouring turns (Medhurst's factor, about 1.2–5) is neglected.",
     "Q = ωL/R_ac neglects radiation, dielectric and proximity losses, so it is an upper bound on the real Q.",
   ];
@@ -180,6 +187,17 @@ export function predictBuild(build: SecondaryBuild): BuildPrediction {
     qEstimate: (2 * Math.PI * firstResonance * coil.inductance) / acResistance,
     assumptions,
   };
+}
+
+/**
+ * The lumped first series resonance alone, f = 1/(2π√(L·C)) (Thomson's formula with predictBuild's L and C), without
+ * the wire's resistance and Q: for callers that predict many sweeps (the fleet's prediction quality).
+ */
+export function predictFirstResonance(build: SecondaryBuild): number {
+  const coil = modelCoil(build);
+  const total = coil.selfCapacitance + computeTopLoadCapacitance(build.topLoad, "topLoad") + requireFinite("environmentCapacitance", build.environmentCapacitance ?? 0);
+  if (total <= 0) throw new CalcInputError("environmentCapacitance", "a value that leaves a positive total capacitance", build.environmentCapacitance);
+  return resonantFrequency(coil.inductance, total);
 }
 
 /** One measured sweep used for calibration. */

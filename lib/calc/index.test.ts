@@ -9,7 +9,8 @@ describe("the public surface of lib/calc", () => {
       "skinDepth", "awgDiameter", "copperResistivity", "predictBuild", "calibrateEnvironmentCapacitance", "predictTopLoadChange",
       "compareMeasured", "sessionMargins", "analyzeWarmUp", "theilSenTrend", "projectCrossing", "assessCoilHealth",
       "rankLikelyCauses", "evaluateClearance", "clearanceLapse", "partReliability", "estimateSwitchLosses", "crossCheckSinkPower",
-      "broadcastBandAt",
+      "broadcastBandAt", "predictFromGeometry", "propagateUncertainty", "estimateRunningOffset", "predictRunningFrequency",
+      "summarizeDeviations",
     ] as const;
     for (const name of names) expect(typeof (calc as Record<string, unknown>)[name], name).toBe("function");
   });

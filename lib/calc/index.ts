@@ -21,6 +21,10 @@ export * from "./helix-modes";
 export * from "./top-load";
 export * from "./resonance";
 export * from "./build-prediction";
+export * from "./uncertainty-propagation";
+export * from "./prediction-band";
+export * from "./running-frequency";
+export * from "./deviation-summary";
 export * from "./comparison";
 export * from "./broadcast-band";
 

@@ -5,7 +5,7 @@
 import { prisma } from "./client";
 import { Prisma, type Coil, type Component, type RunSession, type Sweep, type TopLoad } from "./generated/client";
 import { HEALTH_WINDOW, selectHealthWindow } from "../analysis/health-window";
-import { findCurrentTopLoad } from "../analysis/coil-comparison";
+import { findCurrentTopLoad } from "../analysis/current-top-load";
 import { rawDate } from "./raw-read";
 
 const sessionSelect = {

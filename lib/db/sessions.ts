@@ -1,5 +1,6 @@
 /** Run sessions: reads and writes. */
 import { prisma } from "./client";
+import { findCurrentTopLoadId } from "../analysis/current-top-load";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
@@ -43,10 +44,14 @@ export async function listSessions(filter: SessionListFilter = {}, pageRequest: 
   return toPage(rows, total, request);
 }
 
-/** The top load the coil's most recent session used, the form's default. */
+/** The form's default: the coil's current top load by the one rule (lib/analysis/current-top-load.ts). */
 export async function findLastTopLoadId(coilId: string): Promise<string | null> {
-  const last = await prisma.runSession.findFirst({ where: { coilId, topLoadId: { not: null } }, orderBy: { startedAt: "desc" }, select: { topLoadId: true } });
-  return last?.topLoadId ?? null;
+  const [session, sweep, topLoads] = await Promise.all([
+    prisma.runSession.findFirst({ where: { coilId, topLoadId: { not: null } }, orderBy: { startedAt: "desc" }, select: { startedAt: true, topLoadId: true } }),
+    prisma.sweep.findFirst({ where: { coilId }, orderBy: { takenAt: "desc" }, select: { takenAt: true, topLoadId: true } }),
+    prisma.topLoad.findMany({ where: { coilId }, orderBy: [{ createdAt: "asc" }, { id: "asc" }], select: { id: true, retiredAt: true } }),
+  ]);
+  return findCurrentTopLoadId(sweep ? [sweep] : [], session ? [session] : [], topLoads);
 }
 
 /**

@@ -28,6 +28,20 @@ const SESSION_NOTES = [
   "Breakout point moved after re-seating the top load.",
 ];
 
+/**
+ * Where and how a sweep or a run happened, and what that does to the secondary's environment capacitance, as a
+ * share of the coil's total capacitance (common practice: another bench, a person nearby or the strike rail moved
+ * shift a small secondary's first resonance by a percent or more; docs/references.md). Invented for the demo.
+ */
+const BENCH_SETTINGS = [
+  { notes: "Workshop bench, coil 1 m from the wall, strike rail removed, humidity 45 %.", capacitanceShare: 0 },
+  { notes: "Club-room table by the window, strike rail 40 cm away, humidity 60 %.", capacitanceShare: 0.025 },
+  { notes: "Workshop bench, two members standing close to watch, humidity 50 %.", capacitanceShare: 0.04 },
+  { notes: "Garage floor on a plywood board, nothing within 2 m, humidity 70 %.", capacitanceShare: -0.02 },
+  { notes: "Open-evening bench, metal shelving 60 cm behind, humidity 55 %.", capacitanceShare: 0.05 },
+  { notes: "Workshop bench after the winter re-arrangement, scope cart beside it, humidity 35 %.", capacitanceShare: 0.015 },
+] as const;
+
 interface SessionRecord {
   id: string;
   day: number;
@@ -79,8 +93,18 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
     const coilRng = createSeededRandom(DEMO_SEED + hashTag(coil.tag));
     const wireDiameterM = awgDiameter(coil.wireGaugeAwg);
     const coilId = `coil-${coil.tag}`;
-    const truth = (tl: DemoTopLoad) =>
-      predictBuild({ formDiameter: coil.formDiameterM, windingLength: coil.windingLengthM, turns: coil.turns, wireDiameter: wireDiameterM, topLoad: topLoadSpec(tl), environmentCapacitance: coil.trueEnvironmentCapacitanceF });
+    const truthIn = (tl: DemoTopLoad, environmentCapacitanceF: number) =>
+      predictBuild({ formDiameter: coil.formDiameterM, windingLength: coil.windingLengthM, turns: coil.turns, wireDiameter: wireDiameterM, topLoad: topLoadSpec(tl), environmentCapacitance: environmentCapacitanceF });
+    const truth = (tl: DemoTopLoad) => truthIn(tl, coil.trueEnvironmentCapacitanceF);
+    // A stream of its own for the bench each sweep and run happens on, and the coil's driver offset.
+    const benchRng = createSeededRandom(DEMO_SEED + hashTag(coil.tag) + 7_919);
+    const onBench = (tl: DemoTopLoad) => {
+      const setting = pick(BENCH_SETTINGS, benchRng);
+      const share = setting.capacitanceShare + 0.005 * benchRng.normal();
+      return { notes: setting.notes, prediction: truthIn(tl, coil.trueEnvironmentCapacitanceF + share * truth(tl).totalCapacitance) };
+    };
+    // f_run / f_sweep of this coil's driver: the primary and the feedback path pull it 1–4 % above the swept resonance.
+    const runningOffset = 1.01 + 0.03 * benchRng.uniform();
     const topLoadOn = (day: number) => [...coil.topLoads].reverse().find((t) => t.fromDay <= day) ?? coil.topLoads[0]!;
     const base = truth(coil.topLoads[0]!);
 
@@ -138,19 +162,20 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
     const sweepList: { takenAt: Date; firstHz: number; topLoad: DemoTopLoad }[] = [];
     [...sweepDays].sort((a, b) => a - b).forEach((day, n) => {
       const tl = topLoadOn(day);
-      const prediction = truth(tl);
+      const bench = onBench(tl);
+      const prediction = bench.prediction;
       const sweepId = `sweep-${coil.tag}-${n + 1}`;
       const seriesResistanceOhm = 22_000;
       const sourceAmplitudeV = 20;
       const points = synthesizeSweep(
-        { firstSeriesResonanceHz: prediction.firstResonance, inductanceH: prediction.inductance, selfCapacitanceF: prediction.selfCapacitance, topCapacitanceF: prediction.topLoadCapacitance + coil.trueEnvironmentCapacitanceF, seriesResistanceOhm, sourceAmplitudeV },
+        { firstSeriesResonanceHz: prediction.firstResonance, inductanceH: prediction.inductance, selfCapacitanceF: prediction.selfCapacitance, topCapacitanceF: prediction.topLoadCapacitance + prediction.environmentCapacitance, seriesResistanceOhm, sourceAmplitudeV },
         coilRng,
       );
       const analysis = analyzeSweep({ seriesResistance: seriesResistanceOhm, sourceAmplitude: sourceAmplitudeV, points });
       const first = analysis.seriesResonances[0];
       if (!first) throw new Error(`Demo sweep ${sweepId} shows no series resonance`);
       const takenAt = at(day, 15, 30);
-      data.sweeps.push({ id: sweepId, coilId, topLoadId: topLoadId(coil, tl), takenAt, takenById: userId(pick(loggers, coilRng)), seriesResistanceOhm, sourceAmplitudeV, amplitudeConvention: "peak_to_peak", environmentNotes: "Workshop bench, coil 1 m from the wall, strike rail removed.", pointCount: points.length, firstSeriesResonanceHz: first.frequency, createdAt: takenAt });
+      data.sweeps.push({ id: sweepId, coilId, topLoadId: topLoadId(coil, tl), takenAt, takenById: userId(pick(loggers, coilRng)), seriesResistanceOhm, sourceAmplitudeV, amplitudeConvention: "peak_to_peak", environmentNotes: bench.notes, pointCount: points.length, firstSeriesResonanceHz: first.frequency, createdAt: takenAt });
       for (const p of points) data.sweepPoints.push({ sweepId, frequencyHz: p.frequency, amplitudeV: round(p.amplitude, 4) });
       analysis.seriesResonances.forEach((r, i) => data.sweepResonances.push({ id: `${sweepId}-s${i + 1}`, sweepId, kind: "series", ordinal: i + 1, frequencyHz: r.frequency, impedanceOhm: r.impedance, q: r.q ?? null }));
       analysis.parallelResonances.forEach((r, i) => data.sweepResonances.push({ id: `${sweepId}-p${i + 1}`, sweepId, kind: "parallel", ordinal: i + 1, frequencyHz: r.frequency, impedanceOhm: r.impedance, q: r.q ?? null }));
@@ -165,7 +190,8 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
     coilRow.environmentCapacitanceF = calibration.environmentCapacitance;
     coilRow.environmentCalibratedAt = sweepList[sweepList.length - 1]!.takenAt;
 
-    sessionsByCoil.set(coilId, generateSessions(coil, coilId, coilRng, at, truth, topLoadOn, data, loggers.map(userId)));
+    const runningOn = (tl: DemoTopLoad) => onBench(tl).prediction.firstResonance * runningOffset;
+    sessionsByCoil.set(coilId, generateSessions(coil, coilId, coilRng, at, runningOn, topLoadOn, data, loggers.map(userId)));
   }
 
   addFailures(data, sessionsByCoil, at, userId);
@@ -179,7 +205,8 @@ function generateSessions(
   coilId: string,
   rng: SeededRandom,
   at: (day: number, hour?: number, minute?: number) => Date,
-  truth: (tl: DemoTopLoad) => ReturnType<typeof predictBuild>,
+  /** The running frequency this top load would give on the bench of the day, before reading noise, Hz. */
+  runningOn: (tl: DemoTopLoad) => number,
   topLoadOn: (day: number) => DemoTopLoad,
   data: DemoDataset,
   loggerIds: string[],
@@ -206,7 +233,7 @@ function generateSessions(
     const dissipationW = coil.switchLossFraction * supplyVoltageV * supplyCurrentA * (1 + 0.05 * rng.normal());
     const samples = synthesizeWarmUp({ ambientC: ambientTempC, dissipationW, sinkResistanceKPerW: coil.sink.thermalResistanceKPerW * sinkFactor, sinkMassKg: coil.sink.massKg, durationS }, rng);
     const tl = topLoadOn(day);
-    const runningFrequencyHz = Math.round((truth(tl).firstResonance * (1.035 + 0.006 * rng.normal())) / 100) * 100;
+    const runningFrequencyHz = Math.round((runningOn(tl) * (1 + 0.004 * rng.normal())) / 100) * 100;
     const peakFactor =
       coil.topology === "single_switch" ? (clamped ? 2.7 + 0.08 * rng.normal() : 5.55 + 0.1 * rng.normal()) : coil.topology === "push_pull" ? 2.3 + 0.08 * rng.normal() : 1.15 + 0.04 * rng.normal();
     const nearOverVoltage = failure?.mode === "over_voltage" && !clamped && day >= failure.day - 40;

@@ -6,7 +6,7 @@ import { hasRole } from "@/lib/auth/roles";
 import { readCoilPage, type CoilPageRecords } from "@/lib/db/coil-page";
 import type { ClearancePolicyRules } from "@/lib/calc/clearance-policy";
 import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
-import { compareCoil } from "@/lib/analysis/coil-comparison";
+import { readCoilComparison } from "@/lib/db/prediction-history";
 import { selectHealthWindow } from "@/lib/analysis/health-window";
 import { CalcInputError } from "@/lib/calc/errors";
 import { describeTurnsCount } from "@/lib/validation/coil";
@@ -45,7 +45,7 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const records = await readCoilPage(tag);
   if (!records) notFound();
   const { coil, history, timeline, policy } = records;
-  const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
+  const comparison = await readCoilComparison(history);
   const { health, latest } = assess(history, policy.rules);
   const canEdit = hasRole(user.role, "steward");
   const base = `/coils/${encodeURIComponent(coil.tag)}`;

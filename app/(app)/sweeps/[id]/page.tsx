@@ -29,7 +29,7 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const [calibrationSweeps, policy] = await Promise.all([listCalibrationSweeps(sweep.coilId), getCurrentPolicy()]);
 
   const curve = impedanceCurve(sweep);
-  const comparison = compareWithPrediction(sweep.coil, sweep.topLoad, sweep.firstSeriesResonanceHz);
+  const comparison = compareWithPrediction(sweep.coil, sweep.topLoad, sweep, calibrationSweeps);
   const calibration = summarizeCalibration(sweep.coil, calibrationSweeps);
 
   let whatIfErrors: FieldErrors = {};
