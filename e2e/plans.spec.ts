@@ -58,7 +58,7 @@ test("a member plans two variants and compares them; a steward saves one as a pl
   await expect(table.getByRole("row", { name: /^First resonance \(differs\)/ })).toBeVisible();
   await expect(table.getByRole("row", { name: /Peak with clamp/ })).toContainText("150 V");
   await expect(table.getByRole("row", { name: /Steady junction temperature/ })).toContainText("°C");
-  await expect(table.getByRole("row", { name: /Medium-wave note/ })).toBeVisible();
+  await expect(table.getByRole("row", { name: /Broadcast note/ })).toBeVisible();
   await expect(page.getByText(/passed the team's checks on paper, not that the build is safe/)).toBeVisible();
   // Members plan; saving is for stewards.
   await expect(page.getByRole("button", { name: "Save as a planned coil" })).toHaveCount(0);

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { CalcInputError } from "../calc/errors";
+import { DEFAULT_BUILD_TOLERANCES, DEFAULT_ENVIRONMENT_CAPACITANCE_F, predictFromGeometry } from "../calc/prediction-band";
 import {
   planBroadcastNote,
   planBuild,
@@ -78,27 +79,29 @@ describe("planFirstResonance", () => {
     expect(resonance.topLoadCapacitanceF).toBeCloseTo(4 * Math.PI * EPSILON_0 * 0.1, 16);
   });
 
-  it("gives the first resonance by Thomson's formula f = 1/(2π√(LC)) of L and the summed C", () => {
-    const thomson = 1 / (2 * Math.PI * Math.sqrt(resonance.inductanceH * (resonance.selfCapacitanceF + resonance.topLoadCapacitanceF)));
+  it("gives the first resonance by Thomson's formula f = 1/(2π√(LC)) of L and the summed C, surroundings included", () => {
+    const thomson = 1 / (2 * Math.PI * Math.sqrt(resonance.inductanceH * resonance.totalCapacitanceF));
     expect(resonance.firstResonanceHz / thomson).toBeCloseTo(1, 10);
+    // The summed C carries the documented default surroundings' capacitance (prediction-band.ts, common practice).
+    expect(resonance.totalCapacitanceF - resonance.selfCapacitanceF - resonance.topLoadCapacitanceF).toBeCloseTo(DEFAULT_ENVIRONMENT_CAPACITANCE_F, 16);
+  });
+
+  it("plans exactly the geometry-only prediction a coil page shows for the same build (one model, one band)", () => {
+    const band = predictFromGeometry({ formDiameter: squareCoil.formDiameterM, windingLength: winding.windingLengthM, turns: winding.turns, wireDiameter: squareCoil.wireDiameterM, topLoad: squareCoil.topLoad });
+    expect(resonance.firstResonanceHz).toBe(band.firstResonance);
+    expect([resonance.lowHz, resonance.highHz]).toEqual([band.low, band.high]);
   });
 
   it("shows Wheeler within about 1 % of Nagaoka for ℓ/D = 1 (Wheeler 1928: ~1 % for ℓ/D > 0.4)", () => {
     expect(Math.abs(resonance.wheelerDeviation)).toBeLessThan(0.015);
   });
 
-  it("propagates the default 2 % (L) and 15 % (C) as u_f = ½√(u_L² + u_C²), k = 2 (GUM §5.1, §6.3)", () => {
-    const u = 0.5 * Math.sqrt(0.02 ** 2 + 0.15 ** 2); // 0.075664 (hand-computed)
-    expect(resonance.relativeUncertainty).toBeCloseTo(0.075664, 5);
-    expect(resonance.lowHz / resonance.firstResonanceHz).toBeCloseTo(1 - 2 * u, 10);
-    expect(resonance.highHz / resonance.firstResonanceHz).toBeCloseTo(1 + 2 * u, 10);
-  });
-
   it("never narrows the band when an input tolerance widens (property; GUM propagation is monotonic)", () => {
     fc.assert(
-      fc.property(fc.double({ min: 0, max: 0.5, noNaN: true }), fc.double({ min: 0, max: 0.5, noNaN: true }), fc.double({ min: 0, max: 0.3, noNaN: true }), (uL, uC, extra) => {
-        const narrow = planFirstResonance(squareCoil, winding, { inductance: uL, capacitance: uC });
-        const wider = planFirstResonance(squareCoil, winding, { inductance: uL + extra, capacitance: uC });
+      fc.property(fc.double({ min: 0, max: 0.05, noNaN: true }), fc.double({ min: 0, max: 0.3, noNaN: true }), fc.double({ min: 0, max: 0.3, noNaN: true }), (uLength, uModel, extra) => {
+        const base = { ...DEFAULT_BUILD_TOLERANCES, windingLength: uLength, capacitanceModel: uModel };
+        const narrow = planFirstResonance(squareCoil, winding, base);
+        const wider = planFirstResonance(squareCoil, winding, { ...base, capacitanceModel: uModel + extra });
         return wider.highHz - wider.lowHz >= narrow.highHz - narrow.lowHz;
       }),
     );
@@ -106,18 +109,24 @@ describe("planFirstResonance", () => {
 });
 
 describe("planBroadcastNote", () => {
-  it("lists the odd harmonics in Region 1's 526.5–1606.5 kHz band (ITU RR Article 5)", () => {
-    // 200 kHz: 3rd 600 kHz, 5th 1000 kHz, 7th 1400 kHz are inside; 9th 1800 kHz is above.
-    const note = planBroadcastNote({ firstResonanceHz: 200e3, lowHz: 170e3, highHz: 230e3 }, 1);
+  it("lists even and odd harmonics in Region 2's 525–1705 kHz band (ITU RR Article 5; a single switch drives asymmetrically)", () => {
+    // 300 kHz: 2nd 600 kHz … 5th 1500 kHz are inside; 6th 1800 kHz is above. Region 2 has no long-wave broadcasting.
+    const note = planBroadcastNote({ firstResonanceHz: 300e3, lowHz: 280e3, highHz: 320e3 }, 2);
     expect(note.fundamentalInBand).toBe(false);
-    expect(note.harmonics.map((h) => h.harmonic)).toEqual([3, 5, 7]);
-    expect(note.bandOverlaps).toBe(false);
+    expect(note.harmonics.map((h) => h.harmonic)).toEqual([2, 3, 4, 5]);
+    expect(note.bandReached).toBeNull();
+  });
+
+  it("flags a fundamental in Region 1's long-wave band, 148.5–283.5 kHz (ITU RR Article 5, from memory)", () => {
+    const note = planBroadcastNote({ firstResonanceHz: 200e3, lowHz: 170e3, highHz: 230e3 }, 1);
+    expect(note.fundamentalInBand).toBe(true);
+    expect(note.bandReached?.name).toBe("long-wave");
   });
 
   it("flags a fundamental inside Region 2's 525–1705 kHz band (ITU RR Article 5)", () => {
     const note = planBroadcastNote({ firstResonanceHz: 600e3, lowHz: 510e3, highHz: 690e3 }, 2);
     expect(note.fundamentalInBand).toBe(true);
-    expect(note.bandOverlaps).toBe(true);
+    expect(note.bandReached?.name).toBe("medium-wave");
   });
 });
 

@@ -5,34 +5,21 @@
  * planVoltagePeak, planThermal) so a better model can replace one of them without touching the others.
  * Inputs are SI (m, V, A, W, K/W, kg), temperatures in °C. Pure TypeScript: no framework or database.
  */
-import { broadcastBand, harmonicsInBroadcastBand, type BroadcastBand, type BroadcastHarmonic, type ItuRegion } from "../calc/broadcast-band";
+import { broadcastBands, harmonicsInBroadcastBand, type NamedBroadcastBand, type BroadcastHarmonic, type ItuRegion } from "../calc/broadcast-band";
 import { predictBuild } from "../calc/build-prediction";
-import { COPPER_RESISTIVITY_20C_OHM_M } from "../calc/constants";
+import { DEFAULT_BUILD_TOLERANCES, PREDICTION_BAND_COVERAGE_FACTOR, predictFromGeometry, type BuildTolerances } from "../calc/prediction-band";
 import { junctionTemperature, junctionToCaseFromRating } from "../calc/derating";
 import type { DriverTopology } from "../calc/driver-topology";
 import { CalcInputError } from "../calc/errors";
 import { ALUMINIUM_SPECIFIC_HEAT_J_PER_KG_K, thermalTimeConstant, timeToReachTemperature, type HeatingCurve } from "../calc/heating";
-import { classifyHeadroom, type Margin, type MarginStatus } from "../calc/margin";
+import type { Margin, MarginStatus } from "../calc/margin";
 import { closeWoundLength, closeWoundTurns, DEFAULT_INSULATION_BUILD_FACTOR } from "../calc/secondary-geometry";
 import { assessThermalMargin, TYPICAL_CASE_TO_SINK_K_PER_W } from "../calc/thermal-margin";
 import type { TopLoadShape } from "../calc/top-load";
-import { estimatePeakSwitchVoltage } from "../calc/voltage-margin";
+import { assessVoltageMargin, estimatePeakSwitchVoltage } from "../calc/voltage-margin";
 
-/**
- * Resistivity of aluminium conductor wire at 20 °C, Ω·m: 0.028264 Ω·mm²/m (IEC 60889 hard-drawn aluminium,
- * from memory). Used only for the winding's DC resistance shown beside the plan.
- */
-export const ALUMINIUM_RESISTIVITY_20C_OHM_M = 2.8264e-8;
-
-/**
- * Default relative standard uncertainties of the lumped model's L and C for a coil not yet built.
- * L: 2 % for the winding as it will really come out (form diameter, turns, length; common practice).
- * C: 15 %, the middle of the ±10–20 % docs/references.md gives for Medhurst's C paired with L on a base-grounded coil,
- * which also has to cover a mounted top load differing from its free-space value.
- */
-export const PLAN_DEFAULT_RELATIVE_UNCERTAINTY = { inductance: 0.02, capacitance: 0.15 } as const;
 /** Coverage factor k = 2: about 95 % for a normal distribution (JCGM 100:2008, GUM §6.3). */
-export const PLAN_COVERAGE_FACTOR = 2;
+export const PLAN_COVERAGE_FACTOR = PREDICTION_BAND_COVERAGE_FACTOR;
 /** Share of the supply's input power assumed to be dissipated in the switch when the member states none (common practice). */
 export const DEFAULT_SWITCH_LOSS_FRACTION = 0.1;
 
@@ -112,12 +99,13 @@ export interface PlannedResonance {
 
 export interface PlannedBroadcastNote {
   region: ItuRegion;
-  band: BroadcastBand;
+  /** The region's broadcast bands (long wave in Region 1, medium wave everywhere). */
+  bands: NamedBroadcastBand[];
   fundamentalInBand: boolean;
-  /** Odd harmonics (fundamental included) of the planned resonance that land in the band. */
+  /** Harmonics (fundamental included; even ones too, a single switch drives asymmetrically) that land in a band. */
   harmonics: BroadcastHarmonic[];
-  /** Whether the resonance band (low to high) overlaps the broadcast band. */
-  bandOverlaps: boolean;
+  /** The band the resonance's uncertainty band (low to high) reaches into, if any. */
+  bandReached: NamedBroadcastBand | null;
 }
 
 export interface PlannedVoltageCase {
@@ -180,80 +168,78 @@ export function planWinding(input: Pick<BuildPlanInput, "turns" | "windingLength
 }
 
 /**
- * First resonance of the lumped model (Nagaoka L, Medhurst C_self, free-space top load; build-prediction.ts) with a
- * band from default input tolerances. f = 1/(2π√(LC)), so by the law of propagation of uncertainty (GUM, JCGM 100:2008
- * §5.1, relative form for a product of powers) u_f/f = ½√((u_L/L)² + (u_C/C)²); the band is f(1 ± k·u_f/f), k = 2.
- * No surroundings capacitance is added: the band is meant to cover it until the coil's own sweeps calibrate one.
+ * The planned first resonance is the same geometry-only prediction every coil page shows (prediction-band.ts:
+ * Nagaoka L, Medhurst C_self, the top load's free-space capacitance and the documented default surroundings
+ * capacitance, with its GUM band from the input tolerances), so the coil's later sweeps are compared with
+ * exactly what was planned. Wheeler's L and the winding's DC resistance (for the wire's material) come from
+ * predictBuild beside it.
  */
 export function planFirstResonance(
   input: Pick<BuildPlanInput, "formDiameterM" | "wireDiameterM" | "wireMaterial" | "topLoad">,
   winding: PlannedWinding,
-  uncertainty: { inductance: number; capacitance: number } = PLAN_DEFAULT_RELATIVE_UNCERTAINTY,
+  tolerances: BuildTolerances = DEFAULT_BUILD_TOLERANCES,
 ): PlannedResonance {
-  const prediction = predictBuild({
-    formDiameter: input.formDiameterM,
-    windingLength: winding.windingLengthM,
-    turns: winding.turns,
-    wireDiameter: input.wireDiameterM,
-    resistivity: input.wireMaterial === "aluminium" ? ALUMINIUM_RESISTIVITY_20C_OHM_M : COPPER_RESISTIVITY_20C_OHM_M,
-    topLoad: input.topLoad,
-  });
-  const relative = 0.5 * Math.hypot(uncertainty.inductance, uncertainty.capacitance);
-  const f = prediction.firstResonance;
+  const geometry = { formDiameter: input.formDiameterM, windingLength: winding.windingLengthM, turns: winding.turns, wireDiameter: input.wireDiameterM };
+  const prediction = predictBuild({ ...geometry, wireMaterial: input.wireMaterial, topLoad: input.topLoad });
+  const band = predictFromGeometry({ ...geometry, topLoad: input.topLoad }, tolerances);
+  const f = band.firstResonance;
   return {
-    inductanceH: prediction.inductance,
+    inductanceH: band.inductance,
     wheelerInductanceH: prediction.wheelerInductance,
-    wheelerDeviation: prediction.wheelerInductance / prediction.inductance - 1,
-    selfCapacitanceF: prediction.selfCapacitance,
-    topLoadCapacitanceF: prediction.topLoadCapacitance,
-    totalCapacitanceF: prediction.totalCapacitance,
+    wheelerDeviation: prediction.wheelerInductance / band.inductance - 1,
+    selfCapacitanceF: band.selfCapacitance,
+    topLoadCapacitanceF: band.topLoadCapacitance,
+    totalCapacitanceF: band.selfCapacitance + band.topLoadCapacitance + band.environmentCapacitance,
     firstResonanceHz: f,
-    relativeUncertainty: relative,
-    lowHz: f * (1 - PLAN_COVERAGE_FACTOR * relative),
-    highHz: f * (1 + PLAN_COVERAGE_FACTOR * relative),
+    relativeUncertainty: band.standardUncertainty / f,
+    lowHz: band.low,
+    highHz: band.high,
     dcResistanceOhm: prediction.dcResistance,
-    basis: [
-      `Band: ±${Math.round(PLAN_COVERAGE_FACTOR * relative * 1000) / 10} % (k = ${PLAN_COVERAGE_FACTOR}) from assumed uncertainties of ${uncertainty.inductance * 100} % on L and ${uncertainty.capacitance * 100} % on C, combined per the GUM.`,
-      "No capacitance of the surroundings is added: a coil on a bench usually resonates lower than this figure; its sweeps will calibrate that.",
-      ...prediction.assumptions.filter((line) => !line.startsWith("No environment capacitance")),
-    ],
+    basis: band.basis,
   };
 }
 
-/** The medium-wave broadcast note for the policy's ITU region (broadcast-band.ts, ITU RR Article 5). */
+/** The broadcast note for the policy's ITU region, every band of it (broadcast-band.ts, ITU RR Article 5). */
 export function planBroadcastNote(resonance: Pick<PlannedResonance, "firstResonanceHz" | "lowHz" | "highHz">, region: ItuRegion): PlannedBroadcastNote {
-  const band = broadcastBand(region);
+  const bands = broadcastBands(region);
   const harmonics = harmonicsInBroadcastBand(resonance.firstResonanceHz, region);
   return {
     region,
-    band,
+    bands,
     fundamentalInBand: harmonics.some((h) => h.harmonic === 1),
     harmonics,
-    bandOverlaps: resonance.lowHz <= band.upperEdge && resonance.highHz >= band.lowerEdge,
+    bandReached: bands.find((band) => resonance.lowHz <= band.upperEdge && resonance.highHz >= band.lowerEdge) ?? null,
   };
 }
 
 /**
- * Expected collector/drain peak and its headroom against the rating, without and with a clamp. Unclamped: the
- * topology's rule of thumb (voltage-margin.ts). Clamped: a planned clamp holds the peak at its clamp voltage, taken
- * as the peak even when the unclamped rule of thumb is lower (the clamp is set where the spike is expected to reach);
- * with no clamp planned, the generic clamped rule of thumb.
+ * Expected collector/drain peak and its headroom against the rating, without and with a clamp, judged by the same
+ * voltage margin a logged session gets (voltage-margin.ts): unclamped, the topology's rule of thumb; with a planned
+ * clamp, the clamp's voltage (a clamped peak is the clamp's voltage); with none planned, the generic clamped rule of thumb.
  */
 export function planVoltagePeak(input: Pick<BuildPlanInput, "supplyVoltageV" | "topology" | "clampVoltageV" | "transistor">, policy: Pick<PlanPolicy, "minVoltageHeadroom">): PlannedVoltage {
-  const rating = input.transistor.voltageRatingV;
-  const judge = (peakV: number, basis: string): PlannedVoltageCase => {
-    const headroom = 1 - peakV / rating;
-    return { peakV, headroom, status: classifyHeadroom(headroom, policy.minVoltageHeadroom), basis };
-  };
-  const unclampedEstimate = estimatePeakSwitchVoltage({ supplyVoltageV: input.supplyVoltageV, topology: input.topology, clamped: false });
-  const unclamped = judge(unclampedEstimate.peakVoltageV, `${unclampedEstimate.factor} × supply: ${unclampedEstimate.basis}`);
   const clampV = input.clampVoltageV ?? null;
+  if (clampV !== null && clampV < input.supplyVoltageV) throw new CalcInputError("clampVoltageV", `a clamp voltage above the supply (${input.supplyVoltageV} V)`, clampV);
+  const judge = (clamped: boolean, clampVoltageV: number | null, basis: (factor: number, estimateBasis: string) => string): PlannedVoltageCase => {
+    const margin = assessVoltageMargin({
+      voltageRatingV: input.transistor.voltageRatingV,
+      supplyVoltageV: input.supplyVoltageV,
+      topology: input.topology,
+      clamped,
+      clampVoltageV,
+      thinBelowHeadroom: policy.minVoltageHeadroom,
+    });
+    if (margin.value === null || margin.headroom === null || margin.status === "unknown") {
+      throw new CalcInputError("transistor.voltageRatingV", "a voltage rating to judge the planned peak against", input.transistor.voltageRatingV);
+    }
+    const estimate = estimatePeakSwitchVoltage({ supplyVoltageV: input.supplyVoltageV, topology: input.topology, clamped });
+    return { peakV: margin.value, headroom: margin.headroom, status: margin.status, basis: basis(estimate.factor, estimate.basis) };
+  };
+  const unclamped = judge(false, null, (factor, basis) => `${factor} × supply: ${basis}`);
   if (clampV !== null) {
-    if (clampV < input.supplyVoltageV) throw new CalcInputError("clampVoltageV", `a clamp voltage above the supply (${input.supplyVoltageV} V)`, clampV);
-    return { unclamped, clamped: judge(clampV, "the planned clamp's voltage (a clamped peak is the clamp's voltage)"), clampPlanned: true };
+    return { unclamped, clamped: judge(true, clampV, () => "the planned clamp's voltage (a clamped peak is the clamp's voltage)"), clampPlanned: true };
   }
-  const generic = estimatePeakSwitchVoltage({ supplyVoltageV: input.supplyVoltageV, topology: input.topology, clamped: true });
-  return { unclamped, clamped: judge(generic.peakVoltageV, `${generic.factor} × supply: ${generic.basis} (no clamp voltage planned)`), clampPlanned: false };
+  return { unclamped, clamped: judge(true, null, (factor, basis) => `${factor} × supply: ${basis} (no clamp voltage planned)`), clampPlanned: false };
 }
 
 /**

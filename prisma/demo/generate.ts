@@ -177,8 +177,8 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
       const takenAt = at(day, 15, 30);
       data.sweeps.push({ id: sweepId, coilId, topLoadId: topLoadId(coil, tl), takenAt, takenById: userId(pick(loggers, coilRng)), seriesResistanceOhm, sourceAmplitudeV, amplitudeConvention: "peak_to_peak", environmentNotes: bench.notes, pointCount: points.length, firstSeriesResonanceHz: first.frequency, createdAt: takenAt });
       for (const p of points) data.sweepPoints.push({ sweepId, frequencyHz: p.frequency, amplitudeV: round(p.amplitude, 4) });
-      analysis.seriesResonances.forEach((r, i) => data.sweepResonances.push({ id: `${sweepId}-s${i + 1}`, sweepId, kind: "series", ordinal: i + 1, frequencyHz: r.frequency, impedanceOhm: r.impedance, q: r.q ?? null }));
-      analysis.parallelResonances.forEach((r, i) => data.sweepResonances.push({ id: `${sweepId}-p${i + 1}`, sweepId, kind: "parallel", ordinal: i + 1, frequencyHz: r.frequency, impedanceOhm: r.impedance, q: r.q ?? null }));
+      analysis.seriesResonances.forEach((r, i) => data.sweepResonances.push({ id: `${sweepId}-s${i + 1}`, sweepId, kind: "series", ordinal: i + 1, frequencyHz: r.frequency, impedanceOhm: r.impedance, q: r.q ?? null, frequencyStandardErrorHz: r.frequencyStandardError ?? null, qStandardError: r.qStandardError ?? null }));
+      analysis.parallelResonances.forEach((r, i) => data.sweepResonances.push({ id: `${sweepId}-p${i + 1}`, sweepId, kind: "parallel", ordinal: i + 1, frequencyHz: r.frequency, impedanceOhm: r.impedance, q: r.q ?? null, frequencyStandardErrorHz: r.frequencyStandardError ?? null, qStandardError: r.qStandardError ?? null }));
       sweepList.push({ takenAt, firstHz: first.frequency, topLoad: tl });
     });
     sweepsByCoil.set(coilId, sweepList);

@@ -95,12 +95,13 @@ export function describeComparison(variants: readonly PlanVariant[], results: re
   row("Resonance", "First resonance", (r) => formatQuantity(r.resonance.firstResonanceHz, "Hz"));
   row("Resonance", "Band (k = 2)", (r) => `${formatQuantity(r.resonance.lowHz, "Hz")} – ${formatQuantity(r.resonance.highHz, "Hz")}`);
   row("Resonance", "Winding DC resistance", (r) => formatQuantity(r.resonance.dcResistanceOhm, "Ω"));
-  row("Broadcast band", "Medium-wave note", (r) => {
+  row("Broadcast band", "Broadcast note", (r) => {
     const b = r.broadcast;
     const harmonics = b.harmonics.filter((h) => h.harmonic > 1).map((h) => `${h.harmonic}× at ${formatQuantity(h.frequency, "Hz")}`);
-    if (b.fundamentalInBand) return [`Fundamental inside Region ${b.region}'s band`, "danger"];
-    if (b.bandOverlaps) return [`Band reaches into Region ${b.region}'s band`, "warn"];
-    return harmonics.length > 0 ? [`Harmonics in band: ${harmonics.join(", ")}`, "warn"] : [`Clear of Region ${b.region}'s band`, "ok"];
+    const fundamental = b.harmonics.find((h) => h.harmonic === 1);
+    if (fundamental) return [`Fundamental inside Region ${b.region}'s ${fundamental.band} band`, "danger"];
+    if (b.bandReached) return [`Uncertainty band reaches into Region ${b.region}'s ${b.bandReached.name} band`, "warn"];
+    return harmonics.length > 0 ? [`Harmonics in a broadcast band: ${harmonics.join(", ")}`, "warn"] : [`Clear of Region ${b.region}'s broadcast bands`, "ok"];
   });
   row("Switch voltage", "Peak without clamp", (r, v) => [
     `${formatQuantity(r.voltage.unclamped.peakV, "V")} of ${formatQuantity(v.input.transistor.voltageRatingV, "V")}: ${formatPercent(r.voltage.unclamped.headroom)} headroom (${MARGIN_STATUS_LABEL[r.voltage.unclamped.status]})`,
