@@ -1,16 +1,14 @@
 /** The server work of app/(app)/coils/[tag]/page.tsx, without the rendering, for the large-fleet benchmark. */
 import { readCoilPage, type CoilPageRecords } from "../lib/db/coil-page";
-import { analyzeSessions, assessCoil } from "../lib/analysis/coil-health-input";
+import { judgeCoil } from "../lib/analysis/coil-health-input";
 import { compareCoil } from "../lib/analysis/coil-comparison";
-import { selectHealthWindow } from "../lib/analysis/health-window";
 import type { ClearancePolicyRules } from "../lib/calc/clearance-policy";
 
 
 /** What the page works out from what it read: the prediction table and the health judged by the current policy. */
 export function computeCoilPageFigures(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
   const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
-  const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);
-  return { comparison, health: assessCoil(analyzed, history.sweeps, new Date(), rules) };
+  return { comparison, health: judgeCoil(history, rules, new Date()).health };
 }
 
 export async function readBusyCoilPage(tag: string) {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { buildClearanceFacts, findLatestSweepForCurrentTopLoad, findPartReplacements, type ClearanceHistory } from "./clearance-facts";
+import { DEFAULT_CLEARANCE_POLICY } from "../calc/clearance-policy";
 import { describeClearanceState, describeLendingBlock } from "./clearance-state";
 import type { ComponentRecord, SessionRecord } from "./records";
 
@@ -55,7 +56,7 @@ function history(over: Partial<ClearanceHistory> = {}): ClearanceHistory {
 
 describe("buildClearanceFacts", () => {
   it("takes the latest session's margins and frequency, the latest sweep and counts clean sessions", () => {
-    const { facts, latestSession } = buildClearanceFacts(history(), { a: true }, { minJunctionMarginK: 25 });
+    const { facts, latestSession } = buildClearanceFacts(history(), { a: true }, DEFAULT_CLEARANCE_POLICY);
     expect(latestSession?.id).toBe("s5");
     expect(facts.margins.voltage?.headroom).toBeCloseTo(1 - 100 / 400, 6);
     expect(facts.runningFrequencyHz).toBe(300_000);
@@ -73,11 +74,11 @@ describe("buildClearanceFacts", () => {
       failures: [{ occurredAt: day(2), status: "closed", mode: "over_voltage" }],
     });
     // Sessions on days 4 and 5 follow the repair on day 3 (13:00).
-    expect(buildClearanceFacts(h, {}, { minJunctionMarginK: 25 }).facts.failureFreeSessions).toBe(2);
+    expect(buildClearanceFacts(h, {}, DEFAULT_CLEARANCE_POLICY).facts.failureFreeSessions).toBe(2);
   });
 
   it("counts open failures and has no margins without sessions", () => {
-    const { facts } = buildClearanceFacts(history({ sessions: [], failures: [{ occurredAt: day(1), status: "open", mode: "unknown" }] }), {}, { minJunctionMarginK: 25 });
+    const { facts } = buildClearanceFacts(history({ sessions: [], failures: [{ occurredAt: day(1), status: "open", mode: "unknown" }] }), {}, DEFAULT_CLEARANCE_POLICY);
     expect(facts.margins).toEqual({});
     expect(facts.openFailures).toBe(1);
     expect(facts.runningFrequencyHz).toBeNull();

@@ -1,0 +1,50 @@
+/**
+ * The warm-up fit stored with each session (RunSession's sinkFit… columns; lib/analysis/session-fit.ts computes it).
+ * Sessions written before the columns existed are fitted by backfillSessionFits, which `npm run setup` runs
+ * (scripts/backfill-session-fits.ts) after the migrations; it is idempotent and touches only rows not yet fitted.
+ */
+import { prisma, type Tx } from "./client";
+import { recordAudit } from "./audit";
+import { markCoilChanged } from "./coil-summary";
+import { fitSessionSamples, type StoredSinkFit } from "../analysis/session-fit";
+import type { SampleRecord } from "../analysis/records";
+
+/** The stored-fit columns of each listed session, from its samples (grouped by session id). */
+export function fitsBySession(sessionIds: readonly string[], samples: readonly (SampleRecord & { sessionId: string })[]): Map<string, StoredSinkFit> {
+  const grouped = new Map<string, SampleRecord[]>(sessionIds.map((id) => [id, []]));
+  for (const s of samples) grouped.get(s.sessionId)?.push({ elapsedS: s.elapsedS, temperatureC: s.temperatureC });
+  return new Map([...grouped].map(([id, rows]) => [id, fitSessionSamples(rows)]));
+}
+
+/** Refits the listed sessions from their stored samples, inside the caller's transaction (after samples change). */
+export async function refitSessions(tx: Tx, sessionIds: readonly string[]): Promise<void> {
+  if (sessionIds.length === 0) return;
+  const samples = await tx.heatSinkSample.findMany({ where: { sessionId: { in: [...sessionIds] } }, select: { sessionId: true, elapsedS: true, temperatureC: true } });
+  for (const [id, fit] of fitsBySession(sessionIds, samples)) await tx.runSession.update({ where: { id }, data: fit });
+}
+
+/**
+ * Fits every session that has no stored fit yet, a batch per transaction (each with the coils' summaries marked
+ * changed and one audit event). Returns how many sessions were fitted.
+ */
+export async function backfillSessionFits(batchSize = 200): Promise<number> {
+  let done = 0;
+  for (;;) {
+    const batch = await prisma.runSession.findMany({ where: { sinkFitSampleCount: null }, select: { id: true, coilId: true }, orderBy: { id: "asc" }, take: batchSize });
+    if (batch.length === 0) return done;
+    await prisma.$transaction(async (tx) => {
+      const ids = batch.map((s) => s.id);
+      await refitSessions(tx, ids);
+      for (const coilId of new Set(batch.map((s) => s.coilId))) await markCoilChanged(tx, coilId);
+      await recordAudit(tx, {
+        actorId: null,
+        action: "update",
+        entity: "RunSession",
+        entityId: ids[0]!,
+        summary: `Stored the heat-sink warm-up fit of ${ids.length} session${ids.length === 1 ? "" : "s"} logged before fits were kept with the session`,
+        detail: { sessionIds: ids },
+      });
+    });
+    done += batch.length;
+  }
+}

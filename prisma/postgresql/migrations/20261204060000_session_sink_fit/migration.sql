@@ -1,0 +1,13 @@
+-- AlterTable
+ALTER TABLE "RunSession" ADD COLUMN     "sinkFitExtrapolation" TEXT,
+ADD COLUMN     "sinkFitJson" TEXT,
+ADD COLUMN     "sinkFitSampleCount" INTEGER,
+ADD COLUMN     "sinkSteadyStateC" DOUBLE PRECISION,
+ADD COLUMN     "sinkSteadyStateSeK" DOUBLE PRECISION,
+ADD COLUMN     "sinkTimeConstantS" DOUBLE PRECISION;
+
+
+-- The thermal margin now judges a run by where its warm-up was heading and every margin's status by the current
+-- policy's thresholds (health's own 0.1 thermal threshold is gone): stored summaries were computed under the old
+-- meaning, so mark them all stale; the next dashboard read recomputes them (lib/db/coil-summary.ts).
+UPDATE "CoilSummary" SET "computedRevision" = NULL;
