@@ -3,7 +3,7 @@
  * Sessions written before the columns existed are fitted by backfillSessionFits, which `npm run setup` runs
  * (scripts/backfill-session-fits.ts) after the migrations; it is idempotent and touches only rows not yet fitted.
  */
-import { prisma, type Tx } from "./client";
+import { prisma } from "./client";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import { fitSessionSamples, type StoredSinkFit } from "../analysis/session-fit";
@@ -14,13 +14,6 @@ export function fitsBySession(sessionIds: readonly string[], samples: readonly (
   const grouped = new Map<string, SampleRecord[]>(sessionIds.map((id) => [id, []]));
   for (const s of samples) grouped.get(s.sessionId)?.push({ elapsedS: s.elapsedS, temperatureC: s.temperatureC });
   return new Map([...grouped].map(([id, rows]) => [id, fitSessionSamples(rows)]));
-}
-
-/** Refits the listed sessions from their stored samples, inside the caller's transaction (after samples change). */
-export async function refitSessions(tx: Tx, sessionIds: readonly string[]): Promise<void> {
-  if (sessionIds.length === 0) return;
-  const samples = await tx.heatSinkSample.findMany({ where: { sessionId: { in: [...sessionIds] } }, select: { sessionId: true, elapsedS: true, temperatureC: true } });
-  for (const [id, fit] of fitsBySession(sessionIds, samples)) await tx.runSession.update({ where: { id }, data: fit });
 }
 
 /**
@@ -34,7 +27,8 @@ export async function backfillSessionFits(batchSize = 200): Promise<number> {
     if (batch.length === 0) return done;
     await prisma.$transaction(async (tx) => {
       const ids = batch.map((s) => s.id);
-      await refitSessions(tx, ids);
+      const samples = await tx.heatSinkSample.findMany({ where: { sessionId: { in: ids } }, select: { sessionId: true, elapsedS: true, temperatureC: true } });
+      for (const [id, fit] of fitsBySession(ids, samples)) await tx.runSession.update({ where: { id }, data: fit });
       for (const coilId of new Set(batch.map((s) => s.coilId))) await markCoilChanged(tx, coilId);
       await recordAudit(tx, {
         actorId: null,
