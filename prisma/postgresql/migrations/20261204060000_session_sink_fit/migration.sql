@@ -7,7 +7,8 @@ ADD COLUMN     "sinkSteadyStateSeK" DOUBLE PRECISION,
 ADD COLUMN     "sinkTimeConstantS" DOUBLE PRECISION;
 
 
--- The thermal margin now judges a run by where its warm-up was heading and every margin's status by the current
--- policy's thresholds (health's own 0.1 thermal threshold is gone): stored summaries were computed under the old
--- meaning, so mark them all stale; the next dashboard read recomputes them (lib/db/coil-summary.ts).
+-- The thermal margin now judges a run by where its warm-up was heading, and every margin status by the current
+-- lending policy thresholds (the separate 0.1 thermal threshold of the health check is gone): stored summaries were
+-- computed under the old meaning, so mark them all stale; the next dashboard read recomputes them
+-- (lib/db/coil-summary.ts). No quote characters in these comments: a migration runner may split on them.
 UPDATE "CoilSummary" SET "computedRevision" = NULL;
