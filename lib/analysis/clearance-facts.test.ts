@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { buildClearanceFacts, findLatestSweepForCurrentTopLoad, findPartReplacements, type ClearanceHistory } from "./clearance-facts";
 import { DEFAULT_CLEARANCE_POLICY } from "../calc/clearance-policy";
 import { describeClearanceState, describeLendingBlock } from "./clearance-state";
-import { fitSessionSamples } from "./session-fit";
+import { fitSessionSamples, type StoredSinkFit } from "./session-fit";
 import type { ComponentRecord, SessionRecord } from "./records";
 
 const day = (n: number) => new Date(Date.UTC(2026, 0, 1 + n, 12));
@@ -24,7 +24,7 @@ const sw: ComponentRecord = {
 };
 const sink: ComponentRecord = { id: "hs1", kind: "heat_sink", partNumber: "HS-1", installedAt: day(0), removedAt: null, sinkThermalResistanceKPerW: 1.5 };
 
-function session(n: number, extra: Partial<SessionRecord> = {}): SessionRecord {
+function session(n: number, extra: Partial<SessionRecord & StoredSinkFit> = {}): SessionRecord & Partial<StoredSinkFit> {
   return {
     id: `s${n}`,
     startedAt: day(n),
