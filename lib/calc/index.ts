@@ -42,6 +42,7 @@ export * from "./session-margins";
 // Heat-sink warm-up
 export * from "./heating";
 export * from "./warm-up";
+export * from "./fan-cooling";
 
 // Trends, drift and health of a coil
 export * from "./robust-trend";
