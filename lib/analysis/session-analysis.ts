@@ -124,5 +124,8 @@ function projectSink(session: SessionRecord, sessionFit: SessionFit, sinkR: numb
   }
   if (sinkR === null) return null;
   const reason = fit === null ? "too few heat-sink samples to fit a warm-up" : "the warm-up fit is too short to show where the sink levels off";
-  return worstCaseSinkProjection({ ambientTempC: session.ambientTempC, supplyVoltageV: session.supplyVoltageV, supplyCurrentA: session.supplyCurrentA, sinkToAmbientKPerW: sinkR, reason });
+  const worst = worstCaseSinkProjection({ ambientTempC: session.ambientTempC, supplyVoltageV: session.supplyVoltageV, supplyCurrentA: session.supplyCurrentA, sinkToAmbientKPerW: sinkR, reason });
+  // A recorded reading above the bound means the sink's rating is optimistic: the reading is then the worse case.
+  const end = session.heatSinkEndC;
+  return end !== null && end > worst.sinkC ? { ...worst, sinkC: end, source: `${worst.source}; the recorded end temperature was hotter still and is used` } : worst;
 }
