@@ -1,21 +1,15 @@
 /** The server work of app/(app)/coils/[tag]/page.tsx, without the rendering, for the large-fleet benchmark. */
 import { readCoilPage, type CoilPageRecords } from "../lib/db/coil-page";
-import { analyzeSessions, assessCoil } from "../lib/analysis/coil-health-input";
+import { judgeCoil } from "../lib/analysis/coil-health-input";
 import { compareCoil } from "../lib/analysis/coil-comparison";
 import { readCoilComparison } from "../lib/db/prediction-history";
-import { selectHealthWindow } from "../lib/analysis/health-window";
 import type { ClearancePolicyRules } from "../lib/calc/clearance-policy";
 
 
 /** What the page works out from what it read: the prediction table and the health judged by the current policy. */
 export function computeCoilPageFigures(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
   const comparison = compareCoil(history.coil, history.topLoads, history.sweeps, history.comparisonSessions);
-  return { comparison, health: judgeHealth(history, rules) };
-}
-
-function judgeHealth(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
-  const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);
-  return assessCoil(analyzed, history.sweeps, new Date(), rules);
+  return { comparison, health: judgeCoil(history, rules, new Date()).health };
 }
 
 export async function readBusyCoilPage(tag: string) {
@@ -27,5 +21,5 @@ export async function readBusyCoilPage(tag: string) {
 export async function loadCoilPage(tag: string) {
   const { coil, history, timeline, policy } = await readBusyCoilPage(tag);
   // As the page does: the prediction table reads the coil's running frequencies (and the fleet's when it has few).
-  return { coil, timeline, comparison: await readCoilComparison(history), health: judgeHealth(history, policy.rules) };
+  return { coil, timeline, comparison: await readCoilComparison(history), health: judgeCoil(history, policy.rules, new Date()).health };
 }

@@ -7,3 +7,4 @@ mkdir -p data
 bash scripts/generate-clients.sh >/dev/null
 npx prisma migrate deploy
 npx tsx scripts/prepare-db.ts
+npx tsx scripts/backfill-session-fits.ts

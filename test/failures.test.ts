@@ -1,3 +1,4 @@
+import { DEFAULT_CLEARANCE_POLICY } from "@/lib/calc/clearance-policy";
 import { beforeEach, describe, expect, it } from "vitest";
 import { makeUser, resetDatabase, testDb } from "./support/db";
 import { makeBenchCoil } from "./support/bench-fixtures";
@@ -121,7 +122,7 @@ describe("completing a post-mortem", () => {
   it("reads the sessions before the failure into ranked causes with evidence", async () => {
     const { failure } = await openFailure();
     const detail = (await getFailureDetail(failure.id))!;
-    const analysis = analyzePostMortem({ coil: detail.coil, components: detail.coil.components, failure: detail, sessionsBefore: detail.recentSessions });
+    const analysis = analyzePostMortem({ coil: detail.coil, components: detail.coil.components, failure: detail, sessionsBefore: detail.recentSessions, policy: DEFAULT_CLEARANCE_POLICY });
     expect(analysis.sessions).toHaveLength(1);
     expect(analysis.partsAtFailure.switches.map((s) => s.partNumber)).toEqual(["MJE13009"]);
     expect(analysis.causes[0]!.cause).toBe("over_voltage");

@@ -2,8 +2,15 @@
 import { testDb } from "./support/db";
 import { TEST_SWITCH } from "./support/bench-fixtures";
 import { DEFAULT_LENDING_CHECKLIST } from "@/lib/calc/lending-checklist";
+import { fitSessionSamples } from "@/lib/analysis/session-fit";
 
 const DAY = 86_400_000;
+
+/**
+ * A warm-up that levels off at 35 °C: 22 °C + 13 K·(1 − e^(−t/120 s)) every 30 s for 10 min, read to 0.1 K, so a clean
+ * session has a usable fit (a session without samples is judged at its worst case).
+ */
+export const CLEAN_WARM_UP = Array.from({ length: 21 }, (_, i) => ({ elapsedS: 30 * i, temperatureC: Math.round(10 * (22 + 13 * (1 - Math.exp((-30 * i) / 120)))) / 10 }));
 
 export const ALL_YES: Record<string, boolean> = Object.fromEntries(DEFAULT_LENDING_CHECKLIST.map((i) => [i.id, true]));
 
@@ -33,6 +40,8 @@ export async function makeCleanCoil(tag: string, now: Date, createdById?: string
         runningFrequencyHz: 300_000,
         peakSwitchVoltageV: 100,
         dutyCycle: 0.5,
+        samples: { create: CLEAN_WARM_UP },
+        ...fitSessionSamples(CLEAN_WARM_UP),
       },
     });
   }

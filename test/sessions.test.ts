@@ -1,3 +1,4 @@
+import { DEFAULT_CLEARANCE_POLICY } from "@/lib/calc/clearance-policy";
 import { beforeEach, describe, expect, it } from "vitest";
 import { makeUser, resetDatabase, testDb } from "./support/db";
 import { makeBenchCoil } from "./support/bench-fixtures";
@@ -37,7 +38,7 @@ describe("logging a run session", () => {
     expect(audit[0]!.summary).toContain("7 heat-sink samples");
     expect(await findLastTopLoadId(coil.id)).toBe(topLoad.id);
 
-    const analysis = analyzeRunSession(detail!.coil, detail!, detail!.coil.components, detail!.samples);
+    const analysis = analyzeRunSession(detail!.coil, detail!, detail!.coil.components, detail!.samples, { policy: DEFAULT_CLEARANCE_POLICY });
     expect(analysis.margins.voltage.status).not.toBe("unknown");
     expect(analysis.warmUp?.fit.steadyState).toBeGreaterThan(45);
   });

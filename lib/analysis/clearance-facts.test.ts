@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { buildClearanceFacts, findLatestSweepForCurrentTopLoad, findPartReplacements, type ClearanceHistory } from "./clearance-facts";
+import { DEFAULT_CLEARANCE_POLICY } from "../calc/clearance-policy";
 import { describeClearanceState, describeLendingBlock } from "./clearance-state";
+import { fitSessionSamples, type StoredSinkFit } from "./session-fit";
 import type { ComponentRecord, SessionRecord } from "./records";
 
 const day = (n: number) => new Date(Date.UTC(2026, 0, 1 + n, 12));
@@ -22,7 +24,7 @@ const sw: ComponentRecord = {
 };
 const sink: ComponentRecord = { id: "hs1", kind: "heat_sink", partNumber: "HS-1", installedAt: day(0), removedAt: null, sinkThermalResistanceKPerW: 1.5 };
 
-function session(n: number, extra: Partial<SessionRecord> = {}): SessionRecord {
+function session(n: number, extra: Partial<SessionRecord & StoredSinkFit> = {}): SessionRecord & Partial<StoredSinkFit> {
   return {
     id: `s${n}`,
     startedAt: day(n),
@@ -55,7 +57,7 @@ function history(over: Partial<ClearanceHistory> = {}): ClearanceHistory {
 
 describe("buildClearanceFacts", () => {
   it("takes the latest session's margins and frequency, the latest sweep and counts clean sessions", () => {
-    const { facts, latestSession } = buildClearanceFacts(history(), { a: true }, { minJunctionMarginK: 25 });
+    const { facts, latestSession } = buildClearanceFacts(history(), { a: true }, DEFAULT_CLEARANCE_POLICY);
     expect(latestSession?.id).toBe("s5");
     expect(facts.margins.voltage?.headroom).toBeCloseTo(1 - 100 / 400, 6);
     expect(facts.runningFrequencyHz).toBe(300_000);
@@ -73,11 +75,11 @@ describe("buildClearanceFacts", () => {
       failures: [{ occurredAt: day(2), status: "closed", mode: "over_voltage" }],
     });
     // Sessions on days 4 and 5 follow the repair on day 3 (13:00).
-    expect(buildClearanceFacts(h, {}, { minJunctionMarginK: 25 }).facts.failureFreeSessions).toBe(2);
+    expect(buildClearanceFacts(h, {}, DEFAULT_CLEARANCE_POLICY).facts.failureFreeSessions).toBe(2);
   });
 
   it("counts open failures and has no margins without sessions", () => {
-    const { facts } = buildClearanceFacts(history({ sessions: [], failures: [{ occurredAt: day(1), status: "open", mode: "unknown" }] }), {}, { minJunctionMarginK: 25 });
+    const { facts } = buildClearanceFacts(history({ sessions: [], failures: [{ occurredAt: day(1), status: "open", mode: "unknown" }] }), {}, DEFAULT_CLEARANCE_POLICY);
     expect(facts.margins).toEqual({});
     expect(facts.openFailures).toBe(1);
     expect(facts.runningFrequencyHz).toBeNull();
@@ -118,5 +120,33 @@ describe("describeClearanceState", () => {
     const refused = describeClearanceState({ ...cleared, verdict: "refused" }, [], [], day(11));
     expect(refused.kind).toBe("refused");
     expect(describeLendingBlock(refused)).toMatch(/refusal/);
+  });
+});
+
+describe("lending judged on the hardest recent session", () => {
+  /** An exact first-order warm-up (docs/references.md, "Heat sink warm-up"), 22 °C + rise·(1 − e^(−t/120 s)), 10 min. */
+  const warm = (rise: number) => fitSessionSamples(Array.from({ length: 21 }, (_, i) => ({ elapsedS: 30 * i, temperatureC: 22 + rise * (1 - Math.exp((-30 * i) / 120)) })));
+
+  it("takes each margin from the recent session with the least headroom, not the latest", () => {
+    const sessions = [session(1, warm(13)), session(2, { ...warm(30), id: "hot" }), session(3, warm(13)), session(4, warm(13)), session(5, warm(13))];
+    const built = buildClearanceFacts(history({ sessions }), {}, DEFAULT_CLEARANCE_POLICY);
+    expect(built.hardestSessionIds.thermal).toBe("hot");
+    const latestThermal = built.recent.at(-1)!.analysis.margins.thermal.headroom!;
+    expect(built.facts.margins.thermal!.headroom!).toBeLessThan(latestThermal);
+  });
+
+  it("ignores sessions run on other parts or another top load", () => {
+    const sessions = [session(1, { ...warm(30), id: "old-top", topLoadId: "tl0" }), session(2, warm(13)), session(3, warm(13))];
+    const built = buildClearanceFacts(history({ sessions }), {}, DEFAULT_CLEARANCE_POLICY);
+    expect(built.recent.map((r) => r.session.id)).toEqual(["s2", "s3"]);
+  });
+
+  it("pre-fills a maximum run only from a usable fit's lower bound, and says why when there is none", () => {
+    const withFits = buildClearanceFacts(history({ sessions: [1, 2, 3].map((n) => session(n, warm(13))) }), {}, DEFAULT_CLEARANCE_POLICY);
+    expect(withFits.maxRun.seconds).not.toBeNull();
+    expect(withFits.maxRun.reason).toMatch(/Lower 95 % bound of the warm-up fit/);
+    const withoutSamples = buildClearanceFacts(history(), {}, DEFAULT_CLEARANCE_POLICY);
+    expect(withoutSamples.maxRun.seconds).toBeNull();
+    expect(withoutSamples.maxRun.reason).toMatch(/No recent session at the coil's current setup has a usable warm-up fit/);
   });
 });

@@ -1,9 +1,16 @@
-/** A coil's logbook, analysed session by session, turned into lib/calc's health assessment. */
+/**
+ * A coil's logbook, analysed session by session, turned into lib/calc's health assessment. judgeCoil is the one coil
+ * judgement: the dashboard's stored summary (lib/db/coil-summary.ts), the coil page, the trends page and the
+ * benchmark all call it with (history, policy, now), so they cannot disagree.
+ */
 import { assessCoilHealth, type CoilHealth } from "../calc/coil-health";
 import type { CoilSession, CoilSweep } from "../calc/coil-logbook";
 import { findCurrentTopLoadId } from "./current-top-load";
+import { CalcInputError } from "../calc/errors";
 import { analyzeRunSession, type SessionAnalysis } from "./session-analysis";
-import { DEFAULT_CLEARANCE_POLICY, type ClearancePolicyRules } from "../calc/clearance-policy";
+import type { ClearancePolicyRules } from "../calc/clearance-policy";
+import { selectHealthWindow } from "./health-window";
+import type { StoredSinkFit } from "./session-fit";
 import type { CoilRecord, ComponentRecord, SessionRecord, SweepRecord } from "./records";
 
 export interface AnalyzedSession {
@@ -11,9 +18,17 @@ export interface AnalyzedSession {
   analysis: SessionAnalysis;
 }
 
-/** Margins for every session (without warm-up fits, which need the samples). */
-export function analyzeSessions(coil: CoilRecord, sessions: readonly SessionRecord[], components: readonly ComponentRecord[]): AnalyzedSession[] {
-  return sessions.map((session) => ({ session, analysis: analyzeRunSession(coil, session, components) }));
+/** A session as the health path reads it: the row with its stored warm-up fit (no samples). */
+export type StoredSessionRecord = SessionRecord & Partial<StoredSinkFit>;
+
+/** Margins for every session, judged by `policy`, from each session's stored warm-up fit. */
+export function analyzeSessions(
+  coil: CoilRecord,
+  sessions: readonly StoredSessionRecord[],
+  components: readonly ComponentRecord[],
+  policy: ClearancePolicyRules,
+): AnalyzedSession[] {
+  return sessions.map((session) => ({ session, analysis: analyzeRunSession(coil, session, components, null, { policy }) }));
 }
 
 export function toCoilSession({ session, analysis }: AnalyzedSession): CoilSession {
@@ -39,12 +54,7 @@ export function toCoilSweeps(sweeps: readonly SweepRecord[]): CoilSweep[] {
  * refused clearance speak of the same limits. A top load changes the resonance by design, so running
  * frequency and sweeps are compared only among those taken with the top load fitted last.
  */
-export function assessCoil(
-  analyzed: readonly AnalyzedSession[],
-  sweeps: readonly SweepRecord[],
-  now: Date,
-  policy: Pick<ClearancePolicyRules, "minVoltageHeadroom" | "minCurrentHeadroom" | "minThermalHeadroom"> = DEFAULT_CLEARANCE_POLICY,
-): CoilHealth {
+export function assessCoil(analyzed: readonly AnalyzedSession[], sweeps: readonly SweepRecord[], now: Date, policy: ClearancePolicyRules): CoilHealth {
   const currentTopLoad = findCurrentTopLoadId(sweeps, analyzed.map((a) => a.session));
   const sessions = analyzed.map((a) => {
     const row = toCoilSession(a);
@@ -56,4 +66,34 @@ export function assessCoil(
     now,
     thresholds: { voltageHeadroom: policy.minVoltageHeadroom, currentHeadroom: policy.minCurrentHeadroom, thermalHeadroom: policy.minThermalHeadroom },
   });
+}
+
+/** What judgeCoil reads: the coil, every part ever fitted, its sessions (chronological, with stored fits) and sweeps. */
+export interface CoilJudgementHistory {
+  coil: CoilRecord;
+  components: readonly ComponentRecord[];
+  sessions: readonly StoredSessionRecord[];
+  sweeps: readonly SweepRecord[];
+}
+
+export interface CoilJudgement {
+  /** Null when the logbook could not be assessed; `reasons` then says why. */
+  health: CoilHealth | null;
+  reasons: string[];
+  /** The sessions judged (the health window, lib/analysis/health-window.ts), analysed under the policy. */
+  analyzed: AnalyzedSession[];
+  /** The latest of them: the margins every list shows for the coil. */
+  latest: AnalyzedSession | null;
+}
+
+/** The one coil judgement, from (history, policy, now): health over the health window, and the latest margins. */
+export function judgeCoil(history: CoilJudgementHistory, policy: ClearancePolicyRules, now: Date): CoilJudgement {
+  try {
+    const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components, policy);
+    const health = assessCoil(analyzed, history.sweeps, now, policy);
+    return { health, reasons: health.reasons, analyzed, latest: analyzed.at(-1) ?? null };
+  } catch (error) {
+    if (!(error instanceof CalcInputError)) throw error;
+    return { health: null, reasons: [`The logbook could not be assessed: ${error.message}.`], analyzed: [], latest: null };
+  }
 }

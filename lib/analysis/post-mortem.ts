@@ -4,7 +4,7 @@
  */
 import { rankLikelyCauses, type FailedComponentKind, type FailureCause, type RankedCause, type SessionHistoryEntry, type SwitchType } from "../calc/failure-analysis";
 import { partsFittedAt, type FittedParts } from "./fitted-parts";
-import { analyzeRunSession, type SessionAnalysis } from "./session-analysis";
+import { analyzeRunSession, type SessionAnalysis, type SessionPolicy } from "./session-analysis";
 import type { CoilRecord, ComponentRecord, SampleRecord, SessionRecord } from "./records";
 
 export interface AnalysedSession {
@@ -22,6 +22,8 @@ export interface PostMortemInputs {
   coil: CoilRecord;
   components: readonly ComponentRecord[];
   failure: { occurredAt: Date; mode: FailureCause; component: { kind: string; switchType?: string | null } | null };
+  /** The current lending policy, whose thresholds judge each session's margins. */
+  policy: SessionPolicy;
   /** The sessions before the failure, oldest first, each with its heat-sink samples. */
   sessionsBefore: readonly (SessionRecord & { samples: readonly SampleRecord[] })[];
 }
@@ -43,7 +45,7 @@ export function toHistoryEntry({ session, analysis }: AnalysedSession): SessionH
 
 export function analyzePostMortem(input: PostMortemInputs): PostMortemAnalysis {
   const partsAtFailure = partsFittedAt(input.components, input.failure.occurredAt);
-  const sessions = input.sessionsBefore.map((session) => ({ session, analysis: analyzeRunSession(input.coil, session, input.components, session.samples) }));
+  const sessions = input.sessionsBefore.map((session) => ({ session, analysis: analyzeRunSession(input.coil, session, input.components, session.samples, { policy: input.policy }) }));
   const failedSwitch = input.failure.component?.kind === "switch" ? input.failure.component : partsAtFailure.switches[0];
   const causes = rankLikelyCauses({
     failure: { mode: input.failure.mode, componentKind: (input.failure.component?.kind ?? null) as FailedComponentKind | null, occurredAt: input.failure.occurredAt },

@@ -1,12 +1,18 @@
 /**
- * One run session read through lib/calc: its voltage, current and thermal margins with the parts
- * fitted that day, and its heat-sink warm-up carried to the junction.
+ * One run session read through lib/calc: its voltage, current and thermal margins with the parts fitted that day,
+ * judged by the current lending policy's thresholds, and its heat-sink warm-up carried to the junction. A run still
+ * warming up is judged where it was heading (the fit's steady state at its upper confidence bound); a run with no
+ * usable fit at a clearly marked worst case.
  */
 import { sessionMargins, type SessionMargins } from "../calc/session-margins";
-import { analyzeWarmUp, type WarmUpAnalysis } from "../calc/warm-up";
+import { analyzeWarmUp, DEFAULT_WARM_UP_CONFIDENCE, type WarmUpAnalysis } from "../calc/warm-up";
 import { CalcInputError } from "../calc/errors";
-import { DEFAULT_CLEARANCE_POLICY } from "../calc/clearance-policy";
+import { marginThresholdsOf, type ClearancePolicyRules } from "../calc/clearance-policy";
+import { sinkResistanceForRun } from "../calc/fan-cooling";
+import { steadyStateUpperBound } from "../calc/heating";
+import { TYPICAL_CASE_TO_SINK_K_PER_W, worstCaseSinkProjection, type SinkProjection } from "../calc/thermal-margin";
 import { partsFittedAt, type FittedParts } from "./fitted-parts";
+import { fitFromSamples, readStoredSinkFit, type SessionFit, type StoredSinkFit } from "./session-fit";
 import type { CoilRecord, ComponentRecord, SampleRecord, SessionRecord } from "./records";
 
 export interface SessionAnalysis {
@@ -17,48 +23,65 @@ export interface SessionAnalysis {
   parts: FittedParts;
   /** The junction temperature the run-time figure keeps under, °C. */
   junctionLimitC: number | null;
+  /** What the thermal margin was judged at, when not the recorded temperatures. */
+  sinkProjection: SinkProjection | null;
 }
+
+/** The policy rules a session's analysis reads: the margin thresholds and the junction margin. */
+export type SessionPolicy = Pick<ClearancePolicyRules, "minVoltageHeadroom" | "minCurrentHeadroom" | "minThermalHeadroom" | "minJunctionMarginK">;
 
 export interface SessionAnalysisOptions {
-  /** Kelvin kept below Tj,max for the longest-run figure (default: the lending policy's junction margin). */
-  junctionMarginK?: number;
+  /** The current lending policy: its thresholds are the only ones a margin's status is judged by. */
+  policy: SessionPolicy;
+  /** One-sided confidence of the projection and the run-time bound (default DEFAULT_WARM_UP_CONFIDENCE). */
+  confidence?: number;
 }
 
+/**
+ * The session's margins and warm-up. The warm-up fit stored with the session is used when there is one; otherwise
+ * `samples` are fitted the same way (session-fit.ts), so a view with samples and a view without agree.
+ */
 export function analyzeRunSession(
   coil: CoilRecord,
-  session: SessionRecord,
+  session: SessionRecord & Partial<StoredSinkFit>,
   components: readonly ComponentRecord[],
-  samples: readonly SampleRecord[] = [],
-  options: SessionAnalysisOptions = {},
+  samples: readonly SampleRecord[] | null,
+  options: SessionAnalysisOptions,
 ): SessionAnalysis {
+  const confidence = options.confidence ?? DEFAULT_WARM_UP_CONFIDENCE;
   const parts = partsFittedAt(components, session.startedAt);
   const sw = parts.switches[0] ?? null;
   const switchesOnSink = Math.max(1, parts.switches.length);
-  const junctionToSink = sw?.thermalResistanceJcKPerW != null ? sw.thermalResistanceJcKPerW + (sw.caseToSinkKPerW ?? 0.5) : undefined;
-  const junctionLimitC = sw?.maxJunctionTempC != null ? sw.maxJunctionTempC - (options.junctionMarginK ?? DEFAULT_CLEARANCE_POLICY.minJunctionMarginK) : null;
+  const junctionToSink = sw?.thermalResistanceJcKPerW != null ? sw.thermalResistanceJcKPerW + (sw.caseToSinkKPerW ?? TYPICAL_CASE_TO_SINK_K_PER_W) : undefined;
+  const junctionLimitC = sw?.maxJunctionTempC != null ? sw.maxJunctionTempC - options.policy.minJunctionMarginK : null;
+  const naturalSinkR = parts.sink?.sinkThermalResistanceKPerW ?? null;
+  const sinkR = naturalSinkR === null ? null : sinkResistanceForRun({ naturalKPerW: naturalSinkR, fanFitted: parts.fan !== null, withFanKPerW: parts.fan?.sinkThermalResistanceKPerW });
 
+  const sessionFit: SessionFit = readStoredSinkFit(session) ?? fitFromSamples(samples ?? []);
   let warmUp: WarmUpAnalysis | null = null;
-  let warmUpNote: string | null = null;
-  if (samples.length < 3) {
-    warmUpNote = "Fewer than three heat-sink samples were logged, so there is no warm-up curve.";
-  } else if (junctionLimitC === null) {
-    warmUpNote = "The switch's maximum junction temperature is not recorded, so the run time cannot be worked out.";
-  } else {
-    const sinkR = parts.sink?.sinkThermalResistanceKPerW ?? null;
-    try {
-      const firstPass = analyzeWarmUp({ samples: samples.map((s) => ({ time: s.elapsedS, temperature: s.temperatureC })), junctionLimitC });
-      // Dissipation per switch from the fitted steady rise over the sink's rated resistance (P = ΔT/Rθsa).
-      const dissipation = sinkR ? Math.max(0, firstPass.fit.steadyState - session.ambientTempC) / sinkR / switchesOnSink : undefined;
-      warmUp =
-        dissipation !== undefined && junctionToSink !== undefined
-          ? analyzeWarmUp({ samples: samples.map((s) => ({ time: s.elapsedS, temperature: s.temperatureC })), junctionLimitC, dissipation, junctionToSink })
-          : firstPass;
-    } catch (error) {
-      if (!(error instanceof CalcInputError)) throw error;
-      warmUpNote = `The heat-sink samples could not be fitted: ${error.message}.`;
+  let warmUpNote: string | null = sessionFit.note;
+  if (sessionFit.fit !== null) {
+    if (junctionLimitC === null) {
+      warmUpNote = "The switch's maximum junction temperature is not recorded, so the run time cannot be worked out.";
+    } else {
+      try {
+        warmUp = analyzeWarmUp({
+          fit: sessionFit.fit,
+          junctionLimitC,
+          junctionToSink,
+          sinkToAmbientKPerW: sinkR?.value,
+          ambientC: session.ambientTempC,
+          switchesOnSink,
+          confidence,
+        });
+      } catch (error) {
+        if (!(error instanceof CalcInputError)) throw error;
+        warmUpNote = `The warm-up could not be carried to the junction: ${error.message}.`;
+      }
     }
   }
 
+  const sinkProjection = projectSink(session, sessionFit, sinkR?.value ?? null, confidence);
   const margins = sessionMargins(
     {
       topology: coil.topology,
@@ -68,12 +91,42 @@ export function analyzeRunSession(
       supplyCurrentA: session.supplyCurrentA,
       ambientTempC: session.ambientTempC,
       heatSinkEndC: session.heatSinkEndC,
-      sinkSteadyStateC: warmUp && warmUp.fit.extrapolation !== "too-short" ? warmUp.fit.steadyState : null,
+      sinkSteadyStateC: null,
+      sinkProjection,
       peakSwitchVoltageV: session.peakSwitchVoltageV,
       dutyCycle: session.dutyCycle,
     },
     sw ?? {},
-    { sinkThermalResistanceKPerW: parts.sink?.sinkThermalResistanceKPerW ?? null, caseToSinkKPerW: sw?.caseToSinkKPerW ?? null, switchesOnSink },
+    {
+      sinkThermalResistanceKPerW: sinkR?.value ?? null,
+      sinkThermalResistanceEstimate: sinkR?.estimated ? sinkR.source : null,
+      caseToSinkKPerW: sw?.caseToSinkKPerW ?? null,
+      switchesOnSink,
+    },
+    { thresholds: marginThresholdsOf(options.policy) },
   );
-  return { margins, warmUp, warmUpNote, parts, junctionLimitC };
+  return { margins, warmUp, warmUpNote, parts, junctionLimitC, sinkProjection };
+}
+
+/**
+ * Where the judged sink temperature comes from: a usable fit's steady state at its upper confidence bound; without a
+ * usable fit, the worst case of thermal-margin.ts (needs the sink's Rθsa; without it the margin says what is missing).
+ */
+function projectSink(session: SessionRecord, sessionFit: SessionFit, sinkR: number | null, confidence: number): SinkProjection | null {
+  const fit = sessionFit.fit;
+  const percent = Math.round(confidence * 100);
+  if (fit !== null && fit.extrapolation !== "too-short" && Number.isFinite(fit.standardErrors.steadyState)) {
+    const upper = steadyStateUpperBound(fit, confidence);
+    return {
+      basis: "fit-upper-bound",
+      sinkC: Math.max(upper, session.heatSinkEndC ?? Number.NEGATIVE_INFINITY),
+      source: `upper ${percent} % bound of the warm-up fit's steady state, ${fit.steadyState.toFixed(1)} ± ${fit.standardErrors.steadyState.toFixed(1)} K`,
+    };
+  }
+  if (sinkR === null) return null;
+  const reason = fit === null ? "too few heat-sink samples to fit a warm-up" : "the warm-up fit is too short to show where the sink levels off";
+  const worst = worstCaseSinkProjection({ ambientTempC: session.ambientTempC, supplyVoltageV: session.supplyVoltageV, supplyCurrentA: session.supplyCurrentA, sinkToAmbientKPerW: sinkR, reason });
+  // A recorded reading above the bound means the sink's rating is optimistic: the reading is then the worse case.
+  const end = session.heatSinkEndC;
+  return end !== null && end > worst.sinkC ? { ...worst, sinkC: end, source: `${worst.source}; the recorded end temperature was hotter still and is used` } : worst;
 }

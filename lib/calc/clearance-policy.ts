@@ -7,7 +7,7 @@
 import { broadcastBandAt, broadcastBands, harmonicsInBroadcastBand, inBroadcastBand, type ItuRegion } from "./broadcast-band";
 import { CalcInputError, requireInRange, requireNonNegative, requirePositive } from "./errors";
 import { DEFAULT_LENDING_CHECKLIST, type ChecklistItem } from "./lending-checklist";
-import type { Margin, MarginKind } from "./margin";
+import { DEFAULT_MARGIN_THRESHOLDS, type Margin, type MarginKind, type MarginThresholds } from "./margin";
 import { THERMAL_INPUT_NAMES } from "./thermal-margin";
 
 export interface ClearancePolicyRules {
@@ -34,12 +34,10 @@ export interface ClearancePolicyRules {
 }
 
 export const DEFAULT_CLEARANCE_POLICY: Readonly<ClearancePolicyRules> = {
-  // Stay within 80 % of the rated drain–source voltage (Renesas knowledge base; vendor guidance, not a standard).
-  minVoltageHeadroom: 0.2,
-  // Keep switch current within 80 % of its ratings (common practice).
-  minCurrentHeadroom: 0.2,
-  // Keep within 80 % of the derated power and of the allowed junction rise (common practice).
-  minThermalHeadroom: 0.2,
+  // The margin thresholds' one table (margin.ts, with their sources); an admin's policy replaces them everywhere.
+  minVoltageHeadroom: DEFAULT_MARGIN_THRESHOLDS.voltage,
+  minCurrentHeadroom: DEFAULT_MARGIN_THRESHOLDS.current,
+  minThermalHeadroom: DEFAULT_MARGIN_THRESHOLDS.thermal,
   // 25 K below T_j,max, e.g. 125 °C on a 150 °C part (common practice).
   minJunctionMarginK: 25,
   // Estimates are flagged on every rule they feed; the steward sees them (common practice).
@@ -89,6 +87,15 @@ export interface ClearanceEvaluation {
 const DAY_MS = 86_400_000;
 /** A sweep dated up to a day ahead is taken as clock or date-entry skew, not as an error. */
 const FUTURE_SKEW_MS = DAY_MS;
+
+/** The policy's margin rules as the thresholds every per-session margin status is judged by (the only thresholds). */
+export function marginThresholdsOf(policy: Pick<ClearancePolicyRules, "minVoltageHeadroom" | "minCurrentHeadroom" | "minThermalHeadroom">): MarginThresholds {
+  return {
+    voltage: requireInRange("policy.minVoltageHeadroom", policy.minVoltageHeadroom, 0, 1),
+    current: requireInRange("policy.minCurrentHeadroom", policy.minCurrentHeadroom, 0, 1),
+    thermal: requireInRange("policy.minThermalHeadroom", policy.minThermalHeadroom, 0, 1),
+  };
+}
 
 /** Throws a CalcInputError naming the first out-of-range policy field. */
 export function validateClearancePolicy(policy: ClearancePolicyRules): ClearancePolicyRules {

@@ -225,8 +225,9 @@ describe("assessCoilHealth: latest readings and input checks", () => {
     last.thermalHeadroom = 0.06;
     const health = assessCoilHealth({ ...coil, now: addDays(START, coil.lastDay) });
     expect(health.status).toBe("hold");
+    // The default threshold is the one table the default lending policy starts from (margin.ts): 20 %.
     expect(health.reasons[0]).toBe(
-      `Latest thermal headroom is 6 %, below the 10 % limit (session of ${last.startedAt.toISOString().slice(0, 10)}).`,
+      `Latest thermal headroom is 6 %, below the 20 % limit (session of ${last.startedAt.toISOString().slice(0, 10)}).`,
     );
   });
 

@@ -1,3 +1,5 @@
+import { DEFAULT_MARGIN_THRESHOLDS } from "./margin";
+
 /**
  * The tunables of a coil's health assessment and the vocabulary of its findings, shared by coil-health.ts
  * (which applies the status rule) and the per-quantity assessments it draws on.
@@ -25,9 +27,11 @@ export interface HealthThresholds {
 }
 
 export const DEFAULT_HEALTH_THRESHOLDS: Readonly<HealthThresholds> = {
-  voltageHeadroom: 0.2, // stay within 80 % of the rated V_DS (Renesas vendor guidance); common practice
-  currentHeadroom: 0.2, // common practice
-  thermalHeadroom: 0.1, // common practice
+  // The margin thresholds are the lending policy's (every caller passes the current policy's, coil-health-input.ts);
+  // these defaults are the same table the default policy starts from (margin.ts), never a second set of numbers.
+  voltageHeadroom: DEFAULT_MARGIN_THRESHOLDS.voltage,
+  currentHeadroom: DEFAULT_MARGIN_THRESHOLDS.current,
+  thermalHeadroom: DEFAULT_MARGIN_THRESHOLDS.thermal,
   nearMargin: 0.05, // common practice
   holdWithinDays: 30, // common practice
   watchWithinDays: 365, // common practice

@@ -4,6 +4,7 @@
  * Real stacks have several time constants (docs/references.md, "Heat sink warm-up"): a short run cannot
  * pin down the asymptote, so every fit says how far its extrapolation can be trusted.
  */
+import normalQuantile from "@stdlib/stats-base-dists-normal-quantile";
 import { CalcInputError, requireFinite, requireNonNegative, requirePositive } from "./errors";
 import { invertSymmetric3 } from "./invert-symmetric-3";
 import { minimizeScalar } from "./minimize-scalar";
@@ -278,4 +279,59 @@ export function thermalTimeConstant({ thermalResistance, mass, specificHeat }: T
   return (
     requirePositive("thermalResistance", thermalResistance) * requirePositive("mass", mass) * requirePositive("specificHeat", specificHeat)
   );
+}
+
+/**
+ * Heat flowing into a lumped body, W, from its energy balance: P = m·c·dT/dt + (T − Ta)/Rθ — stored heat plus
+ * heat lost to ambient (lumped-capacitance method, Incropera & DeWitt — docs/references.md, "Heat sink warm-up").
+ * A sink read before it levels off has dT/dt > 0, so (T − Ta)/Rθ alone under-reads the power: this corrects it.
+ */
+export function lumpedDissipation(args: { thermalResistance: number; heatCapacityJPerK: number; riseK: number; riseRateKPerS: number }): number {
+  const resistance = requirePositive("thermalResistance", args.thermalResistance);
+  const capacity = requireNonNegative("heatCapacityJPerK", args.heatCapacityJPerK);
+  const rise = requireFinite("riseK", args.riseK);
+  const rate = requireFinite("riseRateKPerS", args.riseRateKPerS);
+  return Math.max(0, capacity * rate + rise / resistance);
+}
+
+/**
+ * Coverage factor of a one-sided bound at `confidence` under a normal approximation of the fit's error
+ * (large-sample form of the GUM's expanded uncertainty, JCGM 100:2008 §6 — docs/references.md): 1.645 at 0.95.
+ */
+export function oneSidedCoverageFactor(confidence: number): number {
+  if (!(confidence > 0.5 && confidence < 1)) throw new CalcInputError("confidence", "a fraction strictly between 0.5 and 1, e.g. 0.95", confidence);
+  return normalQuantile(confidence, 0, 1);
+}
+
+/**
+ * Upper one-sided confidence bound of the fitted steady state, °C: T∞ + k·u(T∞) (JCGM 100:2008 §6, k from
+ * oneSidedCoverageFactor). Infinity when the fit cannot determine u(T∞).
+ */
+export function steadyStateUpperBound(curve: HeatingCurve, confidence: number): number {
+  const k = oneSidedCoverageFactor(confidence);
+  const error = curve.standardErrors.steadyState;
+  return Number.isFinite(error) ? curve.steadyState + k * error : Number.POSITIVE_INFINITY;
+}
+
+/**
+ * The pessimistic curve at `confidence`: the rise at its upper bound and τ at its lower bound (each one-sided,
+ * JCGM 100:2008 §6), so the curve climbs higher and sooner than the fit. Its time to a limit is a lower bound of the
+ * fit's. τ's bound is floored at 0 (an immediate step), and an undetermined figure takes its worst value.
+ */
+export function pessimisticCurve(curve: HeatingCurve, confidence: number): HeatingCurve {
+  const k = oneSidedCoverageFactor(confidence);
+  const riseError = curve.standardErrors.rise;
+  const tauError = curve.standardErrors.timeConstant;
+  const rise = Number.isFinite(riseError) ? Math.max(0, curve.rise) + k * riseError : Number.POSITIVE_INFINITY;
+  const timeConstant = Number.isFinite(tauError) ? Math.max(0, curve.timeConstant - k * tauError) : 0;
+  return { ...curve, rise, timeConstant, steadyState: curve.ambient + rise };
+}
+
+/**
+ * Whether a fit can be carried beyond its run: it covers enough of its time constant ("reliable" or "uncertain", see
+ * judgeExtrapolation) and the data determine every figure's uncertainty.
+ */
+export function isUsableFit(curve: HeatingCurve): boolean {
+  const e = curve.standardErrors;
+  return curve.extrapolation !== "too-short" && curve.rise > 0 && [e.rise, e.timeConstant, e.steadyState].every(Number.isFinite);
 }

@@ -47,6 +47,7 @@ export * from "./switch-losses";
 // Heat-sink warm-up
 export * from "./heating";
 export * from "./warm-up";
+export * from "./fan-cooling";
 
 // Trends, drift and health of a coil
 export * from "./robust-trend";

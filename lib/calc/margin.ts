@@ -46,6 +46,10 @@ export interface MarginThresholds {
   thermal: number;
 }
 
+/**
+ * The one table of margin thresholds: the default lending policy starts from it (clearance-policy.ts) and the coil
+ * health defaults are it (health-thresholds.ts); at run time every status is judged by the current policy's.
+ */
 export const DEFAULT_MARGIN_THRESHOLDS: Readonly<MarginThresholds> = {
   /** Stay within 80 % of the rated drain–source voltage (Renesas knowledge base; vendor guidance, not a standard). */
   voltage: 0.2,

@@ -6,7 +6,7 @@
 import { assessCurrentMargin } from "./current-margin";
 import type { DriverTopology } from "./driver-topology";
 import { DEFAULT_MARGIN_THRESHOLDS, type Margin, type MarginThresholds } from "./margin";
-import { THERMAL_INPUT_NAMES, assessThermalMargin } from "./thermal-margin";
+import { THERMAL_INPUT_NAMES, assessThermalMargin, type SinkProjection } from "./thermal-margin";
 import { assessVoltageMargin, type PeakVoltageFactors } from "./voltage-margin";
 
 /** What was recorded about one run session, plus the driver it ran on. */
@@ -23,6 +23,8 @@ export interface SessionForMargins {
   heatSinkEndC?: number | null;
   /** Steady-state sink temperature fitted to the session's warm-up samples, when a fit exists. */
   sinkSteadyStateC?: number | null;
+  /** Where a run still warming up was heading (judged instead of the end or steady temperature). */
+  sinkProjection?: SinkProjection | null;
   peakSwitchVoltageV?: number | null;
   /** On-time fraction of one switch. */
   dutyCycle?: number | null;
@@ -46,6 +48,8 @@ export interface SwitchRatings {
 export interface ThermalPath {
   /** Sink to ambient. */
   sinkThermalResistanceKPerW?: number | null;
+  /** Set when that Rθsa is an estimate (e.g. a fan's factor), saying where it came from. */
+  sinkThermalResistanceEstimate?: string | null;
   /** Pad or grease between case and sink; falls back to the switch component's value. */
   caseToSinkKPerW?: number | null;
   /** Switches sharing the sink (default 1). */
@@ -77,8 +81,10 @@ export function sessionMargins(
     ambientTempC: session.ambientTempC,
     heatSinkEndC: session.heatSinkEndC,
     sinkSteadyStateC: session.sinkSteadyStateC,
+    sinkProjection: session.sinkProjection,
     dissipationW: session.dissipationW,
     sinkToAmbientKPerW: thermalPath.sinkThermalResistanceKPerW,
+    sinkToAmbientEstimate: thermalPath.sinkThermalResistanceEstimate,
     caseToSinkKPerW: thermalPath.caseToSinkKPerW ?? switchRatings.caseToSinkKPerW,
     junctionToCaseKPerW: switchRatings.thermalResistanceJcKPerW,
     ratedPowerW: switchRatings.powerRating25CW,

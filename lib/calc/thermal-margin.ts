@@ -21,7 +21,35 @@ export const THERMAL_INPUT_NAMES = {
   caseTemp: "T_case",
   sinkTemp: "T_sink",
   deratedPower: "P_derated",
+  /** The junction at the recorded end of a run judged by its projection (T_j is then the projected one). */
+  endJunctionTemp: "T_j,end",
 } as const;
+
+/** Where a run still warming up was heading, judged instead of its last reading. */
+export interface SinkProjection {
+  /** fit-upper-bound: the warm-up fit's steady state at its upper confidence bound; worst-case: no usable fit. */
+  basis: "fit-upper-bound" | "worst-case";
+  /** The sink temperature judged, °C. */
+  sinkC: number;
+  /** Where the figure comes from, in plain words. */
+  source: string;
+}
+
+/**
+ * The worst case a run with no usable warm-up fit is judged at: every watt drawn from the supply heating the sink,
+ * P ≤ V·I (energy conservation: a switch cannot dissipate more than the driver draws — derived), carried to the
+ * sink's steady state T = Ta + V·I·Rθsa (thermal chain, docs/references.md). Pessimistic by construction.
+ */
+export function worstCaseSinkProjection(args: { ambientTempC: number; supplyVoltageV: number; supplyCurrentA: number; sinkToAmbientKPerW: number; reason: string }): SinkProjection {
+  const ambient = requireFinite("ambientTempC", args.ambientTempC);
+  const bound = requirePositive("supplyVoltageV", args.supplyVoltageV) * requireNonNegative("supplyCurrentA", args.supplyCurrentA);
+  const sinkC = ambient + bound * requirePositive("sinkToAmbientKPerW", args.sinkToAmbientKPerW);
+  return {
+    basis: "worst-case",
+    sinkC,
+    source: `WORST CASE (${args.reason}): all ${Number(bound.toFixed(1))} W drawn from the supply taken as heat in the sink, T_ambient + V·I·Rθsa`,
+  };
+}
 
 /** Heat flowing through a heat sink (W) inferred from its rise over ambient, assuming it reached steady state. */
 // P = (T_sink − T_ambient)/Rθsa: the sink stage of the thermal chain Tj = Ta + P·ΣRθ (docs/references.md), rearranged.
@@ -36,9 +64,13 @@ export interface ThermalMarginArgs {
   heatSinkEndC?: number | null;
   /** Steady-state sink temperature fitted to the warm-up samples; used instead of the end temperature when given. */
   sinkSteadyStateC?: number | null;
+  /** Where the run was heading; judged instead of both when given (the junction at the recorded end is reported too). */
+  sinkProjection?: SinkProjection | null;
   /** Total heat into the sink, W, when entered; otherwise inferred from the sink's rise. */
   dissipationW?: number | null;
   sinkToAmbientKPerW?: number | null;
+  /** Set when Rθsa is not the sink's own rating (e.g. a fan's factor): says where it came from and marks it estimated. */
+  sinkToAmbientEstimate?: string | null;
   caseToSinkKPerW?: number | null;
   junctionToCaseKPerW?: number | null;
   /** Dissipation rating at 25 °C case, W. */
@@ -77,13 +109,25 @@ export function assessThermalMargin(args: ThermalMarginArgs): Margin {
   const notes: string[] = [];
   const missing: string[] = [];
 
-  let sinkTemp = steadyTemp ?? endTemp;
-  if (sinkTemp !== undefined) {
+  const projection = args.sinkProjection ?? undefined;
+  if (projection) requireFinite("sinkProjection.sinkC", projection.sinkC);
+  let sinkTemp = projection?.sinkC ?? steadyTemp ?? endTemp;
+  if (projection) {
+    inputs.push({ name: THERMAL_INPUT_NAMES.sinkTemp, value: projection.sinkC, unit: "°C", estimated: true, source: projection.source });
+    notes.push(
+      projection.basis === "worst-case"
+        ? `Judged at a WORST CASE sink temperature of ${celsius(projection.sinkC)}: ${projection.source}.`
+        : `Judged where the run was heading: sink ${celsius(projection.sinkC)} (${projection.source})${endTemp === undefined ? "" : `, not the recorded end temperature ${celsius(endTemp)}`}.`,
+    );
+  } else if (sinkTemp !== undefined) {
     const fitted = steadyTemp !== undefined;
     inputs.push({ name: THERMAL_INPUT_NAMES.sinkTemp, value: sinkTemp, unit: "°C", estimated: fitted, source: fitted ? "fitted steady-state sink temperature" : "heat-sink temperature at the end of the run" });
     if (fitted && endTemp !== undefined) notes.push(`Using the fitted steady-state sink temperature (${celsius(steadyTemp)}) instead of the end temperature (${celsius(endTemp)}).`);
   }
-  if (rsa !== undefined) inputs.push({ name: "Rθsa", value: rsa, unit: "K/W", estimated: false, source: "heat-sink rating, sink to ambient" });
+  if (rsa !== undefined) {
+    const estimate = args.sinkToAmbientEstimate ?? null;
+    inputs.push({ name: "Rθsa", value: rsa, unit: "K/W", estimated: estimate !== null, source: estimate ?? "heat-sink rating, sink to ambient" });
+  }
 
   let power: number | undefined;
   if (entered !== undefined) {
@@ -98,7 +142,9 @@ export function assessThermalMargin(args: ThermalMarginArgs): Margin {
     power = inferSinkDissipation({ sinkTempC: sinkTemp, ambientTempC: ambient, sinkToAmbientKPerW: rsa });
     inputs.push({ name: "P", value: power, unit: "W", estimated: true, source: "inferred: (T_sink − T_ambient)/Rθsa" });
     notes.push(
-      steadyTemp !== undefined
+      projection !== undefined
+        ? "Dissipation inferred from the projected sink rise over ambient (ΔT∞/Rθsa), which corrects a run cut short of steady state for the heat still going into the sink's mass."
+        : steadyTemp !== undefined
         ? "Dissipation inferred from the fitted steady-state sink rise over ambient."
         : "Dissipation inferred from the heat-sink rise over ambient assumes the sink reached steady state; a run shorter than a few sink time constants under-reads it.",
     );
@@ -153,7 +199,18 @@ export function assessThermalMargin(args: ThermalMarginArgs): Margin {
     }
     if (rjc !== undefined) {
       const tj = junctionTemperature({ referenceTemp: sinkTemp, power: switchPower, resistances: { junctionToCase: rjc, caseToSink: rcs } });
-      inputs.push({ name: THERMAL_INPUT_NAMES.junctionTemp, value: tj, unit: "°C", estimated: inputs.some((i) => i.estimated), source: "derived: T_sink + P·(Rθjc + Rθcs)" });
+      inputs.push({
+        name: THERMAL_INPUT_NAMES.junctionTemp,
+        value: tj,
+        unit: "°C",
+        estimated: inputs.some((i) => i.estimated),
+        source: projection ? "projected: T_sink (projected) + P·(Rθjc + Rθcs)" : "derived: T_sink + P·(Rθjc + Rθcs)",
+      });
+      if (projection && endTemp !== undefined) {
+        const tjEnd = junctionTemperature({ referenceTemp: endTemp, power: switchPower, resistances: { junctionToCase: rjc, caseToSink: rcs } });
+        inputs.push({ name: THERMAL_INPUT_NAMES.endJunctionTemp, value: tjEnd, unit: "°C", estimated: true, source: "at the recorded end: T_sink,end + P·(Rθjc + Rθcs)" });
+        notes.push(`Projected junction temperature ${celsius(tj)}${tj > maxJunction ? `, above T_j,max ${celsius(maxJunction)}` : ""}; at the recorded end of the run it was ${celsius(tjEnd)}.`);
+      }
       candidates.push({ value: tj - ambient, limit: maxJunction - ambient, formula: "(T_j − T_ambient) / (T_j,max − T_ambient)" });
     }
   }

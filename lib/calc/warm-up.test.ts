@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import fc from "fast-check";
 import { CalcInputError } from "./errors";
 import type { HeatingSample } from "./heating";
 import { createSeededRandom } from "./seeded-random";
@@ -78,5 +79,39 @@ describe("analyzeWarmUp", () => {
     expect(() => analyzeWarmUp({ samples, dissipation: -1, junctionToSink: 1, junctionLimitC: 150 })).toThrowError(CalcInputError);
     expect(() => analyzeWarmUp({ samples, dissipation: 1, junctionToSink: -1, junctionLimitC: 150 })).toThrow(/junctionToSink/);
     expect(() => analyzeWarmUp({ samples, junctionLimitC: Number.NaN })).toThrow(/junctionLimitC/);
+  });
+});
+
+describe("analyzeWarmUp: bounds a steward can defend", () => {
+  it("takes the power from the fitted rise, ΔT∞/Rθsa, so a run cut short does not under-read it", () => {
+    // Exact first-order data (docs/references.md, "Heat sink warm-up"): ΔT∞ = 50 K over a 2 K/W sink is 25 W, though the
+    // run ends at one time constant with only 31.6 K of rise (15.8 W by (T_end − Ta)/Rθsa).
+    const result = analyzeWarmUp({ samples: warmUp(25, 50, 300, 300, 0, 1), sinkToAmbientKPerW: 2, ambientC: 25, junctionToSink: 1.5, junctionLimitC: 150 });
+    expect(result.dissipationW).toBeCloseTo(25, 3);
+    expect(result.predictedSteadyJunctionC).toBeCloseTo(75 + 25 * 1.5, 2);
+  });
+
+  it("bounds the longest run from below, and offers none from a fit too short to extrapolate", () => {
+    const long = analyzeWarmUp({ samples: warmUp(20, 160, 400, 2_000, 0.2, 2), sinkToAmbientKPerW: 8, ambientC: 20, junctionToSink: 1.2, junctionLimitC: 150 });
+    expect(long.usable).toBe(true);
+    expect(long.longestRunLowerBoundS).not.toBeNull();
+    expect(long.longestRunLowerBoundS!).toBeLessThanOrEqual(long.longestRunBelowLimitS);
+    expect(long.longestRunLowerBoundS!).toBeGreaterThan(0);
+    const short = analyzeWarmUp({ samples: warmUp(20, 160, 4_000, 300, 0.2, 2), sinkToAmbientKPerW: 8, ambientC: 20, junctionToSink: 1.2, junctionLimitC: 150 });
+    expect(short.usable).toBe(false);
+    expect(short.longestRunLowerBoundS).toBeNull();
+    expect(short.explanations.join(" ")).toMatch(/cannot bound the longest run/);
+  });
+
+  it("never lengthens the lower-bound run as the confidence widens (property)", () => {
+    const samples = warmUp(20, 160, 400, 2_000, 0.3, 7);
+    fc.assert(
+      fc.property(fc.double({ min: 0.6, max: 0.99, noNaN: true }), fc.double({ min: 0.6, max: 0.99, noNaN: true }), (a, b) => {
+        const [narrow, wide] = a <= b ? [a, b] : [b, a];
+        const at = (confidence: number) => analyzeWarmUp({ samples, sinkToAmbientKPerW: 8, ambientC: 20, junctionToSink: 1.2, junctionLimitC: 150, confidence }).longestRunLowerBoundS!;
+        expect(at(wide)).toBeLessThanOrEqual(at(narrow));
+      }),
+      { numRuns: 25 },
+    );
   });
 });

@@ -23,6 +23,9 @@ const sessionSelect = {
   dutyCycle: true,
   outcome: true,
   topLoadId: true,
+  // The stored warm-up fit (lib/analysis/session-fit.ts): the health path judges each session by it, as its page does.
+  sinkFitSampleCount: true,
+  sinkFitJson: true,
 } as const;
 
 const sweepSelect = { id: true, coilId: true, takenAt: true, topLoadId: true, firstSeriesResonanceHz: true } as const;

@@ -15,9 +15,8 @@ import { prisma, type Tx } from "./client";
 import { Prisma, type CoilSummary } from "./generated/client";
 import { getFleetHealthHistory, type CoilHealthHistory } from "./coil-history";
 import type { PolicyVersion } from "./policy";
-import { analyzeSessions, assessCoil } from "../analysis/coil-health-input";
+import { judgeCoil } from "../analysis/coil-health-input";
 import { computeHealthValidUntil } from "../analysis/health-validity";
-import { CalcInputError } from "../calc/errors";
 import type { HealthStatus } from "../calc/coil-health";
 import { briefSessionMargins, type SessionMarginsBrief } from "../analysis/margin-brief";
 
@@ -44,29 +43,16 @@ const HEALTH_STATUSES: readonly string[] = ["fine", "watch", "hold", "not enough
 
 /** The coil's figures from its health window (lib/analysis), judged at `now` under `policy`. */
 export function computeCoilFigures({ coil, components, sessions, sweeps, totals }: CoilHealthHistory, policy: PolicyVersion, now: Date): CoilFigures {
-  const analyzed = analyzeSessions(coil, sessions, components);
-  const latest = analyzed.at(-1);
-  let health: HealthStatus = "not enough data";
-  let reasons: string[] = [];
-  let validUntil: Date | null = null;
-  try {
-    const assessed = assessCoil(analyzed, sweeps, now, policy.rules);
-    health = assessed.status;
-    reasons = assessed.reasons;
-    validUntil = computeHealthValidUntil(assessed, now);
-  } catch (error) {
-    if (!(error instanceof CalcInputError)) throw error;
-    reasons = [`The logbook could not be assessed: ${error.message}.`];
-  }
+  const judged = judgeCoil({ coil, components, sessions, sweeps }, policy.rules, now);
   return {
-    health,
-    reasons,
-    latestMargins: latest ? briefSessionMargins(latest.analysis.margins) : null,
+    health: judged.health?.status ?? "not enough data",
+    reasons: judged.reasons,
+    latestMargins: judged.latest ? briefSessionMargins(judged.latest.analysis.margins) : null,
     sessionCount: totals.sessionCount,
     totalRunS: totals.totalDurationS,
     lastSessionAt: totals.lastSessionAt,
     lastSweepAt: sweeps.at(-1)?.takenAt ?? null,
-    validUntil,
+    validUntil: judged.health ? computeHealthValidUntil(judged.health, now) : null,
   };
 }
 

@@ -4,6 +4,7 @@
  */
 import { prisma } from "./client";
 import { markCoilChanged } from "./coil-summary";
+import { fitsBySession } from "./session-fits";
 import type { Prisma } from "./generated/client";
 
 export interface DemoDataset {
@@ -50,7 +51,11 @@ export async function loadDemoDataset(data: DemoDataset): Promise<void> {
       await tx.sweep.createMany({ data: data.sweeps });
       await inChunks(data.sweepPoints, (chunk) => tx.sweepPoint.createMany({ data: chunk }));
       await tx.sweepResonance.createMany({ data: data.sweepResonances });
-      await inChunks(data.sessions, (chunk) => tx.runSession.createMany({ data: chunk }));
+      const fits = fitsBySession(
+        data.sessions.map((session) => session.id!),
+        data.samples.map((sample) => ({ ...sample, sessionId: sample.sessionId })),
+      );
+      await inChunks(data.sessions, (chunk) => tx.runSession.createMany({ data: chunk.map((session) => ({ ...session, ...fits.get(session.id!) })) }));
       await inChunks(data.samples, (chunk) => tx.heatSinkSample.createMany({ data: chunk }));
       await tx.failure.createMany({ data: data.failures });
       await tx.clearancePolicy.createMany({ data: data.policies });

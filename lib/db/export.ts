@@ -62,7 +62,8 @@ function toCoilDocument(coil: CoilWithEverything): CoilDocument {
       points: points.map((p) => ({ frequencyHz: p.frequencyHz, amplitudeV: p.amplitudeV })),
       resonances: resonances.map(({ sweepId: _s, ...r }) => r),
     })),
-    sessions: coil.sessions.map(({ coilId: _c, loggedById: _l, loggedBy, startedAt, createdAt, samples, ...s }) => ({
+    // The stored warm-up fit is derived from the samples and refitted on import, so it is not part of the format.
+    sessions: coil.sessions.map(({ coilId: _c, loggedById: _l, loggedBy, startedAt, createdAt, samples, sinkFitSampleCount: _n, sinkSteadyStateC: _ss, sinkSteadyStateSeK: _se, sinkTimeConstantS: _tau, sinkFitExtrapolation: _x, sinkFitJson: _j, ...s }) => ({
       ...s,
       startedAt: iso(startedAt),
       loggedBy: loggedBy?.email ?? null,

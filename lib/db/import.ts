@@ -13,6 +13,7 @@ import { prisma, type Tx } from "./client";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import type { ParsedCoilDocument, ParsedLogbook } from "../validation/export";
+import { fitSessionSamples } from "../analysis/session-fit";
 
 export class ImportConflictError extends Error {}
 
@@ -70,7 +71,15 @@ async function importCoil(tx: Tx, actorId: string, doc: ParsedCoilDocument, opti
   await tx.loan.createMany({ data: loans.map(({ lentBy, receivedBy, ...l }) => ({ ...l, id: key(l.id), coilId, clearanceId: key(l.clearanceId), lentById: who(lentBy), receivedById: who(receivedBy) })) });
 
   await tx.runSession.createMany({
-    data: sessions.map(({ samples: _s, loggedBy, ...s }) => ({ ...s, id: key(s.id), coilId, topLoadId: keyOrNull(s.topLoadId), loanId: keyOrNull(s.loanId), loggedById: who(loggedBy) })),
+    data: sessions.map(({ samples: sessionSamples, loggedBy, ...s }) => ({
+      ...s,
+      id: key(s.id),
+      coilId,
+      topLoadId: keyOrNull(s.topLoadId),
+      loanId: keyOrNull(s.loanId),
+      loggedById: who(loggedBy),
+      ...fitSessionSamples(sessionSamples), // stored with the samples, as every session's is (lib/analysis/session-fit.ts)
+    })),
   });
   const samples = sessions.flatMap((s) => s.samples.map((p) => ({ ...p, sessionId: key(s.id) })));
   if (samples.length > 0) await tx.heatSinkSample.createMany({ data: samples });

@@ -8,6 +8,7 @@ import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import { RecordRefusedError } from "./record-refused";
 import type { SessionInput } from "../validation/session";
+import { fitSessionSamples } from "../analysis/session-fit";
 
 export interface SessionListFilter {
   coilTag?: string;
@@ -77,6 +78,8 @@ export async function createSession(actorId: string, input: SessionInput) {
         topLoadId: fields.topLoadId ?? null,
         loggedById: actorId,
         loanId: loan?.id ?? null,
+        // The warm-up fit goes in with its samples, so every view judges the session from the same steady state.
+        ...fitSessionSamples(samples),
         samples: { create: samples.map((s) => ({ elapsedS: s.elapsedS, temperatureC: s.temperatureC })) },
       },
     });

@@ -52,6 +52,8 @@ type ComponentShape = z.infer<z.ZodObject<typeof componentFields>>;
 const KIND_FIELDS: Record<string, readonly (keyof ComponentShape)[]> = {
   switch: ["switchType", "voltageRatingV", "continuousCurrentA", "peakCurrentA", "powerRating25CW", "maxJunctionTempC", "thermalResistanceJcKPerW", "caseToSinkKPerW"],
   heat_sink: ["sinkThermalResistanceKPerW", "sinkMassKg"],
+  // A fan records the sink's Rθsa with that fan running (lib/calc/fan-cooling.ts reads it).
+  fan: ["sinkThermalResistanceKPerW"],
   snubber: ["resistanceOhm", "capacitanceF", "clampVoltageV"],
   clamp: ["resistanceOhm", "capacitanceF", "clampVoltageV"],
 };

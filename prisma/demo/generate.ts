@@ -150,7 +150,8 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
     }
     data.components.push({ id: `part-${coil.tag}-sink`, coilId, kind: "heat_sink", partNumber: coil.sink.partNumber, manufacturer: "generic", description: "Extruded aluminium", sinkThermalResistanceKPerW: coil.sink.thermalResistanceKPerW, sinkMassKg: coil.sink.massKg, installedAt: at(coil.createdDay, 11) });
     data.components.push({ id: `part-${coil.tag}-snub`, coilId, kind: "snubber", partNumber: "RC-100R-2N2", description: "RC snubber across the switch", resistanceOhm: 100, capacitanceF: 2.2e-9, installedAt: at(coil.createdDay, 11) });
-    if (coil.hasFan) data.components.push({ id: `part-${coil.tag}-fan`, coilId, kind: "fan", partNumber: "FAN-60-12V", description: "60 mm, 12 V", installedAt: at(coil.createdDay, 11) });
+    // The readings are generated with the sink's resistance as it runs (fan on), so the fan records that as its with-fan Rθsa.
+    if (coil.hasFan) data.components.push({ id: `part-${coil.tag}-fan`, coilId, kind: "fan", partNumber: "FAN-60-12V", description: "60 mm, 12 V", sinkThermalResistanceKPerW: coil.sink.thermalResistanceKPerW, installedAt: at(coil.createdDay, 11) });
     if (coil.clampFromDay !== undefined) {
       data.components.push({ id: `part-${coil.tag}-clamp`, coilId, kind: "clamp", partNumber: "CLAMP-UF-1U", description: "Fast diode into 1 µF, bled by 1 kΩ to the supply", capacitanceF: 1e-6, resistanceOhm: 1000, installedAt: at(coil.clampFromDay, 12) });
     }

@@ -38,7 +38,7 @@ export function ClearanceForm({ coilId, checklist, defaults, rulesPass }: { coil
         <div className="field">
           <label htmlFor="maxRunS">Maximum run length</label>
           <input id="maxRunS" name="maxRunS" defaultValue={values?.maxRunS ?? defaults.maxRunS} aria-describedby="maxRunS-error maxRunS-hint" aria-invalid={errorOf("maxRunS")} />
-          <span id="maxRunS-hint" className="hint">e.g. 12 min; prefilled from the latest warm-up, when one was logged. A bare number is read in minutes.</span>
+          <span id="maxRunS-hint" className="hint">e.g. 12 min; prefilled only from a lower confidence bound of a usable warm-up fit. A bare number is read in minutes.</span>
           <FieldError id="maxRunS-error" state={state} field="maxRunS" />
         </div>
         <div className="field">

@@ -20,10 +20,12 @@ export default async function NewClearancePage({ searchParams }: { searchParams:
   if (!coil) notFound();
   const evaluated = await evaluateCoilForClearance(coil.id, {}, new Date());
   if (!evaluated) notFound();
-  const { policy, evaluation, latestSession, latestAnalysis, latestSweep } = evaluated;
+  const { policy, evaluation, latestSession, latestAnalysis, latestSweep, maxRun, hardestSessionIds } = evaluated;
   const dataRules = evaluation.rules.filter((r) => !r.id.startsWith("checklist:"));
   const dataRulesPass = dataRules.every((r) => r.pass);
-  const runS = latestAnalysis?.warmUp?.longestRunBelowLimitS;
+  // Pre-filled only from a lower confidence bound of a usable warm-up fit (lib/analysis/clearance-facts.ts findMaxRunBound).
+  const runS = maxRun.seconds;
+  const runPrefill = runS !== null && Number.isFinite(runS) && runS > 0 ? `${Math.max(1, Math.floor(runS / 60))} min` : "";
   return (
     <>
       <h1>
@@ -46,9 +48,20 @@ export default async function NewClearancePage({ searchParams }: { searchParams:
           : `${dataRules.filter((r) => !r.pass).length} recorded check(s) fail, so this coil cannot be cleared now. You may record a refusal with these reasons.`}
       </p>
       <RuleResultsTable rules={dataRules} caption="Rules evaluated from the logbook (checked again on the server when you sign)" />
-      {latestAnalysis?.warmUp && (
-        <p className="muted">Warm-up of the latest session: {latestAnalysis.warmUp.explanations[0]}</p>
-      )}
+      <p className="muted">
+        Margins are judged on the hardest of the recent sessions at the coil&apos;s current setup
+        {hardestSessionIds.thermal ? (
+          <>
+            {" "}
+            (thermal: <Link href={`/sessions/${hardestSessionIds.thermal}`}>this session</Link>)
+          </>
+        ) : null}
+        , not only the latest.
+      </p>
+      {latestAnalysis?.warmUp && <p className="muted">Warm-up of the latest session: {latestAnalysis.warmUp.explanations[0]}</p>}
+      <p className="muted" data-testid="max-run-basis">
+        Maximum run: {maxRun.reason}
+      </p>
       <h2>Checklist, conditions and signature</h2>
       <ClearanceForm
         coilId={coil.id}
@@ -56,8 +69,8 @@ export default async function NewClearancePage({ searchParams }: { searchParams:
         rulesPass={dataRulesPass}
         defaults={{
           maxSupplyVoltageV: latestSession ? `${latestSession.supplyVoltageV} V` : "",
-          maxRunS: runS !== undefined && Number.isFinite(runS) && runS > 0 ? `${Math.max(1, Math.floor(runS / 60))} min` : "",
-          conditions: "",
+          maxRunS: runPrefill,
+          conditions: runPrefill ? `Runs of at most ${runPrefill} at up to ${maxRun.supplyVoltageV} V (${maxRun.reason})` : "",
         }}
       />
       <p>

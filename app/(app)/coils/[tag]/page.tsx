@@ -5,10 +5,8 @@ import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
 import { readCoilPage, type CoilPageRecords } from "@/lib/db/coil-page";
 import type { ClearancePolicyRules } from "@/lib/calc/clearance-policy";
-import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
+import { judgeCoil } from "@/lib/analysis/coil-health-input";
 import { readCoilComparison } from "@/lib/db/prediction-history";
-import { selectHealthWindow } from "@/lib/analysis/health-window";
-import { CalcInputError } from "@/lib/calc/errors";
 import { describeTurnsCount } from "@/lib/validation/coil";
 import { formatDate, formatQuantity } from "@/lib/units/format";
 import { COIL_STATUS_LABEL, TOP_LOAD_SHAPE_LABEL, TOPOLOGY_LABEL } from "@/app/ui/labels";
@@ -26,16 +24,10 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: decodeURIComponent((await params).tag) };
 }
 
-/** Health judged by the current lending policy's thresholds, as the dashboard and the trends page judge it. */
+/** Health judged by the one coil judgement under the current lending policy, as the dashboard and the trends page judge it. */
 function assess(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
-  try {
-    const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components);
-    const last = analyzed.at(-1);
-    return { health: assessCoil(analyzed, history.sweeps, new Date(), rules), latest: last ? { id: last.session.id, startedAt: last.session.startedAt, analysis: last.analysis } : null };
-  } catch (error) {
-    if (error instanceof CalcInputError) return { health: null, latest: null };
-    throw error;
-  }
+  const { health, latest } = judgeCoil(history, rules, new Date());
+  return { health, latest: latest ? { id: latest.session.id, startedAt: latest.session.startedAt, analysis: latest.analysis } : null };
 }
 
 export default async function CoilPage({ params, searchParams }: Props) {

@@ -106,6 +106,19 @@ export function PartForm({ coilId, replacing, today }: PartFormProps) {
           </div>
         </fieldset>
       )}
+      {kind === "fan" && (
+        <fieldset>
+          <legend>Fan on the heat sink</legend>
+          <div className="grid-2">
+            {q(
+              "sinkThermalResistanceKPerW",
+              "Sink Rθsa with this fan running",
+              "thermalResistance",
+              "e.g. 0.5 K/W, from the sink's forced-air curve at this fan's airflow. Left blank, the margins take half the sink's own rating and mark it as an estimate.",
+            )}
+          </div>
+        </fieldset>
+      )}
       {(kind === "snubber" || kind === "clamp") && (
         <fieldset>
           <legend>Snubber or clamp values</legend>

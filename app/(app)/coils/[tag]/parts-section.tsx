@@ -41,6 +41,9 @@ export function describeRatings(c: Part): string {
       c.caseToSinkKPerW !== null && `case–sink ${formatNumber(c.caseToSinkKPerW, 2, "K/W")}`,
     ].filter(Boolean).join(", ");
   }
+  if (c.kind === "fan") {
+    return c.sinkThermalResistanceKPerW !== null ? `sink Rθsa ${formatNumber(c.sinkThermalResistanceKPerW, 2, "K/W")} with the fan` : "with-fan Rθsa not recorded (margins estimate it)";
+  }
   if (c.kind === "heat_sink") {
     return [c.sinkThermalResistanceKPerW !== null && `Rθsa ${formatNumber(c.sinkThermalResistanceKPerW, 2, "K/W")}`, c.sinkMassKg !== null && formatQuantity(c.sinkMassKg * 1000, "g")].filter(Boolean).join(", ");
   }

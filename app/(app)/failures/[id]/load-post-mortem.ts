@@ -2,10 +2,11 @@
 import { notFound } from "next/navigation";
 import { getFailureDetail } from "@/lib/db/failures";
 import { analyzePostMortem } from "@/lib/analysis/post-mortem";
+import { getCurrentPolicy } from "@/lib/db/policy";
 
 export async function loadPostMortem(id: string) {
-  const failure = await getFailureDetail(id);
+  const [failure, policy] = await Promise.all([getFailureDetail(id), getCurrentPolicy()]);
   if (!failure) notFound();
-  const analysis = analyzePostMortem({ coil: failure.coil, components: failure.coil.components, failure, sessionsBefore: failure.recentSessions });
+  const analysis = analyzePostMortem({ coil: failure.coil, components: failure.coil.components, failure, sessionsBefore: failure.recentSessions, policy: policy.rules });
   return { failure, analysis };
 }

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { getSessionDetail } from "@/lib/db/sessions";
+import { getCurrentPolicy } from "@/lib/db/policy";
 import { analyzeRunSession } from "@/lib/analysis/session-analysis";
 import { formatDate, formatDateTime, formatDuration, formatNumber, formatPercent, formatQuantity, formatTemperature } from "@/lib/units/format";
 import { COMPONENT_KIND_LABEL, FAILURE_MODE_LABEL, OUTCOME_LABEL } from "@/app/ui/labels";
@@ -18,9 +19,10 @@ export const metadata: Metadata = { title: "Run session" };
 
 export default async function SessionPage({ params }: Props) {
   await pageUser("member");
-  const session = await getSessionDetail((await params).id);
+  const [session, policy] = await Promise.all([getSessionDetail((await params).id), getCurrentPolicy()]);
   if (!session) notFound();
-  const analysis = analyzeRunSession(session.coil, session, session.coil.components, session.samples);
+  // Judged by the current lending policy and the warm-up fit stored with the session, as every other view judges it.
+  const analysis = analyzeRunSession(session.coil, session, session.coil.components, session.samples, { policy: policy.rules });
   const margins = [analysis.margins.voltage, analysis.margins.current, analysis.margins.thermal];
   const worrying = margins.filter((m) => m.status === "thin" || m.status === "exceeded");
   const estimated = margins.filter((m) => m.estimated);

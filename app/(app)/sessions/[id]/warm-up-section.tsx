@@ -56,6 +56,14 @@ export function WarmUpSection({ analysis, samples, supplyVoltageV }: { analysis:
             <dd>{formatNumber(warmUp.predictedSteadyJunctionC, 1, "°C")} (estimated)</dd>
           </>
         )}
+        <dt>Longest run, lower {formatNumber(warmUp.confidence * 100, 0)} % bound</dt>
+        <dd data-testid="longest-run-lower-bound">
+          {warmUp.longestRunLowerBoundS === null
+            ? "None offered: this fit is too short or too uncertain to extrapolate."
+            : Number.isFinite(warmUp.longestRunLowerBoundS)
+              ? formatDuration(warmUp.longestRunLowerBoundS)
+              : "no limit at this supply"}
+        </dd>
         <dt>Fit quality</dt>
         <dd>
           R² = {fit.rSquared.toFixed(3)}, residual spread {formatNumber(fit.residualStd, 2, "K")} over {samples.length} samples

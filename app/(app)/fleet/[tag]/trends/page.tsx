@@ -6,8 +6,7 @@ import { LineChart, type ChartSeries } from "@/app/ui/charts/line-chart";
 import { getCoilByTag } from "@/lib/db/coils";
 import { getCoilHistory } from "@/lib/db/coil-history";
 import { getCurrentPolicy } from "@/lib/db/policy";
-import { analyzeSessions, assessCoil } from "@/lib/analysis/coil-health-input";
-import { selectHealthWindow } from "@/lib/analysis/health-window";
+import { analyzeSessions, judgeCoil } from "@/lib/analysis/coil-health-input";
 import { buildComparableCurrent, buildFrequencySeries, buildMarginChart } from "@/lib/analysis/trend-series";
 import { formatDate, formatNumber } from "@/lib/units/format";
 
@@ -27,9 +26,11 @@ export default async function TrendsPage({ params }: Props) {
   const [history, policy] = await Promise.all([getCoilHistory(coil.id), getCurrentPolicy()]);
   if (!history) notFound();
   const now = new Date();
-  const analyzed = analyzeSessions(history.coil, history.sessions, history.components);
-  // Judged over the same window as the dashboard and the coil page, so all three give the same status.
-  const health = assessCoil(selectHealthWindow(analyzed), history.sweeps, now, policy.rules);
+  // Every session for the charts; the health from the one coil judgement, as the dashboard and the coil page have it.
+  const analyzed = analyzeSessions(history.coil, history.sessions, history.components, policy.rules);
+  const judged = judgeCoil(history, policy.rules, now);
+  if (!judged.health) return <p className="notice warn">{judged.reasons[0]}</p>;
+  const health = judged.health;
   const current = buildComparableCurrent(analyzed);
   const freq = buildFrequencySeries(analyzed, history.sweeps, health);
   return (
