@@ -8,7 +8,8 @@ import path from "node:path";
 import ts from "typescript";
 import { beforeEach, describe, expect, it } from "vitest";
 import { makeUser, resetDatabase, testDb } from "./support/db";
-import { ALL_YES, makeCleanCoil } from "./fleet-fixtures";
+import { ALL_YES, CLEAN_WARM_UP, makeCleanCoil } from "./fleet-fixtures";
+import { fitSessionSamples } from "@/lib/analysis/session-fit";
 import { getFleetOverview } from "@/lib/db/fleet";
 import { computeFiguresFor, storeCoilFigures } from "@/lib/db/coil-summary";
 import { getCurrentPolicy, savePolicyVersion } from "@/lib/db/policy";
@@ -201,10 +202,24 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
   it("after the clock passes a summary's validUntil, and not before", async () => {
     const now = new Date();
     const coil = await makeCleanCoil("SU-30", now);
-    // Current headroom falling steadily over 20 daily sessions: a projection that counts down with the clock.
+    // Current headroom falling steadily over 20 daily sessions: a projection that counts down with the clock. Each run
+    // logs the clean warm-up, so the thermal verdict rests on a fit rather than the no-samples worst case.
     for (let i = 0; i < 20; i++) {
       await testDb.runSession.create({
-        data: { coilId: coil.id, startedAt: new Date(now.getTime() - (25 - i) * DAY + 3_600_000), supplyVoltageV: 24, supplyCurrentA: 2 + i * 0.1 + (i % 3) * 0.03, durationS: 600, ambientTempC: 22, heatSinkEndC: 35, peakSwitchVoltageV: 100, dutyCycle: 0.5 },
+        data: {
+          coilId: coil.id,
+          startedAt: new Date(now.getTime() - (25 - i) * DAY + 3_600_000),
+          supplyVoltageV: 24,
+          supplyCurrentA: 1 + i * 0.05 + (i % 3) * 0.015,
+          durationS: 600,
+          ambientTempC: 22,
+          heatSinkStartC: 22,
+          heatSinkEndC: 35,
+          peakSwitchVoltageV: 100,
+          dutyCycle: 0.5,
+          samples: { create: CLEAN_WARM_UP },
+          ...fitSessionSamples(CLEAN_WARM_UP),
+        },
       });
     }
     const first = await getFleetOverview(now);
