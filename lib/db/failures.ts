@@ -102,10 +102,12 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
     if (!failure) throw new RecordRefusedError("failureId", "That failure does not exist.");
     if (failure.status === "closed") throw new RecordRefusedError("_form", "This post-mortem was already completed.", true);
     const closedAt = new Date();
+    const mode = input.mode ?? failure.mode;
+    const modeChanged = mode !== failure.mode;
     // Only while open: two stewards completing it at once must not both write a post-mortem (and a replacement).
     const closed = await tx.failure.updateMany({
       where: { id: failure.id, status: "open" },
-      data: { rootCause: input.rootCause, correctiveAction: input.correctiveAction, status: "closed", closedAt, closedById: actorId },
+      data: { mode, rootCause: input.rootCause, correctiveAction: input.correctiveAction, status: "closed", closedAt, closedById: actorId },
     });
     if (closed.count === 0) throw new RecordRefusedError("_form", "This post-mortem was completed by someone else just now.", true);
     await markCoilChanged(tx, failure.coilId);
@@ -114,8 +116,10 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
       action: "update",
       entity: "Failure",
       entityId: failure.id,
-      summary: `Completed the post-mortem of the ${failure.mode} failure on ${failure.coil.tag}`,
-      detail: { rootCause: input.rootCause, correctiveAction: input.correctiveAction },
+      summary: modeChanged
+        ? `Completed the post-mortem of the failure on ${failure.coil.tag}; mode ${failure.mode} → ${mode}`
+        : `Completed the post-mortem of the ${mode} failure on ${failure.coil.tag}`,
+      detail: { rootCause: input.rootCause, correctiveAction: input.correctiveAction, ...(modeChanged ? { mode: { from: failure.mode, to: mode } } : {}) },
     });
     if (!input.replacement) return { failureId: failure.id, replacementId: null };
 
@@ -131,7 +135,7 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
     });
     const removed = await tx.component.updateMany({
       where: { id: failed.id, removedAt: null },
-      data: { removedAt: installedAt, removalReason: `Failed (${failure.mode.replace(/_/g, " ")}): ${input.rootCause}`.slice(0, 500), replacedById: replacement.id },
+      data: { removedAt: installedAt, removalReason: `Failed (${mode.replace(/_/g, " ")}): ${input.rootCause}`.slice(0, 500), replacedById: replacement.id },
     });
     if (removed.count === 0) throw new RecordRefusedError("replacement.partNumber", `Replacement: ${failed.partNumber} was replaced by someone else just now.`, true);
     await tx.failure.update({ where: { id: failure.id }, data: { replacementComponentId: replacement.id } });
