@@ -8,6 +8,7 @@ import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import { serializableTransaction } from "./serializable";
 import { RecordRefusedError } from "./record-refused";
+import { recordLapseCausedByWrite } from "./clearances";
 import type { FailureInput, PostMortemInput } from "../validation/failure";
 
 export async function listFailures(
@@ -56,6 +57,7 @@ export async function createFailure(actorId: string, input: FailureInput) {
     }
     const failure = await tx.failure.create({ data: { ...input, reportedById: actorId, status: "open" } });
     await markCoilChanged(tx, coil.id);
+    await recordLapseCausedByWrite(tx, coil.id, actorId);
     await recordAudit(tx, { actorId, action: "create", entity: "Failure", entityId: failure.id, summary: `Recorded a ${input.mode} failure on ${coil.tag}`, detail: input });
     if (input.sessionId) {
       await tx.runSession.update({ where: { id: input.sessionId }, data: { outcome: "failed" } });
@@ -139,6 +141,7 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
     });
     if (removed.count === 0) throw new RecordRefusedError("replacement.partNumber", `Replacement: ${failed.partNumber} was replaced by someone else just now.`, true);
     await tx.failure.update({ where: { id: failure.id }, data: { replacementComponentId: replacement.id } });
+    await recordLapseCausedByWrite(tx, failure.coilId, actorId);
     await recordAudit(tx, {
       actorId,
       action: "create",
