@@ -118,7 +118,7 @@ describe("completing a post-mortem", () => {
 
     expect((await testDb.failure.findUniqueOrThrow({ where: { id: failure.id } })).mode).toBe("over_voltage");
     const audit = await testDb.auditEvent.findFirstOrThrow({ where: { entity: "Failure", entityId: failure.id, action: "update" } });
-    expect(audit.summary).toMatch(/mode unknown → over_voltage/);
+    expect(audit.summary).toMatch(/mode unknown → over voltage/);
     expect(JSON.parse(audit.detailJson ?? "{}")).toMatchObject({ mode: { from: "unknown", to: "over_voltage" } });
     expect((await listFailures({ mode: "over_voltage" })).rows.map((f) => f.id)).toEqual([failure.id]);
     expect((await listFailures({ mode: "unknown" })).total).toBe(0);

@@ -119,7 +119,7 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
       entity: "Failure",
       entityId: failure.id,
       summary: modeChanged
-        ? `Completed the post-mortem of the failure on ${failure.coil.tag}; mode ${failure.mode} → ${mode}`
+        ? `Completed the post-mortem of the failure on ${failure.coil.tag}; mode ${failure.mode.replace(/_/g, " ")} → ${mode.replace(/_/g, " ")}`
         : `Completed the post-mortem of the ${mode} failure on ${failure.coil.tag}`,
       detail: { rootCause: input.rootCause, correctiveAction: input.correctiveAction, ...(modeChanged ? { mode: { from: failure.mode, to: mode } } : {}) },
     });

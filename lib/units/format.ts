@@ -15,6 +15,15 @@ export function formatQuantity(value: number | null | undefined, unit: string, s
   return `${Number((value / scale).toPrecision(significant))} ${prefix}${unit}`;
 }
 
+/**
+ * Rewrites bare SI figures inside free text ("first series resonance 330962 Hz") with their prefixes
+ * ("331 kHz"), for text written before it was formatted, such as stored audit summaries. Only a number
+ * followed by a space and one of these units as a whole word is touched.
+ */
+export function formatQuantitiesInText(text: string): string {
+  return text.replace(/(?<![\w.])(-?\d+(?:\.\d+)?(?:e[-+]?\d+)?) (Hz|H|F|Ω|V|A|W)(?![\wΩ])/g, (_, figure: string, unit: string) => formatQuantity(Number(figure), unit));
+}
+
 /** A plain number with fixed decimals, or a dash. */
 export function formatNumber(value: number | null | undefined, decimals = 1, unit = ""): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return "—";
