@@ -19,7 +19,7 @@ test("a member records a failure from a session; a steward completes the post-mo
   const causes = page.locator("ol.ranked-causes > li");
   await expect(causes.first()).toContainText("Over-temperature");
   await expect(causes.first().locator("li").first()).toContainText(/failure recorded as over-temperature/i);
-  await expect(page.getByRole("table", { name: /Headroom of the \d+ sessions before the failure/ })).toBeVisible();
+  await expect(page.getByRole("table", { name: /Headroom of the \d+ sessions? before the failure/ })).toBeVisible();
   await expect(page.getByRole("heading", { name: "Complete the post-mortem" })).toHaveCount(0);
   await expect(page.getByText("A steward completes it")).toBeVisible();
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatDate, formatDuration, formatPercent, formatQuantitiesInText, formatQuantity } from "./format";
+import { formatCount, formatDate, formatDuration, formatPercent, formatQuantitiesInText, formatQuantity } from "./format";
 
 describe("formatQuantity", () => {
   it("picks the SI prefix (SI Brochure, 9th ed., table 7)", () => {
@@ -51,5 +51,14 @@ describe("formatQuantitiesInText", () => {
     expect(formatQuantitiesInText("primary 0.0000022 F, secondary 0.0215 H")).toBe("primary 2.2 µF, secondary 21.5 mH");
     // Not a unit: a word that starts with one, a tag's digits, a version.
     expect(formatQuantitiesInText("KM-02 2 Alpha v1.2 Hzx 3 Volts")).toBe("KM-02 2 Alpha v1.2 Hzx 3 Volts");
+  });
+});
+
+describe("formatCount", () => {
+  it("agrees the noun with the count", () => {
+    expect(formatCount(1, "version")).toBe("1 version");
+    expect(formatCount(0, "version")).toBe("0 versions");
+    expect(formatCount(2, "entry", "entries")).toBe("2 entries");
+    expect(formatCount(1, "entry", "entries")).toBe("1 entry");
   });
 });

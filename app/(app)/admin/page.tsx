@@ -6,6 +6,7 @@ import { listAuditEntities, listAuditEvents } from "@/lib/db/audit";
 import { formatDateTime, formatQuantitiesInText } from "@/lib/units/format";
 import { auditQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { FilterForm } from "@/app/ui/list-filters";
+import { COIL_TAG_EXAMPLE } from "@/lib/validation/coil";
 import { AddUserForm } from "./add-user-form";
 import { AccessForm } from "./access-form";
 
@@ -86,7 +87,7 @@ export default async function AdminPage({ searchParams }: { searchParams: Promis
           </div>
           <div className="field">
             <label htmlFor="audit-q">What (words)</label>
-            <input id="audit-q" name="q" type="search" defaultValue={query.q ?? ""} placeholder="e.g. KM-01 or replaced" />
+            <input id="audit-q" name="q" type="search" defaultValue={query.q ?? ""} placeholder={`e.g. ${COIL_TAG_EXAMPLE} or replaced`} />
           </div>
           <div className="field">
             <label htmlFor="audit-from">From</label>

@@ -18,6 +18,7 @@ import { HealthSection } from "./health-section";
 import { PartsSection } from "./parts-section";
 import { TimelineSection } from "./timeline-section";
 import { RetireTopLoadButton } from "./top-load-forms";
+import { checkMeasuredInductance } from "@/lib/analysis/inductance-plausibility";
 
 type Props = { params: Promise<{ tag: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -49,6 +50,8 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const canEdit = hasRole(user.role, "steward");
   const base = `/coils/${encodeURIComponent(coil.tag)}`;
   const justSaved = query.added ?? query.saved;
+  // A plausibility warning, never a refusal: the record is kept as typed.
+  const inductanceWarning = justSaved ? checkMeasuredInductance(coil)?.warning : null;
 
   return (
     <>
@@ -69,6 +72,11 @@ export default async function CoilPage({ params, searchParams }: Props) {
           {coil.wireGaugeAwg !== null ? ` (AWG ${coil.wireGaugeAwg})` : ""},{" "}
           {justSaved === "counted" ? describeTurnsCount(coil.windingLengthM, coil.wireDiameterM) : `${coil.turns} turns`}.
         </div>
+      )}
+      {justSaved && inductanceWarning && (
+        <p className="notice warn" role="alert">
+          {inductanceWarning}
+        </p>
       )}
       <nav aria-label="Coil actions" className="no-print actions-row">
         {canEdit && <Link href={`${base}/edit`}>Edit the build</Link>}
