@@ -1,7 +1,9 @@
 /**
  * Clearance decisions. A decision is written once, with every rule result as evaluated on the server at
  * signing, the policy version and the checklist answers. There is deliberately no edit: a changed mind is a
- * new decision. The only later write is the lapse record (lapsedAt/lapseReason), made once when detected.
+ * new decision. The only later write is the lapse record (lapsedAt/lapseReason), made once: by the failure or part
+ * change that causes it, in that write's transaction, or (for an expiry) when the decision page first sees it.
+ * No view depends on that record: each works the state out on read (describeClearanceState).
  */
 import { prisma, type Tx } from "./client";
 import { recordAudit } from "./audit";
