@@ -161,5 +161,5 @@ test("an absurd turn count gets a clear message, and a measured inductance far f
   await page.getByLabel("Measured inductance").fill("4.2 H");
   await page.getByRole("button", { name: "Add coil" }).click();
   await expect(page).toHaveURL(/\/coils\/E2E-T2\?added=typed/);
-  await expect(page.getByRole("alert")).toContainText(/The measured inductance, 4\.2 H, is [\d,]+ times the [\d.]+ mH this geometry predicts: it was saved as typed/);
+  await expect(page.getByRole("main").getByRole("alert")).toContainText(/The measured inductance, 4\.2 H, is [\d,]+ times the [\d.]+ mH this geometry predicts: it was saved as typed/);
 });

@@ -95,7 +95,8 @@ test("a member cannot complete a post-mortem: the server refuses", async ({ brow
 test("a post-mortem corrects the failure mode; the list, the reliability table and the ranking follow it", async ({ page }) => {
   await signInAs(page, "steward");
   await page.goto("/failures/new?coil=KM-06");
-  await page.getByLabel("Failed component").selectOption({ label: "KX-M200 (Switching transistor)" });
+  // The first test fitted KX-M200-B in place of the failed KX-M200.
+  await page.getByLabel("Failed component").selectOption({ label: "KX-M200-B (Switching transistor)" });
   await page.getByLabel("Symptoms").fill("Sharp crack at full supply; the MOSFET reads short gate to drain.");
   await page.getByRole("button", { name: "Record failure" }).click();
   await expect(page.getByRole("heading", { level: 1, name: /^Post-mortem: KM-06 failure/ })).toBeVisible();
@@ -120,5 +121,5 @@ test("a post-mortem corrects the failure mode; the list, the reliability table a
   await expect(page.locator(`a[href="/failures/${failureId}"]`)).toHaveCount(0);
 
   await page.goto("/fleet/reliability");
-  await expect(page.getByRole("row", { name: /^KX-M200 / }).first()).toContainText(/Over-voltage/);
+  await expect(page.getByRole("row", { name: /^KX-M200-B / })).toContainText(/1 × Over-voltage/);
 });

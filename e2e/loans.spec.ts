@@ -45,7 +45,7 @@ test("lending confirms with a handover sheet; a failure while out puts a recall 
   for (const cell of [row.getByRole("cell").nth(0), row.getByRole("cell").nth(3), row.getByRole("cell").nth(4)]) {
     await expect(cell).toHaveCSS("white-space", "nowrap");
   }
-  await expect(page.getByRole("alert")).toHaveCount(0);
+  await expect(page.getByRole("main").getByRole("alert")).toHaveCount(0);
 
   // A failure while it is out: the clearance lapses, and the steward is told to recall it without visiting anything else.
   await page.goto("/failures/new?coil=KM-03");
@@ -53,7 +53,7 @@ test("lending confirms with a handover sheet; a failure while out puts a recall 
   await page.getByRole("button", { name: "Record failure" }).click();
   await expect(page.getByRole("heading", { level: 1, name: /^Post-mortem: KM-03 failure/ })).toBeVisible();
   await page.goto("/loans");
-  const recall = page.getByRole("alert");
+  const recall = page.getByRole("main").getByRole("alert");
   await expect(recall).toContainText("Recall this coil");
   await expect(recall).toContainText(/KM-03, out with Harbour Scouts for Winter open evening\. Recall it: failure recorded \(unknown\) on/);
   await expect(page.getByRole("row", { name: /KM-03.*Harbour Scouts/ }).getByText("Recall", { exact: true })).toBeVisible();
