@@ -34,6 +34,6 @@ export async function proxy(request: NextRequest) {
 }
 
 export const config = {
-  // Every page, sign-in included (for its CSP); not next-auth's routes, JSON APIs or static assets.
-  matcher: ["/((?!api/|_next/|favicon\\.ico|robots\\.txt).*)"],
+  // Every page, sign-in included (for its CSP); not next-auth's routes, JSON APIs or static assets (the icon too).
+  matcher: ["/((?!api/|_next/|favicon\\.ico|icon\\.svg|robots\\.txt).*)"],
 };

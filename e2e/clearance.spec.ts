@@ -30,6 +30,27 @@ test("a steward clears a coil and prints its sheet", async ({ page }) => {
   await expect(page.getByRole("button", { name: "Print this sheet" })).toBeVisible();
 });
 
+test("signing with boxes unticked marks them at the boxes with one short summary, and suggests no refusal", async ({ page }) => {
+  await signInAs(page, "steward");
+  await page.goto("/clearances/new?coil=KM-02");
+  const form = page.getByRole("form", { name: "Sign clearance" });
+  const boxes = await form.getByRole("checkbox").all();
+  for (const box of boxes.slice(2)) await box.check();
+  await form.getByLabel(/Clear for lending/).check();
+  await form.getByRole("button", { name: "Sign decision" }).click();
+  const summary = form.getByRole("status");
+  await expect(summary).toHaveText("Not signed: 2 checklist items are not ticked. Tick the marked items to clear the coil.");
+  await expect(page.getByText(/checklist items are not ticked/)).toHaveCount(1);
+  await expect(page.getByRole("main")).not.toContainText(/record a refusal/i);
+  // The missing boxes are marked where they are, and only those.
+  await expect(form.getByRole("checkbox", { checked: false })).toHaveCount(2);
+  for (const box of await form.getByRole("checkbox", { checked: false }).all()) {
+    await expect(box).toHaveAttribute("aria-invalid", "true");
+    await expect(box).toHaveAccessibleDescription(/Not ticked/);
+  }
+  await expect(form.locator(".check-missing")).toHaveCount(2);
+});
+
 test("a failure makes that clearance lapse and blocks the next loan", async ({ page }) => {
   // The failure screens belong to another area and may not be on this branch, so the failure is written
   // straight into the e2e database file, as the failure form would store it (ISO text dates, as Prisma writes them).
@@ -48,7 +69,15 @@ test("a failure makes that clearance lapse and blocks the next loan", async ({ p
   }
   await signInAs(page, "steward");
   await page.goto("/?clearance=lapsed");
-  await expect(page.getByRole("row", { name: /KM-02/ }).getByText("Lapsed: failure")).toBeVisible();
+  // One clean sentence beside the badge: the badge says "Lapsed", the sentence what ended it and when.
+  const row = page.getByRole("row", { name: /KM-02/ });
+  await expect(row.locator(".badge", { hasText: /^Lapsed$/ })).toBeVisible();
+  await expect(row.getByText(/Failure recorded \(over current\) on \d{4}-\d\d-\d\d \d\d:\d\d UTC; needs a new clearance before lending\.$/)).toBeVisible();
+  await expect(row).not.toContainText(/Lapsed: failure|Lapsed on/);
+
+  // The decision list says the same without anyone opening the decision page first.
+  await page.goto("/clearances");
+  await expect(page.getByRole("row", { name: /KM-02/ }).first().getByText(/Failure recorded \(over current\) on/)).toBeVisible();
 
   await page.goto("/loans/new?coil=KM-02");
   await expect(page.getByRole("main").getByRole("alert")).toContainText("lapsed after a failure");

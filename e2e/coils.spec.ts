@@ -142,3 +142,24 @@ test("two stewards edit the same coil: the later save from a stale form is refus
     await second.close();
   }
 });
+
+test("an absurd turn count gets a clear message, and a measured inductance far from the prediction is saved with a warning", async ({ page }) => {
+  await signInAs(page, "steward");
+  await page.goto("/coils/new");
+  await page.getByLabel("Tag").fill("E2E-T2");
+  await page.getByLabel("Name").fill("Slip build");
+  await page.getByLabel("Builder").fill("Browser tester");
+  await page.getByLabel("Form diameter").fill("75 mm");
+  await page.getByLabel("Winding length").fill("8 in");
+  await page.getByLabel("Wire", { exact: true }).fill("AWG 28");
+  await page.getByLabel("Turns", { exact: true }).fill("9999999");
+  await page.getByRole("button", { name: "Add coil" }).click();
+  await expect(page.getByText("Turns must be between 10 and 20000; “9999999” was read as 9999999.").first()).toBeVisible();
+  await expect(page.getByText("Invalid input")).toHaveCount(0);
+
+  await page.getByLabel("Turns", { exact: true }).fill("585");
+  await page.getByLabel("Measured inductance").fill("4.2 H");
+  await page.getByRole("button", { name: "Add coil" }).click();
+  await expect(page).toHaveURL(/\/coils\/E2E-T2\?added=typed/);
+  await expect(page.getByRole("main").getByRole("alert")).toContainText(/The measured inductance, 4\.2 H, is [\d,]+ times the [\d.]+ mH this geometry predicts: it was saved as typed/);
+});

@@ -19,7 +19,7 @@ test("a member records a failure from a session; a steward completes the post-mo
   const causes = page.locator("ol.ranked-causes > li");
   await expect(causes.first()).toContainText("Over-temperature");
   await expect(causes.first().locator("li").first()).toContainText(/failure recorded as over-temperature/i);
-  await expect(page.getByRole("table", { name: /Headroom of the \d+ sessions before the failure/ })).toBeVisible();
+  await expect(page.getByRole("table", { name: /Headroom of the \d+ sessions? before the failure/ })).toBeVisible();
   await expect(page.getByRole("heading", { name: "Complete the post-mortem" })).toHaveCount(0);
   await expect(page.getByText("A steward completes it")).toBeVisible();
 
@@ -90,4 +90,36 @@ test("a member cannot complete a post-mortem: the server refuses", async ({ brow
   await other.goto(failureUrl);
   await expect(other.locator(".page-head .badge")).toHaveText("Open");
   await context.close();
+});
+
+test("a post-mortem corrects the failure mode; the list, the reliability table and the ranking follow it", async ({ page }) => {
+  await signInAs(page, "steward");
+  await page.goto("/failures/new?coil=KM-06");
+  // The first test fitted KX-M200-B in place of the failed KX-M200.
+  await page.getByLabel("Failed component").selectOption({ label: "KX-M200-B (Switching transistor)" });
+  await page.getByLabel("Symptoms").fill("Sharp crack at full supply; the MOSFET reads short gate to drain.");
+  await page.getByRole("button", { name: "Record failure" }).click();
+  await expect(page.getByRole("heading", { level: 1, name: /^Post-mortem: KM-06 failure/ })).toBeVisible();
+  const failureUrl = page.url();
+  const failureId = failureUrl.split("/").at(-1)!;
+
+  await expect(page.getByLabel("Failure mode found")).toHaveValue("unknown");
+  await page.getByLabel("Failure mode found").selectOption("over_voltage");
+  await page.getByLabel("Root cause").fill("Drain ringing reached the part's rating: no clamp was fitted after the rebuild.");
+  await page.getByLabel("Corrective action").fill("Fit a clamp and log the peak drain voltage each session.");
+  await page.getByLabel(/Record the replacement/).uncheck();
+  await page.getByRole("button", { name: "Complete post-mortem" }).click();
+  await expect(page.getByRole("heading", { level: 2, name: "Findings" })).toBeVisible();
+
+  await page.reload();
+  await expect(page.locator("dt", { hasText: /^Mode$/ }).locator("+ dd")).toHaveText("Over-voltage");
+  await expect(page.locator("ol.ranked-causes > li").first()).toContainText("Over-voltage");
+
+  await page.goto("/failures?mode=over_voltage&q=KM-06");
+  await expect(page.locator(`a[href="/failures/${failureId}"]`).first()).toBeVisible();
+  await page.goto("/failures?mode=unknown&q=KM-06");
+  await expect(page.locator(`a[href="/failures/${failureId}"]`)).toHaveCount(0);
+
+  await page.goto("/fleet/reliability");
+  await expect(page.getByRole("row", { name: /^KX-M200-B / })).toContainText(/1 × Over-voltage/);
 });

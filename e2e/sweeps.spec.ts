@@ -36,7 +36,7 @@ test("import a sweep CSV, map its columns and units, preview, and see its resona
 
   await page.getByLabel("CSV file").setInputFiles(fixture("sweep-km02.csv"));
   await page.getByRole("button", { name: "Read the file" }).click();
-  await expect(page.getByRole("status")).toContainText("semicolon-separated, with a header row, decimal commas");
+  await expect(page.getByRole("status")).toContainText("semicolon-separated, with the header on row 1, decimal commas");
   await page.getByLabel("Frequency column").selectOption({ label: "Freq (kHz)" });
   await page.getByLabel("Frequency unit").selectOption("kHz");
   await page.getByLabel("Amplitude column").selectOption({ label: "Vout (mV)" });
@@ -71,12 +71,51 @@ test("a bad CSV is refused with its row and column, and nothing is stored", asyn
   await page.goto("/sweeps/import?coil=KM-05");
   await page.getByLabel("CSV file").setInputFiles(fixture("sweep-bad.csv"));
   await page.getByRole("button", { name: "Read the file" }).click();
-  await expect(page.getByRole("status")).toContainText("comma-separated, with a header row");
+  await expect(page.getByRole("status")).toContainText("comma-separated, with the header on row 1");
   await fillSettings(page);
   await page.getByRole("button", { name: "Preview" }).click();
   await expect(page.getByRole("status")).toContainText("Row 14, column 'Freq (kHz)': expected a number, got '3.2.1'. Nothing was imported.");
   await expect(page.getByRole("button", { name: /^Import \d+ readings$/ })).toHaveCount(0);
   expect(await sweepCount(page, "KM-05")).toBe(before);
+});
+
+test("a CSV with comment and preamble lines: skipped, the header row can be picked, the plot is previewed; empty and header-only files are named", async ({ page }) => {
+  await signInAs(page, "member");
+  await page.goto("/sweeps/import?coil=KM-05");
+  const status = page.locator("#import-status");
+  const rows = Array.from({ length: 40 }, (_, i) => {
+    const f = 200 + i * 5; // kHz
+    const reading = 18 - 12 / (1 + ((f - 290) / 8) ** 2); // a dip at 290 kHz, invented readings
+    return `${f},${reading.toFixed(3)}`;
+  });
+  const text = ["# Exported from the bench scope", "# Source 20 Vpp through 22k", "Operator: bench team", "Freq (kHz),Vout (V)", ...rows, ""].join("\n");
+  await page.getByLabel("…or paste the contents").fill(text);
+  await page.getByRole("button", { name: "Read the file" }).click();
+  await expect(status).toContainText("comma-separated, with the header on row 4, 3 comment or preamble lines skipped");
+  await expect(page.getByLabel("Header row")).toHaveValue("4");
+  await expect(page.getByLabel("Frequency column")).toHaveValue("0");
+  await expect(page.getByLabel("Frequency unit")).toHaveValue("kHz");
+  // Picking a line of the preamble as the header is possible, and picking the right one again restores the mapping.
+  await page.getByLabel("Header row").selectOption("3");
+  await expect(status).toContainText("with the header on row 3");
+  await page.getByLabel("Header row").selectOption("4");
+  await expect(status).toContainText("with the header on row 4");
+
+  await page.getByLabel("Series resistor").fill("22k");
+  await page.getByLabel("Source amplitude").fill("20 Vpp");
+  await page.getByRole("button", { name: "Preview" }).click();
+  await expect(status).toContainText("40 readings understood");
+  await expect(page.getByRole("img", { name: /The 40 readings as understood/ })).toBeVisible();
+  await expect(page.getByRole("table", { name: /readings, as understood/ }).getByRole("row").nth(1)).toContainText(/^5\s*200 kHz/);
+
+  await page.getByLabel("…or paste the contents").fill("# export\nFreq (kHz),Vout (V)\n");
+  await page.getByRole("button", { name: "Read the file" }).click();
+  await expect(status).toHaveText("Row 2: no readings after the header. Nothing was imported.");
+
+  await page.getByLabel("…or paste the contents").fill("");
+  await page.getByLabel("CSV file").setInputFiles({ name: "empty.csv", mimeType: "text/csv", buffer: Buffer.alloc(0) });
+  await page.getByRole("button", { name: "Read the file" }).click();
+  await expect(status).toHaveText("The file is empty. Nothing was imported.");
 });
 
 test("a sweep typed and pasted into the grid", async ({ page }) => {
@@ -156,7 +195,7 @@ test("a 100 000-row file is read with a progress bar and imported whole", async 
   await page.goto("/sweeps/import?coil=KM-06");
   await page.getByLabel("CSV file").setInputFiles({ name: "long-sweep.tsv", mimeType: "text/plain", buffer: Buffer.from(csv) });
   await page.getByRole("button", { name: "Read the file" }).click();
-  await expect(page.getByRole("status")).toContainText("tab-separated, with a header row");
+  await expect(page.getByRole("status")).toContainText("tab-separated, with the header on row 1");
   await fillSettings(page);
   await page.getByRole("button", { name: "Preview" }).click();
   await expect(page.getByRole("status")).toContainText(`${count} readings understood`, { timeout: 60_000 });

@@ -2,7 +2,12 @@ import { beforeEach, describe, expect, it } from "vitest";
 import { makeUser, resetDatabase, testDb } from "./support/db";
 import { ALL_YES, makeCleanCoil } from "./fleet-fixtures";
 import * as clearances from "@/lib/db/clearances";
-import { ClearanceRefusedError, getClearanceStateById, recordClearanceLapse, signClearance } from "@/lib/db/clearances";
+import { ClearanceRefusedError, getClearanceStateById, listClearancesWithState, recordClearanceLapse, signClearance } from "@/lib/db/clearances";
+import { createFailure } from "@/lib/db/failures";
+import { createLoan, getLoanHandover, listLoansNeedingRecall } from "@/lib/db/loans";
+import { getFleetOverview } from "@/lib/db/fleet";
+import { failureSchema } from "@/lib/validation/failure";
+import { toLocalDateTimeValue } from "@/lib/validation/session";
 import { getCurrentPolicy, listPolicyVersions, savePolicyVersion } from "@/lib/db/policy";
 import { DEFAULT_CLEARANCE_POLICY } from "@/lib/calc/clearance-policy";
 import { clearanceDecisionSchema } from "@/lib/validation/clearance";
@@ -46,6 +51,19 @@ describe("signing a clearance", () => {
     expect(rules.find((r) => r.id === "checklist:discharge-wand")?.pass).toBe(false);
   });
 
+  it("names unticked boxes by item and, when every recorded check passes, suggests no refusal", async () => {
+    const steward = await makeUser("s@club.test", "steward");
+    const now = new Date();
+    const coil = await makeCleanCoil("T-1", now);
+    const partial: Record<string, boolean> = { ...ALL_YES, "discharge-wand": false, ventilation: false };
+    const error = (await signClearance(steward.id, decision(coil.id, { checklist: partial }), now).catch((e: unknown) => e)) as ClearanceRefusedError;
+    expect(error).toBeInstanceOf(ClearanceRefusedError);
+    expect(error.uncheckedItemIds.sort()).toEqual(["discharge-wand", "ventilation"]);
+    expect(error.failedChecks).toEqual([]);
+    expect(error.message).toBe(`Not signed: ${error.uncheckedItemIds.length} checklist items are not ticked. Tick the marked items to clear the coil.`);
+    expect(error.message).not.toMatch(/refus/i);
+  });
+
   it("re-evaluates from the stored history: an open failure blocks clearing whatever the form says", async () => {
     const steward = await makeUser("s@club.test", "steward");
     const now = new Date();
@@ -54,6 +72,7 @@ describe("signing a clearance", () => {
     const error = await signClearance(steward.id, decision(coil.id), now).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(ClearanceRefusedError);
     expect((error as ClearanceRefusedError).failedRules.map((r) => r.id)).toEqual(expect.arrayContaining(["open-failures", "failure-free-sessions"]));
+    expect((error as ClearanceRefusedError).message).toMatch(/^Not signed: \d+ recorded checks fail, so the coil cannot be cleared; record a refusal instead\.$/);
   });
 
   it("rejects bad condition input with the field named", () => {
@@ -156,5 +175,36 @@ describe("lending policy versions", () => {
       note: "Tighter",
     });
     expect(result.rules).toMatchObject({ minVoltageHeadroom: 0.25, acceptEstimatedMargins: false, ituRegion: 3, requiredChecklist: [{ id: "one-item", source: "common practice" }] });
+  });
+});
+
+describe("lapse state on every view", () => {
+  it("a failure on a coil out on loan lapses its clearance at once: stored with the failure, the same on the list, the dashboard and the recall notice", async () => {
+    const steward = await makeUser("s@club.test", "steward");
+    const signedAt = new Date(Date.now() - 5 * 60_000); // before the failure, whose form time is whole minutes
+    const coil = await makeCleanCoil("T-1", signedAt);
+    const c = await signClearance(steward.id, decision(coil.id), signedAt);
+    const loan = await createLoan(steward.id, { coilId: coil.id, borrower: "Riverside Library", borrowerContact: "", event: "Family science morning", expectedBackAt: new Date(Date.now() + 3 * 86_400_000) });
+    expect(await listLoansNeedingRecall()).toEqual([]);
+    expect((await getLoanHandover(loan.id))?.clearance.decidedAt.getTime()).toBe(signedAt.getTime());
+
+    await createFailure(
+      steward.id,
+      failureSchema.parse({ coilId: coil.id, mode: "over_voltage", occurredAt: toLocalDateTimeValue(new Date(Date.now() - 1000)), symptoms: "Loud crack; the switch is short." }),
+    );
+    // Stored by the failure's own transaction, not by a later visit to the decision page.
+    const stored = await testDb.clearance.findUniqueOrThrow({ where: { id: c.id } });
+    expect(stored.lapsedAt).not.toBeNull();
+    expect(await testDb.auditEvent.count({ where: { entity: "Clearance", entityId: c.id, action: "lapse" } })).toBe(1);
+
+    const now = new Date();
+    const listed = (await listClearancesWithState(now)).find((r) => r.id === c.id)!;
+    const dashboard = (await getFleetOverview(now)).find((r) => r.id === coil.id)!;
+    expect(listed.state.kind).toBe("lapsed-failure");
+    expect(dashboard.clearance).toEqual(listed.state);
+    expect(listed.state.summary).toMatch(/^Failure recorded \(over voltage\) on \d{4}-\d\d-\d\d \d\d:\d\d UTC; needs a new clearance before lending\.$/);
+    const [recall] = await listLoansNeedingRecall(now);
+    expect(recall).toMatchObject({ loanId: loan.id, coilTag: "T-1", borrower: "Riverside Library" });
+    expect(recall!.instruction).toMatch(/^Recall it: failure recorded \(over voltage\)/);
   });
 });

@@ -3,7 +3,8 @@ import { beforeEach, describe, expect, it } from "vitest";
 import { makeUser, resetDatabase, testDb } from "./support/db";
 import { makeBenchCoil } from "./support/bench-fixtures";
 import { createSession } from "@/lib/db/sessions";
-import { completePostMortem, createFailure, getFailureDetail } from "@/lib/db/failures";
+import { completePostMortem, createFailure, getFailureDetail, listFailures } from "@/lib/db/failures";
+import { getPartReliability } from "@/lib/db/fleet";
 import { sessionSchema } from "@/lib/validation/session";
 import { failureSchema, postMortemSchema } from "@/lib/validation/failure";
 import { analyzePostMortem } from "@/lib/analysis/post-mortem";
@@ -106,6 +107,33 @@ describe("completing a post-mortem", () => {
     expect((await testDb.component.findUniqueOrThrow({ where: { id: sw.id } })).removedAt).toBeNull();
     expect(await testDb.component.count()).toBe(2);
     expect(await testDb.auditEvent.count()).toBe(auditBefore);
+  });
+
+  it("sets the mode the post-mortem found, audited, and the list, reliability and ranking follow it", async () => {
+    const bench = await benchWithSession();
+    const failure = await createFailure(
+      bench.member.id,
+      failureSchema.parse(failureForm(bench.coil.id, { sessionId: bench.session.id, componentId: bench.sw.id, mode: "unknown" })),
+    );
+    await completePostMortem(bench.steward.id, postMortemSchema.parse({ ...completion(failure.id), mode: "over_voltage" }));
+
+    expect((await testDb.failure.findUniqueOrThrow({ where: { id: failure.id } })).mode).toBe("over_voltage");
+    const audit = await testDb.auditEvent.findFirstOrThrow({ where: { entity: "Failure", entityId: failure.id, action: "update" } });
+    expect(audit.summary).toMatch(/mode unknown → over voltage/);
+    expect(JSON.parse(audit.detailJson ?? "{}")).toMatchObject({ mode: { from: "unknown", to: "over_voltage" } });
+    expect((await listFailures({ mode: "over_voltage" })).rows.map((f) => f.id)).toEqual([failure.id]);
+    expect((await listFailures({ mode: "unknown" })).total).toBe(0);
+    const { parts } = await getPartReliability();
+    expect(parts.find((p) => p.partNumber === "MJE13009")?.failureModes).toEqual([["over_voltage", 1]]);
+    const detail = (await getFailureDetail(failure.id))!;
+    const analysis = analyzePostMortem({ coil: detail.coil, components: detail.coil.components, failure: detail, sessionsBefore: detail.recentSessions });
+    expect(analysis.causes[0]!.cause).toBe("over_voltage");
+  });
+
+  it("keeps the recorded mode when the post-mortem names none", async () => {
+    const { steward, failure } = await openFailure();
+    await completePostMortem(steward.id, completion(failure.id));
+    expect((await testDb.failure.findUniqueOrThrow({ where: { id: failure.id } })).mode).toBe("over_voltage");
   });
 
   it("refuses to complete a post-mortem twice", async () => {

@@ -4,7 +4,7 @@ import { pageUser } from "@/app/ui/page-guard";
 import { getFleetOverview, selectFleetRows } from "@/lib/db/fleet";
 import { fleetQuerySchema } from "@/lib/validation/fleet-query";
 import type { SearchParams } from "@/lib/validation/list-query";
-import { formatDate, formatNumber } from "@/lib/units/format";
+import { formatCount, formatDate, formatNumber } from "@/lib/units/format";
 import { COIL_STATUS_LABEL } from "@/app/ui/labels";
 import { ClearanceBadge } from "./clearances/clearance-badge";
 import { MarginCell } from "./fleet/margin-cell";
@@ -58,7 +58,7 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
       <div className="table-wrap">
         <table className="fleet-table">
           <caption>
-            {rows.length} of {all.length} coils
+            {rows.length} of {formatCount(all.length, "coil")}
           </caption>
           <thead>
             <tr>

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { collectPartKinds, computePartExposures, normalizePartKey } from "./part-hours";
+import { collectPartKinds, computePartExposures, countFailureModesByPart, normalizePartKey } from "./part-hours";
 import { partReliability } from "../calc/reliability";
 
 const at = (h: number) => new Date(Date.UTC(2026, 0, 1) + h * 3600_000);
@@ -31,5 +31,29 @@ describe("computePartExposures", () => {
 
   it("normalises part numbers so spelling variants pool together", () => {
     expect(normalizePartKey(" mje-13009 ")).toBe("MJE13009");
+  });
+
+  it("splits each part's failures by their stored mode, pooled like the hours", () => {
+    const coil = {
+      components: [
+        { id: "a1", kind: "switch", partNumber: "IRFP260N", installedAt: at(0), removedAt: at(10) },
+        { id: "a2", kind: "switch", partNumber: "irfp-260n", installedAt: at(10), removedAt: null },
+        { id: "b1", kind: "heat_sink", partNumber: "HS-40", installedAt: at(0), removedAt: null },
+      ],
+      sessions: [],
+    };
+    const failures = [
+      { componentId: "a1", mode: "unknown" },
+      { componentId: "a2", mode: "over_voltage" },
+      { componentId: "a1", mode: "over_voltage" },
+      { componentId: null, mode: "mechanical" },
+      { componentId: "gone", mode: "mechanical" },
+    ];
+    const modes = countFailureModesByPart(computePartExposures([coil], failures), failures);
+    expect(modes.get("IRFP260N")).toEqual([
+      ["over_voltage", 2],
+      ["unknown", 1],
+    ]);
+    expect(modes.has("HS40")).toBe(false);
   });
 });

@@ -49,3 +49,22 @@ export function collectPartKinds(rows: readonly PartExposureRow[]): Map<string, 
   for (const r of rows) (kinds.get(r.partKey) ?? kinds.set(r.partKey, new Set()).get(r.partKey)!).add(r.kind);
   return new Map([...kinds].map(([k, v]) => [k, [...v].sort()]));
 }
+
+/**
+ * How the failures recorded against each part key split by mode, as [mode, count] pairs, most frequent first
+ * (ties by mode name). Read from the failures as stored now, so a mode a post-mortem corrected counts as corrected.
+ */
+export function countFailureModesByPart(
+  rows: readonly PartExposureRow[],
+  failures: readonly { componentId: string | null; mode: string }[],
+): Map<string, [mode: string, count: number][]> {
+  const keyOfComponent = new Map(rows.map((r) => [r.componentId, r.partKey]));
+  const counts = new Map<string, Map<string, number>>();
+  for (const f of failures) {
+    const key = f.componentId ? keyOfComponent.get(f.componentId) : undefined;
+    if (key === undefined) continue;
+    const byMode = counts.get(key) ?? counts.set(key, new Map()).get(key)!;
+    byMode.set(f.mode, (byMode.get(f.mode) ?? 0) + 1);
+  }
+  return new Map([...counts].map(([key, byMode]) => [key, [...byMode].sort((a, b) => b[1] - a[1] || a[0].localeCompare(b[0]))]));
+}

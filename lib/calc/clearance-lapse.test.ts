@@ -26,6 +26,7 @@ describe("clearanceLapse", () => {
     expect(r).toMatchObject({ lapsed: true, reason: "failure" });
     expect(r.at!.toISOString()).toBe("2025-03-09T12:00:00.000Z");
     expect(r.explanation).toMatch(/^Lapsed on 2025-03-09 12:00 UTC: failure recorded \(over voltage\)/);
+    expect(r.cause).toBe("failure recorded (over voltage) on 2025-03-09 12:00 UTC");
   });
 
   it("lapses on a part replacement", () => {
@@ -39,6 +40,7 @@ describe("clearanceLapse", () => {
     expect(r.reason).toBe("part-replaced");
     expect(r.at!.getTime()).toBe(day(5).getTime());
     expect(r.explanation).toMatch(/Since then: failure recorded \(over temperature\) on 2025-03-11 12:00 UTC/);
+    expect(r.cause).toBe("part replaced (fan) on 2025-03-06 12:00 UTC");
     const afterExpiry = run({ now: day(70), failuresSince: [{ occurredAt: day(65), mode: "mechanical" }] });
     expect(afterExpiry.reason).toBe("expired");
   });

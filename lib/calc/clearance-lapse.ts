@@ -14,6 +14,8 @@ export interface ClearanceLapse {
   reason: ClearanceLapseReason | null;
   /** When it stopped standing (the refusal's decision time for a refused clearance); null while it stands. */
   at: Date | null;
+  /** What ended it, with its instant, e.g. "failure recorded (over voltage) on 2025-03-09 12:00 UTC"; null while it stands. */
+  cause: string | null;
   explanation: string;
 }
 
@@ -53,7 +55,7 @@ export function clearanceLapse(input: ClearanceLapseInput): ClearanceLapse {
   });
 
   if (input.clearance.verdict === "refused") {
-    return { lapsed: true, reason: null, at: decidedAt, explanation: `Refused on ${formatUtc(decidedAt)}: a refused clearance is never valid.` };
+    return { lapsed: true, reason: null, at: decidedAt, cause: `refused on ${formatUtc(decidedAt)}`, explanation: `Refused on ${formatUtc(decidedAt)}: a refused clearance is never valid.` };
   }
 
   // An event at the very instant of signing counts: the steward cannot have seen it.
@@ -65,6 +67,7 @@ export function clearanceLapse(input: ClearanceLapseInput): ClearanceLapse {
       lapsed: false,
       reason: null,
       at: null,
+      cause: null,
       explanation: `Stands until ${formatUtc(validUntil)} (${daysLeft} full day${daysLeft === 1 ? "" : "s"} left); no failure or part replacement since it was signed.`,
     };
   }
@@ -75,6 +78,7 @@ export function clearanceLapse(input: ClearanceLapseInput): ClearanceLapse {
     lapsed: true,
     reason: first.reason,
     at: first.at,
+    cause: `${first.what} on ${formatUtc(first.at)}`,
     explanation: `Lapsed on ${formatUtc(first.at)}: ${first.what}. A new clearance is needed before lending.${later}`,
   };
 }

@@ -3,6 +3,8 @@
  * same transaction as the change, so the trail can never disagree with the data.
  */
 import { prisma, type Tx } from "./client";
+import type { Prisma } from "./generated/client";
+import { textContains } from "./text-search";
 
 export interface AuditEntry {
   actorId: string | null;
@@ -26,12 +28,39 @@ export async function recordAudit(tx: Tx, entry: AuditEntry): Promise<void> {
   });
 }
 
-export async function listAuditEvents(options: { entity?: string; entityId?: string; take?: number; skip?: number } = {}) {
+export interface AuditFilter {
+  entity?: string;
+  entityId?: string;
+  /** The acting user's id; "system" for entries no user made (a lapse detected, an import script). */
+  actorId?: string;
+  /** Words of the summary, matched case-insensitively on both databases. */
+  q?: string;
+  /** Inclusive instants. */
+  from?: Date;
+  to?: Date;
+  take?: number;
+  skip?: number;
+}
+
+export async function listAuditEvents(options: AuditFilter = {}) {
+  const where: Prisma.AuditEventWhereInput = {
+    entity: options.entity,
+    entityId: options.entityId,
+    ...(options.actorId ? { actorId: options.actorId === "system" ? null : options.actorId } : {}),
+    ...(options.q ? { summary: textContains(options.q) } : {}),
+    ...(options.from || options.to ? { at: { gte: options.from, lte: options.to } } : {}),
+  };
   return prisma.auditEvent.findMany({
-    where: { entity: options.entity, entityId: options.entityId },
+    where,
     orderBy: [{ at: "desc" }, { id: "desc" }],
     take: options.take ?? 50,
     skip: options.skip ?? 0,
     include: { actor: { select: { name: true, email: true } } },
   });
+}
+
+/** The kinds of record the log holds, for the "what" filter. */
+export async function listAuditEntities(): Promise<string[]> {
+  const rows = await prisma.auditEvent.findMany({ distinct: ["entity"], select: { entity: true }, orderBy: { entity: "asc" } });
+  return rows.map((r) => r.entity);
 }

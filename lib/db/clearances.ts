@@ -1,9 +1,11 @@
 /**
  * Clearance decisions. A decision is written once, with every rule result as evaluated on the server at
  * signing, the policy version and the checklist answers. There is deliberately no edit: a changed mind is a
- * new decision. The only later write is the lapse record (lapsedAt/lapseReason), made once when detected.
+ * new decision. The only later write is the lapse record (lapsedAt/lapseReason), made once: by the failure or part
+ * change that causes it, in that write's transaction, or (for an expiry) when the decision page first sees it.
+ * No view depends on that record: each works the state out on read (describeClearanceState).
  */
-import { prisma } from "./client";
+import { prisma, type Tx } from "./client";
 import { recordAudit } from "./audit";
 import { serializableTransaction } from "./serializable";
 import { getCurrentPolicy } from "./policy";
@@ -19,6 +21,29 @@ export class ClearanceRefusedError extends Error {
   ) {
     super(message);
   }
+
+  /** The checklist items left unticked (their rule ids are "checklist:<item id>"), for marking at the boxes. */
+  get uncheckedItemIds(): string[] {
+    return this.failedRules.filter((r) => r.id.startsWith("checklist:")).map((r) => r.id.slice("checklist:".length));
+  }
+
+  /** The recorded checks that failed, apart from the checklist: only these make a refusal the fitting decision. */
+  get failedChecks(): ClearanceRuleResult[] {
+    return this.failedRules.filter((r) => !r.id.startsWith("checklist:"));
+  }
+}
+
+/**
+ * One short summary of why "cleared" was refused. Unticked boxes alone are the steward's to tick, so no refusal
+ * is suggested then; a refusal is offered only when a recorded check fails.
+ */
+export function describeClearRefusal(failed: readonly ClearanceRuleResult[]): string {
+  const unticked = failed.filter((r) => r.id.startsWith("checklist:")).length;
+  const checks = failed.length - unticked;
+  const boxes = `${unticked} checklist item${unticked === 1 ? " is" : "s are"} not ticked`;
+  if (checks === 0) return `Not signed: ${boxes}. Tick the marked items to clear the coil.`;
+  const failing = `${checks} recorded check${checks === 1 ? " fails" : "s fail"}`;
+  return `Not signed: ${failing}${unticked > 0 ? ` and ${boxes}` : ""}, so the coil cannot be cleared; record a refusal instead.`;
 }
 
 /** The coil's full history as buildClearanceFacts reads it. */
@@ -61,7 +86,7 @@ export async function signClearance(actorId: string, input: ClearanceDecisionInp
   }
   if (input.verdict === "cleared" && evaluation.verdict !== "pass") {
     const failed = evaluation.rules.filter((r) => !r.pass);
-    throw new ClearanceRefusedError(`Cannot clear: ${failed.length} rule${failed.length === 1 ? "" : "s"} failed (${failed.map((r) => r.label).join("; ")}). You may record a refusal instead.`, failed);
+    throw new ClearanceRefusedError(describeClearRefusal(failed), failed);
   }
   const checklistRecord = policy.rules.requiredChecklist.map((item) => ({ ...item, answer: input.checklist[item.id] === true }));
   return prisma.$transaction(async (tx) => {
@@ -116,7 +141,7 @@ export async function getClearance(id: string) {
 export function listClearances(filter: { coilId?: string } = {}, take = 100) {
   return prisma.clearance.findMany({
     where: { coilId: filter.coilId },
-    orderBy: { decidedAt: "desc" },
+    orderBy: [{ decidedAt: "desc" }, { id: "desc" }],
     take,
     include: { coil: { select: { tag: true, name: true } }, decidedBy: { select: { name: true } }, policy: { select: { version: true } } },
   });
@@ -148,13 +173,63 @@ export async function getClearanceStateById(clearanceId: string, now: Date = new
  * conditional update makes a second detection a no-op, so the first record is never overwritten.
  */
 export async function recordClearanceLapse(clearanceId: string, state: ClearanceState): Promise<boolean> {
-  if (state.kind !== "expired" && state.kind !== "lapsed-failure" && state.kind !== "lapsed-part") return false;
-  if (!state.endedAt) return false;
-  const endedAt = state.endedAt;
-  return serializableTransaction(async (tx) => {
-    const result = await tx.clearance.updateMany({ where: { id: clearanceId, lapsedAt: null, verdict: "cleared" }, data: { lapsedAt: endedAt, lapseReason: state.explanation } });
-    if (result.count === 0) return false;
-    await recordAudit(tx, { actorId: null, action: "lapse", entity: "Clearance", entityId: clearanceId, summary: `Clearance ${state.label.toLowerCase()}`, detail: { reason: state.kind, explanation: state.explanation } });
-    return true;
+  if (!isLapse(state)) return false;
+  return serializableTransaction((tx) => writeLapse(tx, clearanceId, state, null));
+}
+
+/**
+ * Records, inside the write that causes it (a failure, a part fitted or replaced), the lapse it brings to the
+ * coil's latest clearance, so no view waits for someone to open the decision page before the lapse is stored.
+ * An expiry moves with the clock alone: every view works it out on read (describeClearanceState).
+ */
+export async function recordLapseCausedByWrite(tx: Tx, coilId: string, actorId: string | null, now: Date = new Date()): Promise<boolean> {
+  const latest = await tx.clearance.findFirst({
+    where: { coilId },
+    orderBy: [{ decidedAt: "desc" }, { id: "desc" }],
+    select: { id: true, decidedAt: true, validUntil: true, verdict: true, lapsedAt: true },
+  });
+  if (!latest || latest.verdict !== "cleared" || latest.lapsedAt !== null) return false;
+  const [failures, components] = await Promise.all([
+    tx.failure.findMany({ where: { coilId }, select: { occurredAt: true, mode: true } }),
+    tx.component.findMany({ where: { coilId }, select: { id: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
+  ]);
+  const state = describeClearanceState(latest, failures, findPartReplacements(components), now);
+  if (state.kind !== "lapsed-failure" && state.kind !== "lapsed-part") return false;
+  return writeLapse(tx, latest.id, state, actorId);
+}
+
+function isLapse(state: ClearanceState): boolean {
+  return (state.kind === "expired" || state.kind === "lapsed-failure" || state.kind === "lapsed-part") && state.endedAt !== null;
+}
+
+async function writeLapse(tx: Tx, clearanceId: string, state: ClearanceState, actorId: string | null): Promise<boolean> {
+  if (!isLapse(state) || !state.endedAt) return false;
+  const result = await tx.clearance.updateMany({ where: { id: clearanceId, lapsedAt: null, verdict: "cleared" }, data: { lapsedAt: state.endedAt, lapseReason: state.explanation } });
+  if (result.count === 0) return false;
+  await recordAudit(tx, { actorId, action: "lapse", entity: "Clearance", entityId: clearanceId, summary: `Clearance ${state.label.toLowerCase()}`, detail: { reason: state.kind, explanation: state.explanation } });
+  return true;
+}
+
+/**
+ * Every decision, newest first, each with where it stands now, worked out on read exactly as the dashboard
+ * and the decision page do (describeClearanceState), so no view depends on a lapse having been stored.
+ */
+export async function listClearancesWithState(now: Date = new Date(), take = 100) {
+  const rows = await listClearances({}, take);
+  const coilIds = [...new Set(rows.map((r) => r.coilId))];
+  const [failures, components] = await Promise.all([
+    prisma.failure.findMany({ where: { coilId: { in: coilIds } }, select: { coilId: true, occurredAt: true, mode: true } }),
+    prisma.component.findMany({ where: { coilId: { in: coilIds } }, select: { id: true, coilId: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
+  ]);
+  const latestDecision = new Map<string, string>();
+  for (const r of rows) if (!latestDecision.has(r.coilId)) latestDecision.set(r.coilId, r.id);
+  return rows.map((r) => {
+    const state = describeClearanceState(
+      r,
+      failures.filter((f) => f.coilId === r.coilId),
+      findPartReplacements(components.filter((c) => c.coilId === r.coilId)),
+      now,
+    );
+    return { ...r, state, superseded: latestDecision.get(r.coilId) !== r.id };
   });
 }

@@ -2,6 +2,7 @@
 import { prisma } from "./client";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
+import { recordLapseCausedByWrite } from "./clearances";
 import { serializableTransaction } from "./serializable";
 import type { ComponentInput, ReplaceComponentInput } from "../validation/component";
 
@@ -41,6 +42,7 @@ export async function addComponent(actorId: string, input: ComponentInput) {
     if (!coil) throw new ComponentStateError("That coil no longer exists.");
     const component = await tx.component.create({ data: { coilId: input.coilId, ...componentData(input) } });
     await markCoilChanged(tx, input.coilId);
+    await recordLapseCausedByWrite(tx, input.coilId, actorId);
     await recordAudit(tx, { actorId, action: "create", entity: "Component", entityId: component.id, summary: `${coil.tag}: fitted ${component.partNumber} (${component.kind})`, detail: input });
     return { component, coilTag: coil.tag };
   });
@@ -64,6 +66,7 @@ export async function replaceComponent(actorId: string, input: ReplaceComponentI
     const removed = await tx.component.updateMany({ where: { id: old.id, removedAt: null }, data: { removedAt: next.installedAt, removalReason, replacedById: fitted.id } });
     if (removed.count === 0) throw new ComponentStateError(`${old.partNumber} was replaced by someone else just now.`);
     await markCoilChanged(tx, old.coilId);
+    await recordLapseCausedByWrite(tx, old.coilId, actorId);
     await recordAudit(tx, {
       actorId,
       action: "update",

@@ -8,6 +8,7 @@ import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import { serializableTransaction } from "./serializable";
 import { RecordRefusedError } from "./record-refused";
+import { recordLapseCausedByWrite } from "./clearances";
 import type { FailureInput, PostMortemInput } from "../validation/failure";
 
 export async function listFailures(
@@ -56,6 +57,7 @@ export async function createFailure(actorId: string, input: FailureInput) {
     }
     const failure = await tx.failure.create({ data: { ...input, reportedById: actorId, status: "open" } });
     await markCoilChanged(tx, coil.id);
+    await recordLapseCausedByWrite(tx, coil.id, actorId);
     await recordAudit(tx, { actorId, action: "create", entity: "Failure", entityId: failure.id, summary: `Recorded a ${input.mode} failure on ${coil.tag}`, detail: input });
     if (input.sessionId) {
       await tx.runSession.update({ where: { id: input.sessionId }, data: { outcome: "failed" } });
@@ -102,10 +104,12 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
     if (!failure) throw new RecordRefusedError("failureId", "That failure does not exist.");
     if (failure.status === "closed") throw new RecordRefusedError("_form", "This post-mortem was already completed.", true);
     const closedAt = new Date();
+    const mode = input.mode ?? failure.mode;
+    const modeChanged = mode !== failure.mode;
     // Only while open: two stewards completing it at once must not both write a post-mortem (and a replacement).
     const closed = await tx.failure.updateMany({
       where: { id: failure.id, status: "open" },
-      data: { rootCause: input.rootCause, correctiveAction: input.correctiveAction, status: "closed", closedAt, closedById: actorId },
+      data: { mode, rootCause: input.rootCause, correctiveAction: input.correctiveAction, status: "closed", closedAt, closedById: actorId },
     });
     if (closed.count === 0) throw new RecordRefusedError("_form", "This post-mortem was completed by someone else just now.", true);
     await markCoilChanged(tx, failure.coilId);
@@ -114,8 +118,10 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
       action: "update",
       entity: "Failure",
       entityId: failure.id,
-      summary: `Completed the post-mortem of the ${failure.mode} failure on ${failure.coil.tag}`,
-      detail: { rootCause: input.rootCause, correctiveAction: input.correctiveAction },
+      summary: modeChanged
+        ? `Completed the post-mortem of the failure on ${failure.coil.tag}; mode ${failure.mode.replace(/_/g, " ")} → ${mode.replace(/_/g, " ")}`
+        : `Completed the post-mortem of the ${mode} failure on ${failure.coil.tag}`,
+      detail: { rootCause: input.rootCause, correctiveAction: input.correctiveAction, ...(modeChanged ? { mode: { from: failure.mode, to: mode } } : {}) },
     });
     if (!input.replacement) return { failureId: failure.id, replacementId: null };
 
@@ -131,10 +137,11 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
     });
     const removed = await tx.component.updateMany({
       where: { id: failed.id, removedAt: null },
-      data: { removedAt: installedAt, removalReason: `Failed (${failure.mode.replace(/_/g, " ")}): ${input.rootCause}`.slice(0, 500), replacedById: replacement.id },
+      data: { removedAt: installedAt, removalReason: `Failed (${mode.replace(/_/g, " ")}): ${input.rootCause}`.slice(0, 500), replacedById: replacement.id },
     });
     if (removed.count === 0) throw new RecordRefusedError("replacement.partNumber", `Replacement: ${failed.partNumber} was replaced by someone else just now.`, true);
     await tx.failure.update({ where: { id: failure.id }, data: { replacementComponentId: replacement.id } });
+    await recordLapseCausedByWrite(tx, failure.coilId, actorId);
     await recordAudit(tx, {
       actorId,
       action: "create",

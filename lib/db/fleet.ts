@@ -15,7 +15,7 @@ import { describeClearanceState, type ClearanceState } from "../analysis/clearan
 import type { HealthStatus } from "../calc/coil-health";
 import type { SessionMarginsBrief } from "../analysis/margin-brief";
 import type { FleetQuery } from "../validation/fleet-query";
-import { collectPartKinds, computePartExposures } from "../analysis/part-hours";
+import { collectPartKinds, computePartExposures, countFailureModesByPart } from "../analysis/part-hours";
 import { partReliability } from "../calc/reliability";
 
 export interface FleetRow {
@@ -136,11 +136,12 @@ export function selectFleetRows(rows: readonly FleetRow[], query: FleetQuery): F
 
 /** Reliability per part number across the fleet: hours while fitted and failures recorded against the part. */
 export async function getPartReliability() {
-  const [histories, failures] = await Promise.all([getFleetHistory(), prisma.failure.findMany({ select: { componentId: true } })]);
+  const [histories, failures] = await Promise.all([getFleetHistory(), prisma.failure.findMany({ select: { componentId: true, mode: true } })]);
   const exposures = computePartExposures(histories, failures);
   const kinds = collectPartKinds(exposures);
+  const modes = countFailureModesByPart(exposures, failures);
   const shownNumber = new Map(exposures.map((e) => [e.partKey, e.partNumber]));
-  const parts = partReliability(exposures).map((p) => ({ ...p, kinds: kinds.get(p.partKey) ?? [], partNumber: shownNumber.get(p.partKey) ?? p.partKey }));
+  const parts = partReliability(exposures).map((p) => ({ ...p, kinds: kinds.get(p.partKey) ?? [], failureModes: modes.get(p.partKey) ?? [], partNumber: shownNumber.get(p.partKey) ?? p.partKey }));
   parts.sort((a, b) => b.failures - a.failures || b.operatingHours - a.operatingHours);
   return { parts, unattributedFailures: failures.filter((f) => !f.componentId).length };
 }

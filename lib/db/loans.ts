@@ -9,7 +9,7 @@ import { markCoilChanged } from "./coil-summary";
 import { serializableTransaction } from "./serializable";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
-import { describeClearanceState, describeLendingBlock, type ClearanceStateKind } from "../analysis/clearance-state";
+import { describeClearanceState, describeLendingBlock, describeRecallNeed, type ClearanceState, type ClearanceStateKind } from "../analysis/clearance-state";
 import { findPartReplacements } from "../analysis/clearance-facts";
 import type { LoanCreateInput, LoanReturnInput } from "../validation/loan";
 
@@ -48,6 +48,50 @@ export async function listLoans(filter: { state?: "out" | "returned" | "overdue"
   return toPage(rows, total, request);
 }
 
+export interface RecallNotice {
+  loanId: string;
+  coilTag: string;
+  borrower: string;
+  event: string;
+  state: ClearanceState;
+  /** "Recall it: failure recorded (…) on … UTC; needs a new clearance before lending." */
+  instruction: string;
+}
+
+/**
+ * Coils out on loan whose clearance no longer stands now (a failure, a part change or expiry since it was
+ * signed), judged from the coil's latest decision exactly as the dashboard judges it. The steward recalls them.
+ */
+export async function listLoansNeedingRecall(now: Date = new Date()): Promise<RecallNotice[]> {
+  const out = await prisma.loan.findMany({
+    where: { returnedAt: null },
+    orderBy: [{ outAt: "asc" }, { id: "asc" }],
+    select: { id: true, coilId: true, borrower: true, event: true, coil: { select: { tag: true } } },
+  });
+  if (out.length === 0) return [];
+  const coilIds = [...new Set(out.map((l) => l.coilId))];
+  const [clearances, failures, components] = await Promise.all([
+    prisma.clearance.findMany({
+      where: { coilId: { in: coilIds } },
+      orderBy: [{ decidedAt: "desc" }, { id: "desc" }],
+      select: { id: true, coilId: true, decidedAt: true, validUntil: true, verdict: true },
+    }),
+    prisma.failure.findMany({ where: { coilId: { in: coilIds } }, select: { coilId: true, occurredAt: true, mode: true } }),
+    prisma.component.findMany({ where: { coilId: { in: coilIds } }, select: { id: true, coilId: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
+  ]);
+  return out.flatMap((loan) => {
+    const latest = clearances.find((c) => c.coilId === loan.coilId) ?? null;
+    const state = describeClearanceState(
+      latest,
+      failures.filter((f) => f.coilId === loan.coilId),
+      findPartReplacements(components.filter((c) => c.coilId === loan.coilId)),
+      now,
+    );
+    const instruction = describeRecallNeed(state);
+    return instruction === null ? [] : [{ loanId: loan.id, coilTag: loan.coil.tag, borrower: loan.borrower, event: loan.event, state, instruction }];
+  });
+}
+
 export function getLoan(id: string) {
   return prisma.loan.findUnique({
     where: { id },
@@ -56,6 +100,18 @@ export function getLoan(id: string) {
       lentBy: { select: { name: true } },
       receivedBy: { select: { name: true } },
       sessions: { select: { id: true, startedAt: true, durationS: true } },
+    },
+  });
+}
+
+/** A loan with what its handover sheet prints: the coil, who lent it and the clearance it went out under. */
+export function getLoanHandover(id: string) {
+  return prisma.loan.findUnique({
+    where: { id },
+    include: {
+      coil: { select: { tag: true, name: true } },
+      lentBy: { select: { name: true } },
+      clearance: { select: { decidedAt: true, validUntil: true, maxSupplyVoltageV: true, maxRunS: true, conditions: true, policy: { select: { version: true } } } },
     },
   });
 }

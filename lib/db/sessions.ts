@@ -30,7 +30,7 @@ export async function listSessions(filter: SessionListFilter = {}, pageRequest: 
   const where: Prisma.RunSessionWhereInput = {
     outcome: filter.outcome,
     ...(filter.coilTag ? { coil: { tag: filter.coilTag } } : {}),
-    ...(filter.q ? { notes: textContains(filter.q) } : {}),
+    ...(filter.q ? { OR: [{ notes: textContains(filter.q) }, { coil: { tag: textContains(filter.q) } }, { coil: { name: textContains(filter.q) } }] } : {}),
   };
   const [rows, total] = await Promise.all([
     prisma.runSession.findMany({

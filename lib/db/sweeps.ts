@@ -9,13 +9,18 @@ import { calibrateCoilFromSweeps } from "../analysis/sweep-calibration";
 import type { SweepRecordInput } from "../validation/sweep";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
+import { textContains } from "./text-search";
+import { formatQuantity } from "../units/format";
 
 export async function listSweeps(
-  filter: { coilTag?: string; sort?: "newest" | "oldest" | "frequency" } = {},
+  filter: { coilTag?: string; q?: string; sort?: "newest" | "oldest" | "frequency" } = {},
   pageRequest: Partial<PageRequest> = {},
 ) {
   const request = normalizePage(pageRequest);
-  const where: Prisma.SweepWhereInput = filter.coilTag ? { coil: { tag: filter.coilTag } } : {};
+  const where: Prisma.SweepWhereInput = {
+    ...(filter.coilTag ? { coil: { tag: filter.coilTag } } : {}),
+    ...(filter.q ? { OR: sweepSearch(filter.q) } : {}),
+  };
   const orderBy: Prisma.SweepOrderByWithRelationInput[] =
     filter.sort === "oldest" ? [{ takenAt: "asc" }] : filter.sort === "frequency" ? [{ firstSeriesResonanceHz: "asc" }] : [{ takenAt: "desc" }];
   const [rows, total] = await Promise.all([
@@ -29,6 +34,17 @@ export async function listSweeps(
     prisma.sweep.count({ where }),
   ]);
   return toPage(rows, total, request);
+}
+
+/** The sweeps list's search box: the coil's tag or name, the top load, the notes and the bench conditions. */
+function sweepSearch(q: string): Prisma.SweepWhereInput[] {
+  return [
+    { coil: { tag: textContains(q) } },
+    { coil: { name: textContains(q) } },
+    { topLoad: { name: textContains(q) } },
+    { notes: textContains(q) },
+    { environmentNotes: textContains(q) },
+  ];
 }
 
 /** A sweep with everything its page shows. Points come sorted by frequency. */
@@ -150,7 +166,7 @@ export async function recordSweep(actorId: string, input: SweepRecordInput, how:
         action: how === "import" ? "import" : "create",
         entity: "Sweep",
         entityId: sweep.id,
-        summary: `${how === "import" ? "Imported" : "Recorded"} a ${points.length}-point sweep of ${coil.tag}${firstSeries === null ? " (no series resonance found)" : `, first series resonance ${Math.round(firstSeries)} Hz`}`,
+        summary: `${how === "import" ? "Imported" : "Recorded"} a ${points.length}-point sweep of ${coil.tag}${firstSeries === null ? " (no series resonance found)" : `, first series resonance ${formatQuantity(firstSeries, "Hz")}`}`,
         detail: { ...settings, pointCount: points.length, resonances: resonances.length, calibrationNote },
       });
       return { id: sweep.id, firstSeriesResonanceHz: firstSeries, resonanceCount: resonances.length, calibrationNote };

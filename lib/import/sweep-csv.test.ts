@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { checkSweepReadings, detectSweepCsvLayout, readDecimal, readSweepCsv, SweepRowReader, type suggestMapping } from "./sweep-csv";
+import { checkSweepReadings, describeLayoutProblem, detectSweepCsvLayout, readDecimal, readSweepCsv, SweepRowReader, type suggestMapping } from "./sweep-csv";
 
 function readAll(text: string, mapping?: Partial<ReturnType<typeof suggestMapping>>) {
   const layout = detectSweepCsvLayout(text);
@@ -95,6 +95,68 @@ describe("readSweepCsv", () => {
     reader.accept([["f", "v"], ["1", "1"]]);
     reader.accept([[""], ["2", "1"], ["3", "oops"]]);
     expect(reader.finish()).toMatchObject({ ok: false, error: { row: 5, column: "v" } });
+  });
+});
+
+describe("comment and preamble lines, empty and header-only files", () => {
+  const scopeExport = [
+    "# Bench scope export",
+    "# Probe x10, source 20 Vpp",
+    "Instrument: bench scope",
+    "Date: 2026-12-01",
+    "",
+    "Freq (kHz);Vout (mV)",
+    "100;250",
+    "110;240",
+    "120;230",
+    "",
+  ].join("\n");
+
+  it("skips # comments and preamble lines above the header and reads the rows below it with their file row numbers", () => {
+    const layout = detectSweepCsvLayout(scopeExport);
+    expect(layout).toMatchObject({ delimiter: ";", hasHeader: true, headerRow: 6, firstDataRow: 7, columns: ["Freq (kHz)", "Vout (mV)"] });
+    expect(layout.skippedRows.map((l) => l.row)).toEqual([1, 2, 3, 4]);
+    expect(layout.suggested).toEqual({ frequencyColumn: 0, frequencyUnit: "kHz", amplitudeColumn: 1, amplitudeUnit: "mV" });
+    expect(readSweepCsv(scopeExport, layout, layout.suggested)).toEqual({
+      ok: true,
+      points: [
+        { row: 7, frequencyHz: 100e3, amplitudeV: 0.25 },
+        { row: 8, frequencyHz: 110e3, amplitudeV: 0.24 },
+        { row: 9, frequencyHz: 120e3, amplitudeV: 0.23 },
+      ],
+    });
+  });
+
+  it("lets the user pick another header row, or none, and reads from below it", () => {
+    const text = "Sweep of KM-01\nf,v\nHz,V\n100000,1.5\n110000,1.4\n120000,1.3\n";
+    const guessed = detectSweepCsvLayout(text);
+    // The line just above the readings is taken as the header; the user knows the names are a line higher.
+    expect(guessed.headerRow).toBe(3);
+    expect(guessed.headerChoices.map((l) => l.row)).toEqual([1, 2, 3, 4]);
+    const picked = detectSweepCsvLayout(text, { headerRow: 2 });
+    expect(picked).toMatchObject({ headerRow: 2, firstDataRow: 3, columns: ["f", "v"] });
+    // Row 3 ("Hz,V") is now below the header: refused by row and column, as any bad reading is.
+    expect(readSweepCsv(text, picked, picked.suggested)).toMatchObject({ ok: false, error: { row: 3, column: "f", message: "Row 3, column 'f': expected a number, got 'Hz'" } });
+    const none = detectSweepCsvLayout(text, { headerRow: null });
+    expect(none).toMatchObject({ hasHeader: false, headerRow: null, firstDataRow: 4, columns: ["Column 1", "Column 2"] });
+    expect(readSweepCsv(text, none, none.suggested)).toMatchObject({ ok: true });
+  });
+
+  it("says the file is empty, or that there are no readings after the header, with the row", () => {
+    for (const empty of ["", "\n\n", "\uFEFF"]) {
+      const layout = detectSweepCsvLayout(empty);
+      expect(describeLayoutProblem(layout)).toBe("The file is empty");
+      expect(readSweepCsv(empty, layout, layout.suggested)).toMatchObject({ ok: false, error: { message: expect.stringMatching(/^Row \d+: the file is empty$/) } });
+    }
+    const commentsOnly = detectSweepCsvLayout("# nothing measured yet\n# try again\n");
+    expect(describeLayoutProblem(commentsOnly)).toMatch(/^The file is empty: it holds only comment or preamble lines/);
+
+    const headerOnly = "# export\nFreq (kHz),Vout (mV)\n";
+    const layout = detectSweepCsvLayout(headerOnly);
+    expect(layout.headerRow).toBe(2);
+    expect(describeLayoutProblem(layout)).toBe("Row 2: no readings after the header");
+    expect(readSweepCsv(headerOnly, layout, layout.suggested)).toMatchObject({ ok: false, error: { row: 2, column: "", message: "Row 2: no readings after the header" } });
+    expect(describeLayoutProblem(detectSweepCsvLayout("f,v\n1,2\n2,3\n3,4\n"))).toBeNull();
   });
 });
 

@@ -32,11 +32,25 @@ export interface SweepCsvLayout {
   /** Numbers written with a decimal comma ("1,5"); only possible when the delimiter is not a comma. */
   decimalComma: boolean;
   hasHeader: boolean;
+  /** The header's row in the file (1-based, blank lines counted), or null without one. */
+  headerRow: number | null;
+  /** The first row that may hold a reading; comment and preamble lines above it are skipped. */
+  firstDataRow: number;
+  /** Comment ("#…") and preamble lines skipped above the header or the first reading, as found. */
+  skippedRows: SweepCsvLine[];
+  /** The lines a user may pick as the header instead: every non-blank line down to the first readings. */
+  headerChoices: SweepCsvLine[];
   /** Column names: the header's cells, or "Column 1", "Column 2"… */
   columns: string[];
   /** Up to 10 data rows as read (after the header). */
   sampleRows: string[][];
   suggested: SweepColumnMapping;
+}
+
+/** One line of the file with its row number (1-based, blank lines counted, as the errors count them). */
+export interface SweepCsvLine {
+  row: number;
+  text: string;
 }
 
 /** One reading in SI, with the file row it came from (1-based, header included). */
@@ -79,6 +93,20 @@ function isBlankRow(row: readonly string[]): boolean {
   return row.every((cell) => cell.trim() === "");
 }
 
+/** A comment line: its first cell starts with "#" (scope and logger exports put settings there). */
+function isCommentRow(row: readonly string[]): boolean {
+  return (row[0] ?? "").trim().startsWith("#");
+}
+
+/** Only numbers and delimiters: a line of readings, whichever the delimiter. */
+const READING_LINE = /^[\s\d.,;\t|eE+\-"]*\d[\s\d.,;\t|eE+\-"]*$/;
+
+/** Two or more cells, every non-empty one a number. */
+function isReadingRow(row: readonly string[], decimalComma: boolean): boolean {
+  const cells = row.map((c) => c.trim()).filter((c) => c !== "");
+  return cells.length >= 2 && cells.every((c) => readDecimal(c, decimalComma) !== null);
+}
+
 /**
  * The delimiter. A semicolon or tab present the same number of times on every sampled line is the
  * delimiter, whatever papaparse guesses: with decimal commas ("1,5;0,25") papaparse prefers the comma,
@@ -93,23 +121,72 @@ function detectDelimiter(lines: readonly string[]): string {
   return guess.meta.delimiter || ",";
 }
 
-/** Look at the start of a file (a few kB is enough) and say how it is laid out. */
-export function detectSweepCsvLayout(text: string): SweepCsvLayout {
-  const lines = stripByteOrderMark(text)
-    .split(/\r\n|\n|\r/)
-    .filter((line) => line.trim() !== "")
-    .slice(0, 30);
+/**
+ * Look at the start of a file (a few kB is enough) and say how it is laid out. Comment lines ("#…") and
+ * preamble lines (instrument, date, settings) above the readings are skipped: the header is the line just
+ * above the first line of readings when none of its cells is a number. `headerRow` overrides the guess:
+ * a row number picks that line as the header, null says there is none.
+ */
+export function detectSweepCsvLayout(text: string, options: { headerRow?: number | null } = {}): SweepCsvLayout {
+  const allLines = stripByteOrderMark(text).split(/\r\n|\n|\r/).slice(0, 200);
   // The last line of a sample may be cut short; leave it out of the guess when there are others.
-  const sample = lines.length > 2 ? lines.slice(0, -1) : lines;
-  const delimiter = detectDelimiter(sample);
-  const rows = Papa.parse<string[]>(sample.join("\n"), { delimiter }).data.filter((r) => !isBlankRow(r));
-  const decimalComma = delimiter !== "," && rows.some((r) => r.some((cell) => DECIMAL_COMMA_NUMBER.test(cell.trim())));
-  const first = rows[0] ?? [];
-  const hasHeader = first.some((cell) => readDecimal(cell, decimalComma) === null);
-  const width = Math.max(0, ...rows.map((r) => r.length));
-  const columns = Array.from({ length: width }, (_, i) => (hasHeader ? first[i]?.trim() || `Column ${i + 1}` : `Column ${i + 1}`));
-  const sampleRows = rows.slice(hasHeader ? 1 : 0, (hasHeader ? 1 : 0) + 10);
-  return { delimiter, decimalComma, hasHeader, columns, sampleRows, suggested: suggestMapping(columns, hasHeader) };
+  const sampled = allLines.length > 2 ? allLines.slice(0, -1) : allLines;
+  const lines: SweepCsvLine[] = sampled.map((line, i) => ({ row: i + 1, text: line })).filter((l) => l.text.trim() !== "");
+  const content = lines.filter((l) => !l.text.trim().startsWith("#"));
+  // The delimiter is judged on the readings (and the line above them), not on a preamble written as free text.
+  const firstReading = content.findIndex((l) => READING_LINE.test(l.text));
+  const delimiterSample = firstReading === -1 ? content : content.slice(Math.max(0, firstReading - 1), firstReading + 30);
+  const delimiter = detectDelimiter(delimiterSample.map((l) => l.text));
+  const parsed = content.map((l) => ({ ...l, cells: Papa.parse<string[]>(l.text, { delimiter }).data[0] ?? [l.text] }));
+  const decimalComma = delimiter !== "," && parsed.some((r) => r.cells.some((cell) => DECIMAL_COMMA_NUMBER.test(cell.trim())));
+
+  const dataIndex = parsed.findIndex((r) => isReadingRow(r.cells, decimalComma));
+  let headerIndex: number;
+  let firstDataIndex: number;
+  if (options.headerRow !== undefined) {
+    headerIndex = options.headerRow === null ? -1 : parsed.findIndex((r) => r.row === options.headerRow);
+    firstDataIndex = headerIndex !== -1 ? headerIndex + 1 : dataIndex === -1 ? 0 : dataIndex;
+  } else if (dataIndex === -1) {
+    // No line of readings at all (a header alone, or bad numbers throughout): the first line is the header
+    // when any cell of it is not a number, and the rows after it are refused by row and column when read.
+    headerIndex = parsed[0] && parsed[0].cells.some((cell) => readDecimal(cell, decimalComma) === null) ? 0 : -1;
+    firstDataIndex = headerIndex + 1;
+  } else {
+    const above = parsed[dataIndex - 1];
+    headerIndex = above && above.cells.every((cell) => readDecimal(cell, decimalComma) === null) ? dataIndex - 1 : -1;
+    firstDataIndex = dataIndex;
+  }
+  const header = headerIndex === -1 ? null : parsed[headerIndex]!;
+  const dataRows = parsed.slice(firstDataIndex);
+  const width = Math.max(0, ...(header ? [header.cells.length] : []), ...dataRows.slice(0, 30).map((r) => r.cells.length));
+  const columns = Array.from({ length: width }, (_, i) => (header ? header.cells[i]?.trim() || `Column ${i + 1}` : `Column ${i + 1}`));
+  const firstDataRow = dataRows[0]?.row ?? (header ? header.row + 1 : (lines.at(-1)?.row ?? 0) + 1);
+  const skippedRows = lines.filter((l) => l.row < (header?.row ?? firstDataRow)).map(({ row, text }) => ({ row, text }));
+  const choicesEnd = Math.max(dataIndex, headerIndex, 0) + 1;
+  const headerChoices = parsed.slice(0, Math.min(choicesEnd, 20)).map(({ row, text }) => ({ row, text }));
+  return {
+    delimiter,
+    decimalComma,
+    hasHeader: header !== null,
+    headerRow: header?.row ?? null,
+    firstDataRow,
+    skippedRows,
+    headerChoices,
+    columns,
+    sampleRows: dataRows.slice(0, 10).map((r) => r.cells),
+    suggested: suggestMapping(columns, header !== null),
+  };
+}
+
+/**
+ * What stops a file before any row is read, in the user's words: nothing in it, only comments, or a header
+ * with no readings under it. Null when there is something to read.
+ */
+export function describeLayoutProblem(layout: SweepCsvLayout): string | null {
+  if (layout.sampleRows.length > 0) return null;
+  if (layout.headerRow !== null) return `Row ${layout.headerRow}: no readings after the header`;
+  if (layout.skippedRows.length > 0) return "The file is empty: it holds only comment or preamble lines";
+  return "The file is empty";
 }
 
 /** Guess from the header's words; without a header, frequency first, amplitude second, in Hz and V. */
@@ -141,7 +218,7 @@ export class SweepRowReader {
   private rowNumber = 0;
 
   constructor(
-    private readonly layout: Pick<SweepCsvLayout, "hasHeader" | "decimalComma" | "columns">,
+    private readonly layout: Pick<SweepCsvLayout, "hasHeader" | "decimalComma" | "columns"> & Partial<Pick<SweepCsvLayout, "headerRow" | "firstDataRow">>,
     private readonly mapping: SweepColumnMapping,
   ) {}
 
@@ -155,8 +232,12 @@ export class SweepRowReader {
     for (const raw of rows) {
       this.rowNumber += 1;
       const row = this.rowNumber === 1 ? raw.map((cell, i) => (i === 0 ? stripByteOrderMark(cell) : cell)) : raw;
-      if (this.rowNumber === 1 && this.layout.hasHeader) continue;
-      if (isBlankRow(row)) continue;
+      if (this.layout.firstDataRow === undefined) {
+        if (this.rowNumber === 1 && this.layout.hasHeader) continue;
+      } else if (this.rowNumber < this.layout.firstDataRow || this.rowNumber === this.layout.headerRow) {
+        continue; // the header, and the comment or preamble lines above the readings
+      }
+      if (isBlankRow(row) || isCommentRow(row)) continue;
       if (row.length < needed) {
         this.error = describeCsvError(this.rowNumber, "", `at least ${needed} columns`, row.join(" | "));
         return false;
@@ -181,6 +262,12 @@ export class SweepRowReader {
   /** The verdict once every row has been fed. */
   finish(): SweepCsvResult {
     if (this.error) return { ok: false, error: this.error };
+    if (this.points.length === 0) {
+      // Only blank, comment or preamble lines below the header (or no header and nothing at all).
+      const headerRow = this.layout.headerRow ?? (this.layout.hasHeader ? 1 : null);
+      const message = headerRow !== null ? `Row ${headerRow}: no readings after the header` : `Row ${Math.max(1, this.rowNumber)}: the file is empty`;
+      return { ok: false, error: { row: headerRow ?? this.rowNumber, column: "", expected: "at least 3 readings in the file", got: "nothing", message } };
+    }
     if (this.points.length < 3) {
       return { ok: false, error: describeCsvError(this.rowNumber, "", "at least 3 readings in the file", `${this.points.length}`) };
     }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { formatDate, formatDuration, formatPercent, formatQuantity } from "./format";
+import { formatCount, formatDate, formatDuration, formatPercent, formatQuantitiesInText, formatQuantity } from "./format";
 
 describe("formatQuantity", () => {
   it("picks the SI prefix (SI Brochure, 9th ed., table 7)", () => {
@@ -39,5 +39,26 @@ describe("formatPercent", () => {
     expect(formatPercent(-0.00001, 1)).toBe("0.0 %");
     expect(formatPercent(-0.0006, 1)).toBe("-0.1 %");
     expect(formatPercent(null)).toBe("—");
+  });
+});
+
+describe("formatQuantitiesInText", () => {
+  it("gives bare SI figures in free text their prefixes, and leaves everything else alone", () => {
+    expect(formatQuantitiesInText("Recorded a 120-point sweep of KM-01, first series resonance 330962 Hz")).toBe(
+      "Recorded a 120-point sweep of KM-01, first series resonance 331 kHz",
+    );
+    expect(formatQuantitiesInText("Logged a 10 min session on KM-02 at 160 V with 6 heat-sink samples")).toBe("Logged a 10 min session on KM-02 at 160 V with 6 heat-sink samples");
+    expect(formatQuantitiesInText("primary 0.0000022 F, secondary 0.0215 H")).toBe("primary 2.2 µF, secondary 21.5 mH");
+    // Not a unit: a word that starts with one, a tag's digits, a version.
+    expect(formatQuantitiesInText("KM-02 2 Alpha v1.2 Hzx 3 Volts")).toBe("KM-02 2 Alpha v1.2 Hzx 3 Volts");
+  });
+});
+
+describe("formatCount", () => {
+  it("agrees the noun with the count", () => {
+    expect(formatCount(1, "version")).toBe("1 version");
+    expect(formatCount(0, "version")).toBe("0 versions");
+    expect(formatCount(2, "entry", "entries")).toBe("2 entries");
+    expect(formatCount(1, "entry", "entries")).toBe("1 entry");
   });
 });

@@ -15,6 +15,20 @@ export function formatQuantity(value: number | null | undefined, unit: string, s
   return `${Number((value / scale).toPrecision(significant))} ${prefix}${unit}`;
 }
 
+/**
+ * Rewrites bare SI figures inside free text ("first series resonance 330962 Hz") with their prefixes
+ * ("331 kHz"), for text written before it was formatted, such as stored audit summaries. Only a number
+ * followed by a space and one of these units as a whole word is touched.
+ */
+export function formatQuantitiesInText(text: string): string {
+  return text.replace(/(?<![\w.])(-?\d+(?:\.\d+)?(?:e[-+]?\d+)?) (Hz|H|F|Ω|V|A|W)(?![\wΩ])/g, (_, figure: string, unit: string) => formatQuantity(Number(figure), unit));
+}
+
+/** "1 version", "3 versions", "0 entries": a count with its noun agreeing (plural given when not noun + "s"). */
+export function formatCount(count: number, singular: string, plural = `${singular}s`): string {
+  return `${count} ${count === 1 ? singular : plural}`;
+}
+
 /** A plain number with fixed decimals, or a dash. */
 export function formatNumber(value: number | null | undefined, decimals = 1, unit = ""): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return "—";

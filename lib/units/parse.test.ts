@@ -24,6 +24,15 @@ describe("parseQuantity", () => {
     expect(value("10 uF", "capacitance")).toBeCloseTo(1e-5, 18);
   });
 
+  it("reads an amplitude written with how it was read (Vpp, Vp-p, Vpk) as volts", () => {
+    expect(value("2 Vpp", "voltage")).toBe(2);
+    expect(value("2Vpp", "voltage")).toBe(2);
+    expect(value("500 mVpp", "voltage")).toBeCloseTo(0.5, 12);
+    expect(value("10 Vp-p", "voltage")).toBe(10);
+    expect(value("1.5 Vpk", "voltage")).toBe(1.5);
+    expect(parseQuantity("2 Vpp", "current").ok).toBe(false);
+  });
+
   it("reads schematic notation, where the prefix letter is the decimal point (IEC 60062 resistor and capacitor code)", () => {
     expect(value("4k7", "resistance")).toBe(4700);
     expect(value("2n2", "capacitance")).toBeCloseTo(2.2e-9, 21);

@@ -54,7 +54,9 @@ const SPECS: Record<QuantityKind, KindSpec> = {
   capacitance: { noun: "a capacitance", unit: "F", units: prefixed(["F"]), prefixAlone: true, example: "2.2 nF or 2n2" },
   inductance: { noun: "an inductance", unit: "H", units: prefixed(["H"]), prefixAlone: true, example: "31.5 mH" },
   resistance: { noun: "a resistance", unit: "Ω", units: prefixed(["Ω", "ohm", "ohms", "Ohm", "R"]), prefixAlone: true, example: "47 kΩ, 47k or 4k7" },
-  voltage: { noun: "a voltage", unit: "V", units: prefixed(["V"]), prefixAlone: true, example: "24 V" },
+  // "Vpp", "Vp-p" and "Vpk" name how an amplitude was read, not another unit: the sweep records that convention
+  // separately, so the figure is taken as volts.
+  voltage: { noun: "a voltage", unit: "V", units: prefixed(["V", "Vpp", "Vp-p", "Vpk", "Vp"]), prefixAlone: true, example: "24 V" },
   current: { noun: "a current", unit: "A", units: prefixed(["A"]), prefixAlone: true, example: "2.5 A or 800 mA" },
   power: { noun: "a power", unit: "W", units: prefixed(["W"]), prefixAlone: true, example: "100 W" },
   length: {

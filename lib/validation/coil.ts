@@ -9,11 +9,14 @@ import { z } from "zod";
 import { closeWoundTurns, DEFAULT_INSULATION_BUILD_FACTOR } from "../calc/secondary-geometry";
 import { optionalQuantityField, quantityField } from "./quantity";
 
+/** The one example tag every hint, placeholder and message uses (a tag the demo club has not taken). */
+export const COIL_TAG_EXAMPLE = "KM-08";
+
 export const coilTagSchema = z
-  .string({ error: "Tag: enter a tag like CY-07." })
+  .string({ error: `Tag: enter a tag like ${COIL_TAG_EXAMPLE}.` })
   .trim()
   .toUpperCase()
-  .regex(/^[A-Z0-9][A-Z0-9-]{1,15}$/, "Tag: 2–16 letters, digits or dashes, like CY-07.");
+  .regex(/^[A-Z0-9][A-Z0-9-]{1,15}$/, `Tag: 2–16 letters, digits or dashes, like ${COIL_TAG_EXAMPLE}.`);
 
 export const coilStatusSchema = z.enum(["planned", "active", "repair", "retired"], { error: "Status: choose planned, active, repair or retired." });
 export const topologySchema = z.enum(["single_switch", "push_pull", "half_bridge", "full_bridge"], {
@@ -49,7 +52,18 @@ export function describeTurnsCount(windingLengthM: number, wireDiameterM: number
   return `${turns} turns, counted as winding length ÷ (wire diameter × ${DEFAULT_INSULATION_BUILD_FACTOR} for the enamel), rounded down`;
 }
 
-const turnsField = z.union([z.literal("count"), quantityField({ label: "Turns", kind: "count", min: 10, max: 20_000 })]);
+const turnsCount = quantityField({ label: "Turns", kind: "count", min: 10, max: 20_000 });
+/**
+ * "count" or a number of turns. Not a z.union: a union that fails every branch reports only "Invalid input",
+ * so an absurd count ("9999999") would never hear which range a secondary's turns are read in.
+ */
+const turnsField = z.unknown().transform((raw, ctx): number | "count" => {
+  if (raw === "count") return "count";
+  const parsed = turnsCount.safeParse(raw);
+  if (parsed.success) return parsed.data;
+  for (const issue of parsed.error.issues) ctx.addIssue({ code: "custom", message: issue.message });
+  return z.NEVER;
+});
 
 const notesField = z.preprocess((v) => (v === null || v === undefined ? "" : v), z.string().max(5_000, "Notes: at most 5 000 characters."));
 

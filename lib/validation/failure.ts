@@ -43,6 +43,8 @@ export type ReplacementPartInput = z.output<typeof replacementPartSchema>;
 
 export const postMortemSchema = z.object({
   failureId: z.string().min(1),
+  /** The mode the post-mortem found; it replaces the one recorded with the failure (often "unknown"). Absent keeps it. */
+  mode: failureModeSchema.optional(),
   rootCause: z.string().trim().min(10, "Root cause: explain it in a sentence or more (at least 10 characters).").max(5_000, "Root cause: at most 5 000 characters."),
   correctiveAction: z
     .string()

@@ -24,6 +24,7 @@ export const sessionListQuerySchema = z.object({
 });
 
 export const sweepListQuerySchema = z.object({
+  q: optionalText,
   coil: optionalText,
   sort: z.preprocess(first, z.enum(["newest", "oldest", "frequency"]).catch("newest").default("newest")),
   page,
@@ -41,6 +42,18 @@ export const failureListQuerySchema = z.object({
 
 export const loanListQuerySchema = z.object({
   state: z.preprocess(first, z.enum(["out", "overdue", "returned", "all"]).catch("all").default("all")),
+  page,
+});
+
+const optionalDay = z.preprocess(first, z.string().regex(/^\d{4}-\d{2}-\d{2}$/).optional().catch(undefined));
+
+/** The admin audit log's filters: who (a user id), what (the kind of record and words of the summary), when (days, inclusive). */
+export const auditQuerySchema = z.object({
+  who: z.preprocess(first, z.string().trim().max(100).optional().catch(undefined)),
+  entity: z.preprocess(first, z.string().trim().max(40).optional().catch(undefined)),
+  q: optionalText,
+  from: optionalDay,
+  to: optionalDay,
   page,
 });
 

@@ -2,16 +2,29 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
 import { listUsers } from "@/lib/db/users";
-import { listAuditEvents } from "@/lib/db/audit";
-import { formatDateTime } from "@/lib/units/format";
+import { listAuditEntities, listAuditEvents } from "@/lib/db/audit";
+import { formatDateTime, formatQuantitiesInText } from "@/lib/units/format";
+import { auditQuerySchema, type SearchParams } from "@/lib/validation/list-query";
+import { FilterForm } from "@/app/ui/list-filters";
+import { COIL_TAG_EXAMPLE } from "@/lib/validation/coil";
 import { AddUserForm } from "./add-user-form";
 import { AccessForm } from "./access-form";
 
 export const metadata: Metadata = { title: "Admin" };
 
-export default async function AdminPage() {
+/** A day typed in the filter, as the instant it starts or ends in the server's time zone (the one dates are shown in). */
+const dayStart = (day: string | undefined) => (day ? new Date(`${day}T00:00:00`) : undefined);
+const dayEnd = (day: string | undefined) => (day ? new Date(`${day}T23:59:59.999`) : undefined);
+
+export default async function AdminPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
   await pageUser("admin");
-  const [users, events] = await Promise.all([listUsers(), listAuditEvents({ take: 30 })]);
+  const query = auditQuerySchema.parse(await searchParams);
+  const filtered = Boolean(query.who || query.entity || query.q || query.from || query.to);
+  const [users, entities, events] = await Promise.all([
+    listUsers(),
+    listAuditEntities(),
+    listAuditEvents({ actorId: query.who, entity: query.entity, q: query.q, from: dayStart(query.from), to: dayEnd(query.to), take: filtered ? 200 : 30 }),
+  ]);
   return (
     <>
       <h1>Admin</h1>
@@ -48,8 +61,49 @@ export default async function AdminPage() {
       <AddUserForm />
       <section aria-labelledby="audit-heading">
         <h2 id="audit-heading">Recent changes</h2>
+        <FilterForm label="Filter the audit log">
+          <div className="field">
+            <label htmlFor="audit-who">Who</label>
+            <select id="audit-who" name="who" defaultValue={query.who ?? ""}>
+              <option value="">Anyone</option>
+              <option value="system">System (no user)</option>
+              {users.map((u) => (
+                <option key={u.id} value={u.id}>
+                  {u.name}
+                </option>
+              ))}
+            </select>
+          </div>
+          <div className="field">
+            <label htmlFor="audit-entity">Record</label>
+            <select id="audit-entity" name="entity" defaultValue={query.entity ?? ""}>
+              <option value="">Any</option>
+              {entities.map((e) => (
+                <option key={e} value={e}>
+                  {e}
+                </option>
+              ))}
+            </select>
+          </div>
+          <div className="field">
+            <label htmlFor="audit-q">What (words)</label>
+            <input id="audit-q" name="q" type="search" defaultValue={query.q ?? ""} placeholder={`e.g. ${COIL_TAG_EXAMPLE} or replaced`} />
+          </div>
+          <div className="field">
+            <label htmlFor="audit-from">From</label>
+            <input id="audit-from" name="from" type="date" defaultValue={query.from ?? ""} />
+          </div>
+          <div className="field">
+            <label htmlFor="audit-to">To</label>
+            <input id="audit-to" name="to" type="date" defaultValue={query.to ?? ""} />
+          </div>
+        </FilterForm>
         <div className="table-wrap">
           <table>
+            <caption>
+              {events.length} change{events.length === 1 ? "" : "s"}
+              {filtered ? " matching the filters" : ", newest first"}
+            </caption>
             <thead>
               <tr>
                 <th scope="col">When</th>
@@ -60,13 +114,18 @@ export default async function AdminPage() {
             <tbody>
               {events.map((e) => (
                 <tr key={e.id}>
-                  <td>{formatDateTime(e.at)}</td>
+                  <td className="nowrap">{formatDateTime(e.at)}</td>
                   <td>{e.actor?.name ?? "system"}</td>
                   <td>
-                    {e.entity}: {e.summary}
+                    {e.entity}: {formatQuantitiesInText(e.summary)}
                   </td>
                 </tr>
               ))}
+              {events.length === 0 && (
+                <tr>
+                  <td colSpan={3}>No change matches these filters.</td>
+                </tr>
+              )}
             </tbody>
           </table>
         </div>

@@ -25,7 +25,13 @@ export async function signClearanceAction(_previous: ActionResult<null> | null, 
       const clearance = await signClearance(user.id, parsed.data);
       return { ok: true, data: clearance.id };
     } catch (error) {
-      if (error instanceof ClearanceRefusedError) return refused(error.message, { verdict: [error.message] }, echoForm(form));
+      if (error instanceof ClearanceRefusedError) {
+        // Each unticked box is marked at the box; the failed checks (if any) once, at the decision.
+        const fieldErrors: Record<string, string[]> = Object.fromEntries(error.uncheckedItemIds.map((id) => [`check:${id}`, ["Not ticked: confirm this item to clear the coil."]]));
+        const checks = error.failedChecks;
+        if (checks.length > 0) fieldErrors.verdict = [`Failing: ${checks.map((r) => r.label).join("; ")}.`];
+        return refused(error.message, fieldErrors, echoForm(form));
+      }
       throw error;
     }
   });

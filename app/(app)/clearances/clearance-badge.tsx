@@ -10,13 +10,24 @@ const TONE: Record<ClearanceState["kind"], string> = {
   "lapsed-part": "lapsed",
 };
 
-/** A coil's clearance state in a few words, with the full reason beside it when asked for. */
+/** The badge's word when the reason sits beside it, so the two never say the same thing twice. */
+const WORD: Record<ClearanceState["kind"], string> = {
+  valid: "Cleared",
+  none: "Not cleared",
+  refused: "Refused",
+  expired: "Expired",
+  "lapsed-failure": "Lapsed",
+  "lapsed-part": "Lapsed",
+};
+
+/** A coil's clearance state in a few words, with one sentence of reason beside it when asked for. */
 export function ClearanceBadge({ state, withReason = false }: { state: ClearanceState; withReason?: boolean }) {
-  const words = state.kind === "valid" && state.validUntil ? `Cleared until ${formatDate(state.validUntil)}` : state.label;
+  const showReason = withReason && state.kind !== "valid" && state.kind !== "none";
+  const words = state.kind === "valid" && state.validUntil ? `Cleared until ${formatDate(state.validUntil)}` : showReason ? WORD[state.kind] : state.label;
   return (
     <>
       <span className={`badge badge-${TONE[state.kind]}`}>{words}</span>
-      {withReason && state.kind !== "valid" && state.kind !== "none" && <span className="reason"> {state.explanation}</span>}
+      {showReason && <span className="reason"> {state.summary}</span>}
     </>
   );
 }

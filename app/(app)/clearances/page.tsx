@@ -1,21 +1,22 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
-import { listClearances } from "@/lib/db/clearances";
+import { listClearancesWithState } from "@/lib/db/clearances";
 import { formatDate } from "@/lib/units/format";
+import { ClearanceBadge } from "./clearance-badge";
 
 export const metadata: Metadata = { title: "Clearances" };
 
 export default async function ClearancesPage() {
   await pageUser();
-  const rows = await listClearances();
+  const rows = await listClearancesWithState();
   return (
     <>
       <h1>Clearance decisions</h1>
-      <p className="lede">Every signed decision, newest first. Decisions are never edited; a lapse is recorded beside them.</p>
+      <p className="lede">Every signed decision, newest first. Decisions are never edited; where each stands now is worked out from the coil&apos;s failures, part changes and the date, as on the dashboard.</p>
       <div className="table-wrap">
         <table>
-          <caption>{rows.length} decisions</caption>
+          <caption>{rows.length} decision{rows.length === 1 ? "" : "s"}</caption>
           <thead>
             <tr>
               <th scope="col">Coil</th>
@@ -24,7 +25,7 @@ export default async function ClearancesPage() {
               <th scope="col">By</th>
               <th scope="col">Valid until</th>
               <th scope="col">Policy</th>
-              <th scope="col">Lapse</th>
+              <th scope="col">Stands now</th>
             </tr>
           </thead>
           <tbody>
@@ -40,7 +41,10 @@ export default async function ClearancesPage() {
                 <td>{c.decidedBy?.name ?? "—"}</td>
                 <td>{c.verdict === "cleared" ? formatDate(c.validUntil) : "—"}</td>
                 <td>v{c.policy.version}</td>
-                <td>{c.lapseReason ?? "—"}</td>
+                <td>
+                  {c.superseded ? <span className="muted">Superseded by a later decision. </span> : null}
+                  <ClearanceBadge state={c.state} withReason />
+                </td>
               </tr>
             ))}
             {rows.length === 0 && (

@@ -8,6 +8,7 @@ import { importLogbook, ImportConflictError, type ImportSummary } from "@/lib/db
 import { asksToCountTurns, coilSchema, coilUpdateSchema } from "@/lib/validation/coil";
 import { describeLogbookIssues, importOptionsSchema, logbookDocumentSchema } from "@/lib/validation/export";
 import { echoForm, invalid, refused, type ActionResult } from "@/lib/validation/action-result";
+import { formatCount } from "@/lib/units/format";
 
 function formObject(form: FormData): Record<string, FormDataEntryValue> {
   return Object.fromEntries([...form.entries()].filter(([key]) => !key.startsWith("$ACTION")));
@@ -72,8 +73,8 @@ export async function importLogbookAction(_previous: ActionResult<ImportSummary>
     try {
       const summary = await importLogbook(user.id, parsed.data, { asTag: options.data.asTag });
       revalidatePath("/coils");
-      const people = summary.unknownPeople.length ? ` ${summary.unknownPeople.length} people in the file are not on this install; their names were left blank.` : "";
-      return { ok: true, data: summary, message: `Imported ${summary.coils.map((c) => `${c.tag} (${c.records} records)`).join(", ")}.${people}` };
+      const people = summary.unknownPeople.length ? ` ${formatCount(summary.unknownPeople.length, "person", "people")} in the file ${summary.unknownPeople.length === 1 ? "is" : "are"} not on this install; their names were left blank.` : "";
+      return { ok: true, data: summary, message: `Imported ${summary.coils.map((c) => `${c.tag} (${formatCount(c.records, "record")})`).join(", ")}.${people}` };
     } catch (error) {
       if (error instanceof ImportConflictError) return refused(`Nothing was imported: ${error.message}`, { asTag: [error.message] }, values);
       throw error;

@@ -4,7 +4,7 @@ import { useActionState, useState } from "react";
 import { createCoilAction, updateCoilAction } from "./actions";
 import { QuantityInput, describeTyped } from "./quantity-input";
 import { FieldError, FormStatus } from "@/app/ui/form-status";
-import { asksToCountTurns, COUNT_TURNS_PHRASE, describeTurnsCount } from "@/lib/validation/coil";
+import { asksToCountTurns, COIL_TAG_EXAMPLE, COUNT_TURNS_PHRASE, describeTurnsCount } from "@/lib/validation/coil";
 import { parseQuantity } from "@/lib/units/parse";
 
 /** Text shown in each field when editing (already formatted so the parser reads it back). */
@@ -37,7 +37,7 @@ export function CoilForm({ mode, coilId, version, values = {} }: { mode: "new" |
             <label htmlFor="coil-tag">Tag</label>
             <input id="coil-tag" name="tag" defaultValue={typed("tag")} required aria-invalid={invalid("tag")} aria-describedby="coil-tag-hint coil-tag-error" />
             <span id="coil-tag-hint" className="hint">
-              The code on the coil&apos;s label, like KM-08. It cannot change later.
+              The code on the coil&apos;s label, like {COIL_TAG_EXAMPLE}. It cannot change later.
             </span>
             <FieldError id="coil-tag-error" state={state} field="tag" />
           </div>

@@ -48,7 +48,7 @@ export async function completePostMortemAction(_previous: ActionResult<null> | n
             ...Object.fromEntries(REPLACEMENT_RATING_FIELDS.map((name) => [name, field(name)])),
           }
         : undefined;
-    const parsed = postMortemSchema.safeParse({ failureId: values.failureId, rootCause: values.rootCause, correctiveAction: values.correctiveAction, replacement });
+    const parsed = postMortemSchema.safeParse({ failureId: values.failureId, mode: values.mode || undefined, rootCause: values.rootCause, correctiveAction: values.correctiveAction, replacement });
     if (!parsed.success) return invalid(parsed.error, "The post-mortem was not completed: some fields need attention.", values);
     try {
       const done = await completePostMortem(user.id, parsed.data);

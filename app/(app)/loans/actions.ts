@@ -33,7 +33,8 @@ export async function lendCoilAction(_previous: ActionResult<null> | null, form:
   if (!result.ok) return result;
   revalidatePath("/");
   revalidatePath("/loans");
-  redirect("/loans?state=out");
+  // The confirmation: the handover sheet to print and sign as the coil leaves.
+  redirect(`/loans/${result.data}/sheet?lent=1`);
 }
 
 /** Takes a coil back, with its condition and the sessions run while away. */

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
-import { listLoans } from "@/lib/db/loans";
+import { listLoans, listLoansNeedingRecall } from "@/lib/db/loans";
 import { loanListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDate } from "@/lib/units/format";
 import { Pagination } from "@/app/ui/pagination";
@@ -15,10 +15,26 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
   const steward = hasRole(user.role, "steward");
   const query = loanListQuerySchema.parse(await searchParams);
   const now = new Date();
-  const result = await listLoans({ state: query.state }, { page: query.page }, now);
+  const [result, recalls] = await Promise.all([listLoans({ state: query.state }, { page: query.page }, now), listLoansNeedingRecall(now)]);
+  const recallByLoan = new Map(recalls.map((r) => [r.loanId, r]));
   return (
     <>
       <h1>Loans</h1>
+      {recalls.length > 0 && (
+        <section className="notice danger" role="alert" aria-labelledby="recall-heading">
+          <h2 id="recall-heading">
+            Recall {recalls.length === 1 ? "this coil" : `these ${recalls.length} coils`}: the clearance no longer stands
+          </h2>
+          <ul>
+            {recalls.map((r) => (
+              <li key={r.loanId}>
+                <strong className="nowrap">{r.coilTag}</strong>, out with {r.borrower} for {r.event}. {r.instruction}{" "}
+                <Link href={`/coils/${encodeURIComponent(r.coilTag)}`}>Coil record</Link>
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
       <FilterForm label="Filter loans">
         <div className="field">
           <label htmlFor="state">Show</label>
@@ -52,21 +68,30 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
               const overdue = !loan.returnedAt && loan.expectedBackAt < now;
               return (
                 <tr key={loan.id} className={overdue ? "row-overdue" : undefined}>
-                  <td>
+                  <td className="nowrap">
                     <Link href={`/coils/${encodeURIComponent(loan.coil.tag)}`}>{loan.coil.tag}</Link>
                   </td>
                   <td>{loan.borrower}</td>
                   <td>{loan.event}</td>
-                  <td>{formatDate(loan.outAt)}</td>
-                  <td>{formatDate(loan.expectedBackAt)}</td>
-                  <td>{formatDate(loan.returnedAt)}</td>
+                  <td className="nowrap">{formatDate(loan.outAt)}</td>
+                  <td className="nowrap">{formatDate(loan.expectedBackAt)}</td>
+                  <td className="nowrap">{formatDate(loan.returnedAt)}</td>
                   <td>
                     <span className={`badge badge-${loan.returnedAt ? "closed" : overdue ? "overdue" : "out"}`}>
                       {loan.returnedAt ? "Returned" : overdue ? "Overdue" : "Out"}
                     </span>
+                    {recallByLoan.has(loan.id) && (
+                      <>
+                        {" "}
+                        <span className="badge badge-hold">Recall</span>
+                      </>
+                    )}
                   </td>
                   <td>
-                    <Link href={`/clearances/${loan.clearanceId}`}>Clearance</Link>
+                    <Link href={`/clearances/${loan.clearanceId}`}>Clearance</Link>{" "}
+                    <Link href={`/loans/${loan.id}/sheet`} aria-label={`Handover sheet for ${loan.coil.tag}`}>
+                      Handover sheet
+                    </Link>
                     {steward && !loan.returnedAt && (
                       <>
                         {" "}

@@ -40,8 +40,8 @@ export default async function SessionsPage({ searchParams }: { searchParams: Pro
           </select>
         </div>
         <div className="field">
-          <label htmlFor="q">Notes contain</label>
-          <input id="q" name="q" defaultValue={query.q ?? ""} />
+          <label htmlFor="q">Search</label>
+          <input id="q" name="q" type="search" defaultValue={query.q ?? ""} placeholder="Coil or notes" />
         </div>
         <div className="field">
           <label htmlFor="sort">Sort by</label>

@@ -13,7 +13,7 @@ export const metadata: Metadata = { title: "Sweeps" };
 export default async function SweepsPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
   await pageUser();
   const query = sweepListQuerySchema.parse(await searchParams);
-  const [result, coils] = await Promise.all([listSweeps({ coilTag: query.coil, sort: query.sort }, { page: query.page }), listCoilChoices()]);
+  const [result, coils] = await Promise.all([listSweeps({ coilTag: query.coil, q: query.q, sort: query.sort }, { page: query.page }), listCoilChoices()]);
   return (
     <>
       <div className="page-head">
@@ -28,6 +28,10 @@ export default async function SweepsPage({ searchParams }: { searchParams: Promi
         </p>
       </div>
       <FilterForm label="Filter sweeps">
+        <div className="field">
+          <label htmlFor="q">Search</label>
+          <input id="q" name="q" type="search" defaultValue={query.q ?? ""} placeholder="Coil, top load or notes" />
+        </div>
         <CoilFilter coils={coils} value={query.coil} />
         <div className="field">
           <label htmlFor="sort">Sort by</label>
@@ -76,7 +80,7 @@ export default async function SweepsPage({ searchParams }: { searchParams: Promi
           </tbody>
         </table>
       </div>
-      <Pagination basePath="/sweeps" params={{ coil: query.coil, sort: query.sort }} page={result.page} pageCount={result.pageCount} total={result.total} />
+      <Pagination basePath="/sweeps" params={{ q: query.q, coil: query.coil, sort: query.sort }} page={result.page} pageCount={result.pageCount} total={result.total} />
     </>
   );
 }

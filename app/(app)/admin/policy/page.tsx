@@ -36,7 +36,7 @@ export default async function PolicyPage() {
       <h2>Version history</h2>
       <div className="table-wrap">
         <table>
-          <caption>{versions.length} versions, newest first</caption>
+          <caption>{versions.length} version{versions.length === 1 ? "" : "s"}, newest first</caption>
           <thead>
             <tr>
               <th scope="col">Version</th>

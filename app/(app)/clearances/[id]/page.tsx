@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
 import { getClearance, getClearanceStateById, recordClearanceLapse } from "@/lib/db/clearances";
-import { formatDateTime, formatDuration, formatNumber } from "@/lib/units/format";
+import { formatCount, formatDateTime, formatDuration, formatNumber } from "@/lib/units/format";
 import { ClearanceBadge } from "../clearance-badge";
 import { RuleResultsTable } from "../rule-results-table";
 
@@ -62,7 +62,7 @@ export default async function ClearancePage({ params }: { params: Promise<{ id: 
         )}
       </p>
       <h2>Rule results as evaluated at signing</h2>
-      <RuleResultsTable rules={clearance.rules} caption={`${clearance.rules.filter((r) => r.pass).length} of ${clearance.rules.length} rules passed`} />
+      <RuleResultsTable rules={clearance.rules} caption={`${clearance.rules.filter((r) => r.pass).length} of ${formatCount(clearance.rules.length, "rule")} passed`} />
       <h2>Checklist answers</h2>
       <ul>
         {clearance.checklist.map((item) => (

@@ -17,13 +17,24 @@ export function ClearanceForm({ coilId, checklist, defaults, rulesPass }: { coil
   const errorOf = (field: string) => (state && !state.ok && state.fieldErrors[field] ? true : undefined);
   return (
     <form action={action} className="stack wide" aria-label="Sign clearance" key={JSON.stringify(values ?? {})}>
+      {/* The one summary sits at the top; the details are at the boxes and fields they concern. */}
+      <FormStatus id="clearance-result" state={state} />
       <input type="hidden" name="coilId" value={coilId} />
       <fieldset>
         <legend>Safety checklist (every item must be confirmed to clear)</legend>
         {checklist.map((item) => (
-          <div className="check" key={item.id}>
-            <input type="checkbox" id={`check-${item.id}`} name={`check:${item.id}`} value="yes" defaultChecked={values ? values[`check:${item.id}`] === "yes" : false} />
+          <div className={errorOf(`check:${item.id}`) ? "check check-missing" : "check"} key={item.id}>
+            <input
+              type="checkbox"
+              id={`check-${item.id}`}
+              name={`check:${item.id}`}
+              value="yes"
+              defaultChecked={values ? values[`check:${item.id}`] === "yes" : false}
+              aria-invalid={errorOf(`check:${item.id}`)}
+              aria-describedby={`check-${item.id}-error`}
+            />
             <label htmlFor={`check-${item.id}`}>{item.text}</label>
+            <FieldError id={`check-${item.id}-error`} state={state} field={`check:${item.id}`} />
           </div>
         ))}
       </fieldset>
@@ -63,7 +74,6 @@ export function ClearanceForm({ coilId, checklist, defaults, rulesPass }: { coil
       <button type="submit" disabled={pending}>
         Sign decision
       </button>
-      <FormStatus id="clearance-result" state={state} />
     </form>
   );
 }

@@ -45,7 +45,7 @@ export default async function NewClearancePage({ searchParams }: { searchParams:
       <p className={`notice ${dataRulesPass ? "ok" : "danger"}`}>
         {dataRulesPass
           ? "Every recorded check passes. Work through the checklist below; all items must be confirmed to clear."
-          : `${dataRules.filter((r) => !r.pass).length} recorded check(s) fail, so this coil cannot be cleared now. You may record a refusal with these reasons.`}
+          : `${failingChecks(dataRules.filter((r) => !r.pass).length)}, so this coil cannot be cleared now. You may record a refusal with these reasons.`}
       </p>
       <RuleResultsTable rules={dataRules} caption="Rules evaluated from the logbook (checked again on the server when you sign)" />
       <p className="muted">
@@ -79,3 +79,5 @@ export default async function NewClearancePage({ searchParams }: { searchParams:
     </>
   );
 }
+
+const failingChecks = (n: number) => `${n} recorded check${n === 1 ? " fails" : "s fail"}`;

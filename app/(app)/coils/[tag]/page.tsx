@@ -17,6 +17,7 @@ import { HealthSection } from "./health-section";
 import { PartsSection } from "./parts-section";
 import { TimelineSection } from "./timeline-section";
 import { RetireTopLoadButton } from "./top-load-forms";
+import { checkMeasuredInductance } from "@/lib/analysis/inductance-plausibility";
 
 type Props = { params: Promise<{ tag: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -42,6 +43,8 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const canEdit = hasRole(user.role, "steward");
   const base = `/coils/${encodeURIComponent(coil.tag)}`;
   const justSaved = query.added ?? query.saved;
+  // A plausibility warning, never a refusal: the record is kept as typed.
+  const inductanceWarning = justSaved ? checkMeasuredInductance(coil)?.warning : null;
 
   return (
     <>
@@ -67,6 +70,11 @@ export default async function CoilPage({ params, searchParams }: Props) {
         <div className="notice ok" role="status">
           Plan saved: {coil.tag} is recorded as planned, with its planned parts and figures. Set its status to active when it goes into service.
         </div>
+      )}
+      {justSaved && inductanceWarning && (
+        <p className="notice warn" role="alert">
+          {inductanceWarning}
+        </p>
       )}
       <nav aria-label="Coil actions" className="no-print actions-row">
         {canEdit && <Link href={`${base}/edit`}>Edit the build</Link>}

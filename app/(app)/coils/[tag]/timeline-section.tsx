@@ -1,7 +1,7 @@
 /** The coil's logbook as one timeline, newest first, capped, with links to the full lists. */
 import Link from "next/link";
 import type { TimelineEvent } from "@/lib/db/coil-timeline";
-import { formatDateTime } from "@/lib/units/format";
+import { formatCount, formatDateTime } from "@/lib/units/format";
 
 interface Props {
   tag: string;
@@ -27,7 +27,7 @@ export function TimelineSection({ tag, events, truncated, counts }: Props) {
         </ol>
       )}
       <p className="no-print">
-        {truncated ? `Showing the latest ${events.length} entries. ` : ""}Full lists:{" "}
+        {truncated ? `Showing the latest ${formatCount(events.length, "entry", "entries")}. ` : ""}Full lists:{" "}
         <Link href={`/sessions?coil=${q}`}>sessions ({counts?.sessions ?? 0})</Link>, <Link href={`/sweeps?coil=${q}`}>sweeps ({counts?.sweeps ?? 0})</Link>,{" "}
         <Link href={`/failures?q=${q}`}>failures ({counts?.failures ?? 0})</Link>, <Link href="/loans">loans ({counts?.loans ?? 0})</Link>.
       </p>

@@ -3,6 +3,7 @@
 import { useActionState } from "react";
 import { importLogbookAction } from "../actions";
 import { FieldError, FormStatus } from "@/app/ui/form-status";
+import { COIL_TAG_EXAMPLE } from "@/lib/validation/coil";
 
 export function ImportForm() {
   const [state, action, pending] = useActionState(importLogbookAction, null);
@@ -27,7 +28,7 @@ export function ImportForm() {
         <label htmlFor="import-as-tag">Import under a new tag (optional)</label>
         <input id="import-as-tag" name="asTag" defaultValue={refused?.values?.asTag} aria-invalid={refused?.fieldErrors.asTag ? true : undefined} aria-describedby="import-as-tag-hint import-as-tag-error" />
         <span id="import-as-tag-hint" className="hint">
-          Leave empty to import under the tags in the file.
+          Leave empty to import under the tags in the file; otherwise a tag like {COIL_TAG_EXAMPLE}.
         </span>
         <FieldError id="import-as-tag-error" state={state} field="asTag" />
       </div>

@@ -113,6 +113,7 @@ export default async function PostMortemPage({ params }: Props) {
           <SafetyCautions context="repair" />
           <PostMortemForm
             failureId={failure.id}
+            recordedMode={failure.mode}
             failedPart={replaceable ? { partNumber: replaceable.partNumber, manufacturer: replaceable.manufacturer, ratings } : null}
             defaultInstalledAt={toLocalDateTimeValue(new Date())}
           />

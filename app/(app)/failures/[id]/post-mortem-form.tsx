@@ -3,15 +3,18 @@
 import { useActionState, useState } from "react";
 import { completePostMortemAction } from "../actions";
 import { FieldError, FormStatus } from "@/app/ui/form-status";
+import { FAILURE_MODE_LABEL } from "@/app/ui/labels";
 
 interface Props {
   failureId: string;
+  /** The mode recorded with the failure; the post-mortem confirms or corrects it. */
+  recordedMode: string;
   /** The failed part, when one was named and is still fitted; its ratings are the replacement's defaults. */
   failedPart: { partNumber: string; manufacturer: string; ratings: { name: string; label: string; value: string; hint: string }[] } | null;
   defaultInstalledAt: string;
 }
 
-export function PostMortemForm({ failureId, failedPart, defaultInstalledAt }: Props) {
+export function PostMortemForm({ failureId, recordedMode, failedPart, defaultInstalledAt }: Props) {
   const [state, action, pending] = useActionState(completePostMortemAction, null);
   const failed = state && !state.ok ? state : null;
   const [replace, setReplace] = useState(failedPart !== null);
@@ -39,6 +42,20 @@ export function PostMortemForm({ failureId, failedPart, defaultInstalledAt }: Pr
     <form action={action} className="stack" aria-labelledby="pm-heading" noValidate>
       <h2 id="pm-heading">Complete the post-mortem</h2>
       <input type="hidden" name="failureId" value={failureId} />
+      <div className="field">
+        <label htmlFor="pm-mode">Failure mode found</label>
+        <select id="pm-mode" name="mode" defaultValue={typed("mode") ?? recordedMode} aria-invalid={invalid("mode")} aria-describedby="pm-mode-hint pm-mode-error">
+          {Object.entries(FAILURE_MODE_LABEL).map(([value, label]) => (
+            <option key={value} value={value}>
+              {label}
+            </option>
+          ))}
+        </select>
+        <span id="pm-mode-hint" className="hint">
+          Recorded as {FAILURE_MODE_LABEL[recordedMode] ?? recordedMode}; set what the post-mortem found. The change is kept in the audit log.
+        </span>
+        <FieldError id="pm-mode-error" state={state} field="mode" />
+      </div>
       <div className="field">
         <label htmlFor="pm-rootCause">Root cause</label>
         <textarea id="pm-rootCause" name="rootCause" rows={4} defaultValue={typed("rootCause")} aria-invalid={invalid("rootCause")} aria-describedby="pm-rootCause-error" />

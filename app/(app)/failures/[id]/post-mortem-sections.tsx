@@ -3,7 +3,7 @@ import Link from "next/link";
 import type { PostMortemAnalysis } from "@/lib/analysis/post-mortem";
 import type { ComponentRecord } from "@/lib/analysis/records";
 import type { Margin } from "@/lib/calc/margin";
-import { formatDate, formatDateTime, formatNumber, formatPercent } from "@/lib/units/format";
+import { formatCount, formatDate, formatDateTime, formatNumber, formatPercent } from "@/lib/units/format";
 import { COMPONENT_KIND_LABEL, FAILURE_MODE_LABEL, OUTCOME_LABEL } from "@/app/ui/labels";
 import { MARGIN_STATUS_LABEL } from "@/app/ui/margin-labels";
 
@@ -75,7 +75,7 @@ export function MarginsBeforeTable({ analysis, linkSessions }: { analysis: PostM
   return (
     <div className="table-wrap">
       <table>
-        <caption>Headroom of the {analysis.sessions.length} sessions before the failure (oldest first; est. = rests on an estimate)</caption>
+        <caption>Headroom of the {formatCount(analysis.sessions.length, "session")} before the failure (oldest first; est. = rests on an estimate)</caption>
         <thead>
           <tr>
             <th scope="col">Session</th>

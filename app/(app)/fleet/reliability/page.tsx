@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { pageUser } from "@/app/ui/page-guard";
 import { getPartReliability } from "@/lib/db/fleet";
 import { formatNumber } from "@/lib/units/format";
-import { COMPONENT_KIND_LABEL } from "@/app/ui/labels";
+import { COMPONENT_KIND_LABEL, FAILURE_MODE_LABEL } from "@/app/ui/labels";
 
 export const metadata: Metadata = { title: "Fleet reliability" };
 
@@ -33,6 +33,7 @@ export default async function ReliabilityPage() {
               <th scope="col" className="num">Fitted</th>
               <th scope="col" className="num">Operating hours</th>
               <th scope="col" className="num">Failures</th>
+              <th scope="col">Failure modes</th>
               <th scope="col" className="num">MTBF</th>
               <th scope="col">95 % interval</th>
             </tr>
@@ -45,6 +46,7 @@ export default async function ReliabilityPage() {
                 <td className="num">{p.records}</td>
                 <td className="num">{formatNumber(p.operatingHours, 1)}</td>
                 <td className="num">{p.failures > 0 ? <span className="badge badge-hold">{p.failures}</span> : 0}</td>
+                <td>{p.failureModes.length > 0 ? p.failureModes.map(([mode, count]) => `${count} × ${FAILURE_MODE_LABEL[mode] ?? mode}`).join(", ") : "—"}</td>
                 <td className="num">{hours(p.mtbfHours)}</td>
                 <td>
                   {hours(p.mtbfLowHours)} to {hours(p.mtbfHighHours)}

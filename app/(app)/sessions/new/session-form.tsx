@@ -6,6 +6,7 @@ import { FieldError, FormStatus } from "@/app/ui/form-status";
 import { OUTCOME_LABEL } from "@/app/ui/labels";
 import { describeSampleError, parseHeatSinkSamples } from "@/lib/import/heat-sink-samples";
 import type { ActionResult } from "@/lib/validation/action-result";
+import { formatCount } from "@/lib/units/format";
 
 interface Props {
   coil: { id: string; tag: string; name: string };
@@ -112,7 +113,7 @@ export function SessionForm({ coil, topLoads, defaultTopLoadId, defaultStartedAt
           One reading a line: time since switch-on, then the sink temperature in °C. Times like 0:30, 30 s or 0.5 min; commas, tabs or spaces between.
         </span>
         <span id="session-samples-preview" className="hint" aria-live="polite">
-          {preview === null ? "" : preview.ok ? `${preview.samples.length} samples read.` : preview.errors.slice(0, 3).map(describeSampleError).join(" ")}
+          {preview === null ? "" : preview.ok ? `${formatCount(preview.samples.length, "sample")} read.` : preview.errors.slice(0, 3).map(describeSampleError).join(" ")}
         </span>
         <FieldError id="session-samples-error" state={state} field="samples" />
       </div>

@@ -7,7 +7,7 @@
  */
 import { useRef, useState } from "react";
 import { useRouter } from "next/navigation";
-import { checkSweepReadings, DELIMITER_NAMES, detectSweepCsvLayout, type MappedSweepPoint, type SweepColumnMapping, type SweepCsvLayout } from "@/lib/import/sweep-csv";
+import { checkSweepReadings, DELIMITER_NAMES, describeLayoutProblem, detectSweepCsvLayout, type MappedSweepPoint, type SweepColumnMapping, type SweepCsvLayout } from "@/lib/import/sweep-csv";
 import { analyzeSweep, type SweepAnalysis } from "@/lib/calc/sweep";
 import { CalcInputError } from "@/lib/calc/errors";
 import { parseQuantity } from "@/lib/units/parse";
@@ -35,6 +35,8 @@ export function SweepImportForm({ coil }: { coil: SweepCoilChoice }) {
   const [file, setFile] = useState<Blob | null>(null);
   const [pasted, setPasted] = useState("");
   const [layout, setLayout] = useState<SweepCsvLayout | null>(null);
+  /** The start of the file as read, kept so a header row picked by hand re-reads the same text. */
+  const [sample, setSample] = useState("");
   const [mapping, setMapping] = useState<SweepColumnMapping | null>(null);
   const [progress, setProgress] = useState<number | null>(null);
   const [prepared, setPrepared] = useState<PreparedImport | null>(null);
@@ -44,21 +46,45 @@ export function SweepImportForm({ coil }: { coil: SweepCoilChoice }) {
 
   const source = (): Blob | null => file ?? (pasted.trim() ? new Blob([pasted], { type: "text/csv" }) : null);
 
-  const readLayout = async () => {
-    const blob = source();
+  const describeLayout = (detected: SweepCsvLayout) => {
+    const skipped = detected.skippedRows.length;
+    return `Read as ${DELIMITER_NAMES[detected.delimiter] ?? `“${detected.delimiter}”`}-separated, ${detected.headerRow !== null ? `with the header on row ${detected.headerRow}` : "without a header row"}${skipped > 0 ? `, ${skipped} comment or preamble line${skipped === 1 ? "" : "s"} skipped` : ""}${detected.decimalComma ? ", decimal commas" : ""}, ${detected.columns.length} columns. Check the header row and the mapping below.`;
+  };
+
+  const applyLayout = (detected: SweepCsvLayout) => {
     setPrepared(null);
-    if (!blob) return setStatus({ tone: "danger", message: "Choose a CSV file or paste its contents first." });
-    const detected = detectSweepCsvLayout(await blob.slice(0, SAMPLE_BYTES).text());
+    const problem = describeLayoutProblem(detected);
+    if (problem) {
+      setLayout(null);
+      return setStatus({ tone: "danger", message: `${problem}. Nothing was imported.` });
+    }
     if (detected.columns.length < 2) {
       setLayout(null);
       return setStatus({ tone: "danger", message: "Only one column was found: a sweep needs a frequency column and an amplitude column." });
     }
     setLayout(detected);
     setMapping(detected.suggested);
-    setStatus({
-      tone: "info",
-      message: `Read as ${DELIMITER_NAMES[detected.delimiter] ?? `“${detected.delimiter}”`}-separated, ${detected.hasHeader ? "with a header row" : "without a header row"}${detected.decimalComma ? ", decimal commas" : ""}, ${detected.columns.length} columns. Check the mapping below.`,
-    });
+    setStatus({ tone: "info", message: describeLayout(detected) });
+  };
+
+  const readLayout = async () => {
+    const blob = source();
+    setPrepared(null);
+    if (!blob) return setStatus({ tone: "danger", message: "Choose a CSV file or paste its contents first." });
+    const text = await blob.slice(0, SAMPLE_BYTES).text();
+    setSample(text);
+    applyLayout(detectSweepCsvLayout(text));
+  };
+
+  /** The user's pick of the header row ("" for none), read again from the same start of the file. */
+  const pickHeaderRow = (value: string) => {
+    const detected = detectSweepCsvLayout(sample, { headerRow: value === "" ? null : Number(value) });
+    // Keep the picker on screen even when the pick leaves nothing to read, so it can be changed back.
+    if (describeLayoutProblem(detected) || detected.columns.length < 2) {
+      setPrepared(null);
+      return setStatus({ tone: "danger", message: `${describeLayoutProblem(detected) ?? "Only one column is left below that row"}. Pick another header row.` });
+    }
+    applyLayout(detected);
   };
 
   const settingErrors = (settings: Record<string, string>): FieldErrors => {
@@ -139,7 +165,7 @@ export function SweepImportForm({ coil }: { coil: SweepCoilChoice }) {
           <div className="field">
             <label htmlFor="import-file">CSV file</label>
             <input id="import-file" type="file" accept=".csv,.txt,.tsv,text/csv,text/plain" onChange={(e) => { setFile(e.target.files?.[0] ?? null); setLayout(null); setPrepared(null); }} aria-describedby="import-file-hint" />
-            <span id="import-file-hint" className="hint">Comma, semicolon or tab separated, with or without a header row.</span>
+            <span id="import-file-hint" className="hint">Comma, semicolon or tab separated, with or without a header row; # comment lines and a preamble above the header are skipped.</span>
           </div>
           <div className="field">
             <label htmlFor="import-paste">…or paste the contents</label>
@@ -155,6 +181,20 @@ export function SweepImportForm({ coil }: { coil: SweepCoilChoice }) {
 
       {layout && mapping && (
         <>
+          <div className="field">
+            <label htmlFor="import-header-row">Header row</label>
+            <select id="import-header-row" value={layout.headerRow ?? ""} onChange={(e) => pickHeaderRow(e.target.value)} aria-describedby="import-header-row-hint">
+              <option value="">No header row</option>
+              {layout.headerChoices.map((line) => (
+                <option key={line.row} value={line.row}>
+                  Row {line.row}: {line.text.length > 60 ? `${line.text.slice(0, 60)}…` : line.text}
+                </option>
+              ))}
+            </select>
+            <span id="import-header-row-hint" className="hint">
+              Lines starting with # and any lines above the header are skipped.
+            </span>
+          </div>
           <MappingFields layout={layout} mapping={mapping} onChange={(m) => { setMapping(m); setPrepared(null); }} />
           <SweepSettingsFields coil={coil} errors={fieldErrors} />
           <p>

@@ -5,7 +5,7 @@ import QRCode from "qrcode";
 import { pageUser } from "@/app/ui/page-guard";
 import { SafetyCautions } from "@/app/ui/safety-cautions";
 import { getClearance, getClearanceStateById } from "@/lib/db/clearances";
-import { formatDateTime, formatDuration, formatNumber } from "@/lib/units/format";
+import { formatCount, formatDateTime, formatDuration, formatNumber } from "@/lib/units/format";
 import { TOPOLOGY_LABEL } from "@/app/ui/labels";
 import { RuleResultsTable } from "../../rule-results-table";
 import { PrintButton } from "./print-button";
@@ -70,7 +70,7 @@ export default async function ClearanceSheetPage({ params }: { params: Promise<{
         <h2 id="rules-heading">Rule results at signing</h2>
         <RuleResultsTable rules={clearance.rules.filter((r) => !r.id.startsWith("checklist:"))} caption="Recorded checks" />
         <p>
-          Checklist: {clearance.checklist.filter((c) => c.answer).length} of {clearance.checklist.length} items confirmed by the steward.
+          Checklist: {clearance.checklist.filter((c) => c.answer).length} of {formatCount(clearance.checklist.length, "item")} confirmed by the steward.
         </p>
       </section>
       <p className="muted">Coilyard records the team&apos;s checks; it does not certify a build as safe. Local codes, venue rules and licensed practice come first.</p>
