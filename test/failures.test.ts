@@ -126,7 +126,7 @@ describe("completing a post-mortem", () => {
     const { parts } = await getPartReliability();
     expect(parts.find((p) => p.partNumber === "MJE13009")?.failureModes).toEqual([["over_voltage", 1]]);
     const detail = (await getFailureDetail(failure.id))!;
-    const analysis = analyzePostMortem({ coil: detail.coil, components: detail.coil.components, failure: detail, sessionsBefore: detail.recentSessions });
+    const analysis = analyzePostMortem({ coil: detail.coil, components: detail.coil.components, failure: detail, sessionsBefore: detail.recentSessions, policy: DEFAULT_CLEARANCE_POLICY });
     expect(analysis.causes[0]!.cause).toBe("over_voltage");
   });
 
