@@ -4,10 +4,12 @@ import { makeUser, resetDatabase, testDb } from "./support/db";
 import { makeBenchCoil } from "./support/bench-fixtures";
 import { createSession } from "@/lib/db/sessions";
 import { completePostMortem, createFailure, getFailureDetail, listFailures } from "@/lib/db/failures";
-import { getPartReliability } from "@/lib/db/fleet";
+import { getFleetOverview, getPartReliability } from "@/lib/db/fleet";
 import { sessionSchema } from "@/lib/validation/session";
 import { failureSchema, postMortemSchema } from "@/lib/validation/failure";
 import { analyzePostMortem } from "@/lib/analysis/post-mortem";
+import { judgeCoil } from "@/lib/analysis/coil-health-input";
+import { readCoilPage } from "@/lib/db/coil-page";
 
 beforeEach(resetDatabase);
 
@@ -134,6 +136,24 @@ describe("completing a post-mortem", () => {
     const { steward, failure } = await openFailure();
     await completePostMortem(steward.id, completion(failure.id));
     expect((await testDb.failure.findUniqueOrThrow({ where: { id: failure.id } })).mode).toBe("over_voltage");
+  });
+
+  it("holds the coil on the dashboard and its page while the failure is open, and lets the margins judge it again once closed", async () => {
+    const { steward, failure, coil } = await openFailure();
+    const now = new Date();
+    const dashboardRow = async () => (await getFleetOverview(now)).find((r) => r.id === coil.id)!;
+    const pageHealth = async () => judgeCoil((await readCoilPage(coil.tag))!.history, DEFAULT_CLEARANCE_POLICY, now).health!;
+
+    const open = await dashboardRow();
+    expect(open.health).toBe("hold");
+    expect(open.reasons[0]).toMatch(/^A failure \(over voltage\) recorded on .* is still open/);
+    expect((await pageHealth()).status).toBe("hold");
+    expect((await pageHealth()).reasons).toEqual(open.reasons);
+
+    await completePostMortem(steward.id, completion(failure.id));
+    const closed = await dashboardRow();
+    expect(closed.reasons.some((r) => r.includes("is still open"))).toBe(false);
+    expect((await pageHealth()).status).toBe(closed.health);
   });
 
   it("refuses to complete a post-mortem twice", async () => {

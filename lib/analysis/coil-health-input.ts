@@ -3,7 +3,7 @@
  * judgement: the dashboard's stored summary (lib/db/coil-summary.ts), the coil page, the trends page and the
  * benchmark all call it with (history, policy, now), so they cannot disagree.
  */
-import { assessCoilHealth, type CoilHealth } from "../calc/coil-health";
+import { assessCoilHealth, type CoilHealth, type OpenFailure } from "../calc/coil-health";
 import type { CoilSession, CoilSweep } from "../calc/coil-logbook";
 import { findCurrentTopLoadId } from "./current-top-load";
 import { CalcInputError } from "../calc/errors";
@@ -54,7 +54,13 @@ export function toCoilSweeps(sweeps: readonly SweepRecord[]): CoilSweep[] {
  * refused clearance speak of the same limits. A top load changes the resonance by design, so running
  * frequency and sweeps are compared only among those taken with the top load fitted last.
  */
-export function assessCoil(analyzed: readonly AnalyzedSession[], sweeps: readonly SweepRecord[], now: Date, policy: ClearancePolicyRules): CoilHealth {
+export function assessCoil(
+  analyzed: readonly AnalyzedSession[],
+  sweeps: readonly SweepRecord[],
+  now: Date,
+  policy: ClearancePolicyRules,
+  openFailures: readonly OpenFailure[] = [],
+): CoilHealth {
   const currentTopLoad = findCurrentTopLoadId(sweeps, analyzed.map((a) => a.session));
   const sessions = analyzed.map((a) => {
     const row = toCoilSession(a);
@@ -65,6 +71,7 @@ export function assessCoil(analyzed: readonly AnalyzedSession[], sweeps: readonl
     sweeps: toCoilSweeps(sweeps.filter((s) => (s.topLoadId ?? null) === currentTopLoad)),
     now,
     thresholds: { voltageHeadroom: policy.minVoltageHeadroom, currentHeadroom: policy.minCurrentHeadroom, thermalHeadroom: policy.minThermalHeadroom },
+    openFailures,
   });
 }
 
@@ -74,6 +81,8 @@ export interface CoilJudgementHistory {
   components: readonly ComponentRecord[];
   sessions: readonly StoredSessionRecord[];
   sweeps: readonly SweepRecord[];
+  /** Failures without a completed post-mortem; each holds the coil. */
+  openFailures: readonly OpenFailure[];
 }
 
 export interface CoilJudgement {
@@ -90,7 +99,7 @@ export interface CoilJudgement {
 export function judgeCoil(history: CoilJudgementHistory, policy: ClearancePolicyRules, now: Date): CoilJudgement {
   try {
     const analyzed = analyzeSessions(history.coil, selectHealthWindow(history.sessions), history.components, policy);
-    const health = assessCoil(analyzed, history.sweeps, now, policy);
+    const health = assessCoil(analyzed, history.sweeps, now, policy, history.openFailures);
     return { health, reasons: health.reasons, analyzed, latest: analyzed.at(-1) ?? null };
   } catch (error) {
     if (!(error instanceof CalcInputError)) throw error;

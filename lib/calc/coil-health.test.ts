@@ -253,3 +253,28 @@ describe("assessCoilHealth: latest readings and input checks", () => {
     expect(b.margins.thermal.observations).toBeLessThan(a.margins.thermal.observations);
   });
 });
+
+describe("assessCoilHealth: open failures", () => {
+  it("holds an otherwise fine coil while a failure is open, naming the failure first", () => {
+    const coil = simulateCoil({ seed: 11 });
+    const now = addDays(START, coil.lastDay);
+    expect(assessCoilHealth({ ...coil, now }).status).toBe("fine");
+    const held = assessCoilHealth({ ...coil, now, openFailures: [{ occurredAt: addDays(START, coil.lastDay - 2), mode: "over_voltage" }] });
+    expect(held.status).toBe("hold");
+    expect(held.reasons[0]).toMatch(/^A failure \(over voltage\) recorded on \d{4}-\d{2}-\d{2} is still open: the coil is on hold until its post-mortem is complete\.$/);
+  });
+
+  it("holds a coil with too few sessions to judge, rather than saying 'not enough data'", () => {
+    const coil = simulateCoil({ seed: 3, sessions: 4 });
+    const health = assessCoilHealth({ ...coil, now: addDays(START, coil.lastDay), openFailures: [{ occurredAt: START, mode: "unknown" }] });
+    expect(health.status).toBe("hold");
+    expect(health.reasons[0]).toContain("(mode not yet known)");
+  });
+
+  it("names the failure whose date cannot be read", () => {
+    const coil = simulateCoil({ seed: 3 });
+    expect(() => assessCoilHealth({ ...coil, now: addDays(START, coil.lastDay), openFailures: [{ occurredAt: new Date(Number.NaN), mode: "over_current" }] })).toThrow(
+      /openFailures\[0\]\.occurredAt/,
+    );
+  });
+});

@@ -66,6 +66,14 @@ export interface CoilHealthInput {
   now: Date;
   /** Two-sided confidence for trend ranges and the significance test (default 0.95). */
   confidence?: number;
+  /** Failures still open (no completed post-mortem): each one holds the coil, whatever its margins say. */
+  openFailures?: readonly OpenFailure[];
+}
+
+/** A recorded failure whose post-mortem is not complete. `mode` is the failure mode as recorded, e.g. "over_voltage". */
+export interface OpenFailure {
+  occurredAt: Date;
+  mode: string;
 }
 
 /** Assesses one coil (methods: Theil–Sen with Sen's interval and Mann–Kendall, robust-trend.ts). */
@@ -117,8 +125,10 @@ export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
     formatValue: formatFrequency,
   });
   const heatSinkRisePerWatt = assessHeatRise(sessions, baseline, common);
+  const failureFindings = (input.openFailures ?? []).map((failure, i) => describeOpenFailure(failure, i));
 
   const findings = [
+    ...failureFindings,
     ...margins.voltage.findings,
     ...margins.current.findings,
     ...margins.thermal.findings,
@@ -169,3 +179,17 @@ function datedSeries(
   });
 }
 
+
+/**
+ * An open failure holds the coil: until a post-mortem has found the cause and the repair is recorded, no margin
+ * or trend describes the coil as it now is (the team's rule; common practice for equipment awaiting investigation).
+ */
+function describeOpenFailure(failure: OpenFailure, index: number): HealthFinding {
+  const at = requireDate(`openFailures[${index}].occurredAt`, failure.occurredAt);
+  const mode = failure.mode === "unknown" ? "mode not yet known" : failure.mode.replaceAll("_", " ");
+  return {
+    severity: "hold",
+    subject: "open failure",
+    text: `A failure (${mode}) recorded on ${at.toISOString().slice(0, 10)} is still open: the coil is on hold until its post-mortem is complete.`,
+  };
+}

@@ -28,6 +28,11 @@ const sessionSelect = {
   sinkFitJson: true,
 } as const;
 
+/** Failures without a completed post-mortem: each holds the coil (lib/calc/coil-health.ts). */
+const openFailureSelect = { coilId: true, occurredAt: true, mode: true } as const;
+const openFailuresWhere = (coilId?: string | { in: string[] }) => ({ status: "open" as const, ...(coilId === undefined ? {} : { coilId }) });
+const openFailureOrder = [{ occurredAt: "asc" as const }, { id: "asc" as const }];
+
 const sweepSelect = { id: true, coilId: true, takenAt: true, topLoadId: true, firstSeriesResonanceHz: true } as const;
 
 const SESSION_COLUMNS = Object.keys(sessionSelect)
@@ -47,14 +52,15 @@ function group<T extends { coilId: string }>(rows: T[]): Map<string, T[]> {
 }
 
 export async function getCoilHistory(coilId: string) {
-  const [coil, components, sessions, sweeps, topLoads] = await Promise.all([
+  const [coil, components, sessions, sweeps, topLoads, openFailures] = await Promise.all([
     prisma.coil.findUnique({ where: { id: coilId } }),
     prisma.component.findMany({ where: { coilId }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }),
     prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "asc" }, { id: "asc" }] }),
     prisma.sweep.findMany({ where: { coilId }, select: sweepSelect, orderBy: [{ takenAt: "asc" }, { id: "asc" }] }),
     prisma.topLoad.findMany({ where: { coilId }, orderBy: [{ createdAt: "asc" }, { id: "asc" }] }),
+    prisma.failure.findMany({ where: openFailuresWhere(coilId), select: openFailureSelect, orderBy: openFailureOrder }),
   ]);
-  return coil ? { coil, components, sessions, sweeps, topLoads } : null;
+  return coil ? { coil, components, sessions, sweeps, topLoads, openFailures } : null;
 }
 
 export type CoilHistory = NonNullable<Awaited<ReturnType<typeof getCoilHistory>>>;
@@ -80,7 +86,7 @@ export async function getCoilPageHistory(coilId: string, knownCoil?: KnownCoilRe
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
   const known = knownCoil && splitKnown(knownCoil);
   // Raw statements (lib/db/raw-read.ts says why): this is the coil page's main read.
-  const [coils, components, windowRows, sweeps, topLoads] = await Promise.all([
+  const [coils, components, windowRows, sweeps, topLoads, openFailures] = await Promise.all([
     known ? [known.coil] : prisma.$queryRaw<Coil[]>`SELECT * FROM "Coil" WHERE id = ${coilId}`,
     known
       ? [...known.components].sort((a, b) => a.installedAt.getTime() - b.installedAt.getTime() || compareIds(a, b))
@@ -96,6 +102,8 @@ export async function getCoilPageHistory(coilId: string, knownCoil?: KnownCoilRe
     known
       ? [...known.topLoads].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || compareIds(a, b))
       : prisma.$queryRaw<TopLoad[]>`SELECT * FROM "TopLoad" WHERE "coilId" = ${coilId} ORDER BY "createdAt", id`,
+    // Usually none: the query API's cost is paid on an index probe that finds nothing.
+    prisma.failure.findMany({ where: openFailuresWhere(coilId), select: openFailureSelect, orderBy: openFailureOrder }),
   ]);
   const coil = coils[0];
   if (!coil) return null;
@@ -107,23 +115,32 @@ export async function getCoilPageHistory(coilId: string, knownCoil?: KnownCoilRe
     WHERE s."coilId" = ${coilId} AND s."topLoadId" ${topLoadId === null ? Prisma.sql`IS NULL` : Prisma.sql`= ${topLoadId}`} AND s."runningFrequencyHz" IS NOT NULL
     ORDER BY s."startedAt" DESC, s.id DESC LIMIT 1`;
   const comparisonSessions = running && !byId.has(running.id) ? [running, ...sessions] : sessions;
-  return { coil, components, sessions, comparisonSessions, sweeps, topLoads };
+  return { coil, components, sessions, comparisonSessions, sweeps, topLoads, openFailures };
 }
 
 /** The same for every coil, grouped by coil id (four queries in all). */
 export async function getFleetHistory(): Promise<CoilHistory[]> {
-  const [coils, components, sessions, sweeps, topLoads] = await Promise.all([
+  const [coils, components, sessions, sweeps, topLoads, openFailures] = await Promise.all([
     prisma.coil.findMany({ orderBy: { tag: "asc" } }),
     prisma.component.findMany({ orderBy: { installedAt: "asc" } }),
     prisma.runSession.findMany({ select: sessionSelect, orderBy: { startedAt: "asc" } }),
     prisma.sweep.findMany({ select: sweepSelect, orderBy: { takenAt: "asc" } }),
     prisma.topLoad.findMany({ orderBy: { createdAt: "asc" } }),
+    prisma.failure.findMany({ where: openFailuresWhere(), select: openFailureSelect, orderBy: openFailureOrder }),
   ]);
   const c = group(components);
   const s = group(sessions);
   const w = group(sweeps);
   const t = group(topLoads);
-  return coils.map((coil) => ({ coil, components: c.get(coil.id) ?? [], sessions: s.get(coil.id) ?? [], sweeps: w.get(coil.id) ?? [], topLoads: t.get(coil.id) ?? [] }));
+  const f = group(openFailures);
+  return coils.map((coil) => ({
+    coil,
+    components: c.get(coil.id) ?? [],
+    sessions: s.get(coil.id) ?? [],
+    sweeps: w.get(coil.id) ?? [],
+    topLoads: t.get(coil.id) ?? [],
+    openFailures: f.get(coil.id) ?? [],
+  }));
 }
 
 export interface CoilSessionTotals {
@@ -151,12 +168,13 @@ export async function getFleetHealthHistory(coilIds?: readonly string[]): Promis
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
   const ofCoils = coilIds ? { coilId: { in: [...coilIds] } } : {};
   const coilFilter = coilIds ? Prisma.sql`WHERE c.id IN (${Prisma.join(coilIds)})` : Prisma.empty;
-  const [coils, components, sweeps, topLoads, totals, rawSessions] = await Promise.all([
+  const [coils, components, sweeps, topLoads, totals, openFailures, rawSessions] = await Promise.all([
     prisma.coil.findMany({ where: coilIds ? { id: { in: [...coilIds] } } : {}, orderBy: { tag: "asc" } }),
     prisma.component.findMany({ where: ofCoils, orderBy: { installedAt: "asc" } }),
     prisma.sweep.findMany({ where: ofCoils, select: sweepSelect, orderBy: { takenAt: "asc" } }),
     prisma.topLoad.findMany({ where: ofCoils, orderBy: { createdAt: "asc" } }),
     prisma.runSession.groupBy({ by: ["coilId"], where: ofCoils, _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
+    prisma.failure.findMany({ where: openFailuresWhere(coilIds ? { in: [...coilIds] } : undefined), select: openFailureSelect, orderBy: openFailureOrder }),
     // Raw SQL because the window is per coil (a LIMIT/OFFSET per group), which Prisma's query API cannot say;
     // both halves walk the (coilId, startedAt) index. Ties on startedAt may add a row; selectHealthWindow trims.
     // Portable SQL (SQLite and PostgreSQL): quoted identifiers, and a coil with fewer sessions than the window
@@ -178,6 +196,7 @@ export async function getFleetHealthHistory(coilIds?: readonly string[]): Promis
   const c = group(components);
   const w = group(sweeps);
   const t = group(topLoads);
+  const f = group(openFailures);
   const totalsByCoil = new Map(totals.map((row) => [row.coilId, row]));
   return coils.map((coil) => {
     const total = totalsByCoil.get(coil.id);
@@ -187,6 +206,7 @@ export async function getFleetHealthHistory(coilIds?: readonly string[]): Promis
       sessions: selectHealthWindow(s.get(coil.id) ?? []),
       sweeps: w.get(coil.id) ?? [],
       topLoads: t.get(coil.id) ?? [],
+      openFailures: f.get(coil.id) ?? [],
       totals: { sessionCount: total?._count._all ?? 0, totalDurationS: total?._sum.durationS ?? 0, lastSessionAt: total?._max.startedAt ?? null },
     };
   });

@@ -42,8 +42,8 @@ export interface CoilFigures {
 const HEALTH_STATUSES: readonly string[] = ["fine", "watch", "hold", "not enough data"] satisfies HealthStatus[];
 
 /** The coil's figures from its health window (lib/analysis), judged at `now` under `policy`. */
-export function computeCoilFigures({ coil, components, sessions, sweeps, totals }: CoilHealthHistory, policy: PolicyVersion, now: Date): CoilFigures {
-  const judged = judgeCoil({ coil, components, sessions, sweeps }, policy.rules, now);
+export function computeCoilFigures({ coil, components, sessions, sweeps, openFailures, totals }: CoilHealthHistory, policy: PolicyVersion, now: Date): CoilFigures {
+  const judged = judgeCoil({ coil, components, sessions, sweeps, openFailures }, policy.rules, now);
   return {
     health: judged.health?.status ?? "not enough data",
     reasons: judged.reasons,
