@@ -187,7 +187,7 @@ export const DEMO_COILS: DemoCoil[] = [
     currentPerVolt: 0.085,
     switchLossFraction: 0.2,
     sessions: { count: 34, fromDay: -170, toDay: -1 },
-    drift: { sinkResistanceFactor: 2.1, currentFactor: 1.22, fromDay: -110 },
+    drift: { sinkResistanceFactor: 1.8, currentFactor: 1.22, fromDay: -110 },
   },
   {
     tag: "KM-05",
