@@ -10,7 +10,8 @@ const RISING_SAMPLES =
 
 test("a short run still warming up is flagged on its thermal margin with the projected junction temperature", async ({ page }) => {
   await signInAs(page, "member");
-  await page.goto("/sessions/new?coil=KM-06");
+  // KM-02 (a 175 °C MOSFET on a 1.6 K/W sink): no earlier spec changes its parts, as the failure journeys do KM-06's.
+  await page.goto("/sessions/new?coil=KM-02");
   await expect(page.getByRole("heading", { level: 1, name: "Log a session" })).toBeVisible();
   await page.getByLabel("Supply voltage").fill("18 V");
   await page.getByLabel("Average current").fill("1.1 A");
@@ -18,7 +19,6 @@ test("a short run still warming up is flagged on its thermal margin with the pro
   await page.getByLabel("Ambient temperature").fill("22");
   await page.getByLabel("Heat sink at start").fill("22");
   await page.getByLabel("Heat sink at end").fill("87.4");
-  await page.getByLabel("Running frequency").fill("760k");
   await page.getByLabel("Heat-sink samples").fill(RISING_SAMPLES);
   await expect(page.getByText("18 samples read.")).toBeVisible();
   await page.getByRole("button", { name: "Save session" }).click();

@@ -278,3 +278,17 @@ describe("assessCoilHealth: open failures", () => {
     );
   });
 });
+
+describe("assessCoilHealth: the order of reasons", () => {
+  it("puts the projection that reaches its limit soonest first among findings of one severity", () => {
+    // Voltage headroom falling slowly, thermal quickly: both on watch; thermal reaches its limit first.
+    const coil = simulateCoil({ seed: 21, voltageHeadroom: [0.6, -0.0012] });
+    const now = addDays(START, coil.lastDay);
+    const sessions = coil.sessions.map((s, i) => ({ ...s, thermalHeadroom: 0.7 - i * 0.012 }));
+    const health = assessCoilHealth({ ...coil, sessions, now });
+    const projections = health.findings.filter((f) => f.daysAway !== undefined);
+    expect(projections.map((f) => f.subject)).toEqual(["thermal headroom", "voltage headroom"]);
+    expect(projections[0]!.daysAway!).toBeLessThan(projections[1]!.daysAway!);
+    expect(health.reasons[0]).toMatch(/^Thermal headroom is falling/);
+  });
+});

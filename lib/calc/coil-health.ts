@@ -138,7 +138,11 @@ export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
     ...heatSinkRisePerWatt.findings,
   ];
   const severityOrder: Record<FindingSeverity, number> = { hold: 0, watch: 1, info: 2 };
-  findings.sort((a, b) => severityOrder[a.severity] - severityOrder[b.severity]);
+  // Most severe first; within a severity, margins by how soon they reach their limit (already there, then the
+  // nearest projected crossing), then the other findings in their usual order, so the first reason (the one a
+  // dashboard row shows) is the most urgent. Two projections cannot swap with the clock alone: both count down together.
+  const urgency = (f: HealthFinding) => f.daysAway ?? Number.POSITIVE_INFINITY;
+  findings.sort((a, b) => severityOrder[a.severity] - severityOrder[b.severity] || Math.sign(urgency(a) - urgency(b)) || 0);
   const anyTrend = Object.values(margins).some((m) => m.trend !== null);
   const status: HealthStatus = findings.some((f) => f.severity === "hold")
     ? "hold"

@@ -56,4 +56,9 @@ export interface HealthFinding {
   subject: string;
   /** The sentence for the steward, with its figures. */
   text: string;
+  /**
+   * How many days until the margin is at its limit: 0 for a reading already below or near it, the projected crossing
+   * for a falling trend; absent for findings that are not about a margin's limit. Orders findings of one severity.
+   */
+  daysAway?: number;
 }

@@ -55,13 +55,14 @@ export function assessMarginDrift(args: {
   const { name, threshold, series, thresholds } = args;
   const label = `${name} headroom`;
   const findings: HealthFinding[] = [];
-  const add = (severity: FindingSeverity, text: string) => findings.push({ severity, subject: label, text });
+  const add = (severity: FindingSeverity, text: string, daysAway?: number) =>
+    findings.push({ severity, subject: label, text, ...(daysAway === undefined ? {} : { daysAway }) });
   const latest = series[series.length - 1] ?? null;
 
   if (latest !== null && latest.value < threshold - HEADROOM_TOLERANCE) {
-    add("hold", describeMarginBelowLimit(label, latest.value, threshold, latest.at));
+    add("hold", describeMarginBelowLimit(label, latest.value, threshold, latest.at), 0);
   } else if (latest !== null && latest.value < threshold + thresholds.nearMargin) {
-    add("watch", describeMarginNearLimit(label, latest.value, threshold, thresholds.nearMargin));
+    add("watch", describeMarginNearLimit(label, latest.value, threshold, thresholds.nearMargin), 0);
   }
 
   if (series.length < MIN_OBSERVATIONS_FOR_TREND) {
@@ -88,6 +89,7 @@ export function assessMarginDrift(args: {
         threshold,
         crossing,
       }),
+      Number.isFinite(daysAway) ? daysAway : undefined,
     );
   }
   return { margin: name, threshold, observations: series.length, latest, trend, falling, crossing, findings };
