@@ -128,7 +128,6 @@ export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
   const failureFindings = (input.openFailures ?? []).map((failure, i) => describeOpenFailure(failure, i));
 
   const findings = [
-    ...failureFindings,
     ...margins.voltage.findings,
     ...margins.current.findings,
     ...margins.thermal.findings,
@@ -143,6 +142,8 @@ export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
   // dashboard row shows) is the most urgent. Two projections cannot swap with the clock alone: both count down together.
   const urgency = (f: HealthFinding) => f.daysAway ?? Number.POSITIVE_INFINITY;
   findings.sort((a, b) => severityOrder[a.severity] - severityOrder[b.severity] || Math.sign(urgency(a) - urgency(b)) || 0);
+  // An open failure leads: until its post-mortem, it says more about the coil than any margin.
+  findings.unshift(...failureFindings);
   const anyTrend = Object.values(margins).some((m) => m.trend !== null);
   const status: HealthStatus = findings.some((f) => f.severity === "hold")
     ? "hold"
