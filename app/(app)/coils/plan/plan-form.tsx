@@ -243,17 +243,7 @@ export function PlanForm({ starts, canSave }: { starts: PlanStartingPoints; canS
         <fieldset>
           <legend>Transistor</legend>
           <div className="grid-2">
-            <div className="field">
-              <label htmlFor="plan-pick-switch">Pick one used in the fleet</label>
-              <select id="plan-pick-switch" value="" onChange={(e) => pickSwitch(e.target.value)}>
-                <option value="">—</option>
-                {starts.switches.map((p) => (
-                  <option key={p.partNumber} value={p.partNumber}>
-                    {p.partNumber}
-                  </option>
-                ))}
-              </select>
-            </div>
+            <FleetPartPicker id="plan-pick-switch" parts={starts.switches} onPick={pickSwitch} />
             {field("switchPartNumber", "Part number")}
             <div className="field">
               <label htmlFor="plan-switchType">Type</label>
@@ -276,17 +266,7 @@ export function PlanForm({ starts, canSave }: { starts: PlanStartingPoints; canS
         <fieldset>
           <legend>Heat sink</legend>
           <div className="grid-2">
-            <div className="field">
-              <label htmlFor="plan-pick-sink">Pick one used in the fleet</label>
-              <select id="plan-pick-sink" value="" onChange={(e) => pickSink(e.target.value)}>
-                <option value="">—</option>
-                {starts.heatSinks.map((p) => (
-                  <option key={p.partNumber} value={p.partNumber}>
-                    {p.partNumber}
-                  </option>
-                ))}
-              </select>
-            </div>
+            <FleetPartPicker id="plan-pick-sink" parts={starts.heatSinks} onPick={pickSink} />
             {field("sinkPartNumber", "Heat-sink part number")}
             {field("sinkThermalResistanceKPerW", "Rθsa (sink to ambient)")}
             {field("sinkMassKg", "Heat-sink mass", "Aluminium assumed; needed for the longest run.")}
@@ -416,5 +396,22 @@ function ComparisonTable({ comparison }: { comparison: PlanComparison }) {
         </details>
       ))}
     </section>
+  );
+}
+
+/** "Pick one used in the fleet": fills a variant's part fields from a part some coil already has. */
+function FleetPartPicker({ id, parts, onPick }: { id: string; parts: readonly { partNumber: string }[]; onPick: (partNumber: string) => void }) {
+  return (
+    <div className="field">
+      <label htmlFor={id}>Pick one used in the fleet</label>
+      <select id={id} value="" onChange={(e) => onPick(e.target.value)}>
+        <option value="">—</option>
+        {parts.map((p) => (
+          <option key={p.partNumber} value={p.partNumber}>
+            {p.partNumber}
+          </option>
+        ))}
+      </select>
+    </div>
   );
 }
