@@ -45,7 +45,7 @@ export default async function PredictionQualityPage() {
                   <th scope="row">{MODEL_LABEL[model]}</th>
                   <td className="num">{summary?.count ?? 0}</td>
                   <td className="num">{summary ? signed(summary.median) : "—"}</td>
-                  <td className="num">{summary ? `${signed(summary.lowerQuartile)} to ${signed(summary.upperQuartile)}` : "—"}</td>
+                  <td className="num nowrap">{summary ? `${signed(summary.lowerQuartile)} to ${signed(summary.upperQuartile)}` : "—"}</td>
                   <td>
                     {summary ? (
                       <>
