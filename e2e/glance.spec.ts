@@ -85,6 +85,8 @@ test("the coil page opens on its key figures: health, clearance, loan and the th
   await page.setViewportSize(PHONE);
   await page.goto("/coils/KM-03");
   await expect(page.getByRole("region", { name: "At a glance" })).toBeVisible();
+  // The band stacks on a phone: the page does not scroll sideways.
+  expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(1);
   await attachScreenshot(page, testInfo, "coil-page-390x844");
 });
 
