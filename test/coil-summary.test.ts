@@ -31,6 +31,9 @@ import { failureSchema, postMortemSchema } from "@/lib/validation/failure";
 import { logbookDocumentSchema } from "@/lib/validation/export";
 import { clearanceDecisionSchema } from "@/lib/validation/clearance";
 import { DEFAULT_CLEARANCE_POLICY } from "@/lib/calc/clearance-policy";
+import { readCoilPage } from "@/lib/db/coil-page";
+import { judgeCoil } from "@/lib/analysis/coil-health-input";
+import { HEADROOM_TREND_SESSIONS } from "@/lib/analysis/headroom-trend";
 
 const DAY = 86_400_000;
 
@@ -197,6 +200,27 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
     const warm = await getFleetOverview(now);
     expect(warm[0]!.health).toBe("hold");
     expect(warm).toEqual(await fromScratch(now));
+  });
+
+  it("stores each coil's recent headrooms per margin with the policy's thresholds, and recomputes a row stored without them", async () => {
+    const admin = await makeUser("a@club.test", "admin");
+    const now = new Date();
+    const coil = await makeCleanCoil("SU-30", now);
+    const page = (await readCoilPage("SU-30"))!;
+    const judged = judgeCoil(page.history, page.policy.rules, now);
+    const [row] = await getFleetOverview(now);
+    // The trend is the judgement's own sessions, oldest first (the same figures the health verdict read).
+    expect(judged.analyzed.length).toBeGreaterThan(1);
+    expect(row!.headroomTrend.voltage.headrooms).toEqual(judged.analyzed.slice(-HEADROOM_TREND_SESSIONS).map((a) => a.analysis.margins.voltage.headroom));
+    expect(row!.headroomTrend.thermal.headrooms).toEqual(judged.analyzed.slice(-HEADROOM_TREND_SESSIONS).map((a) => a.analysis.margins.thermal.headroom));
+    expect(row!.headroomTrend.current.threshold).toBe(DEFAULT_CLEARANCE_POLICY.minCurrentHeadroom);
+    // A row written before the column existed (the migration leaves it NULL) is not trusted: it is recomputed and stored.
+    await testDb.coilSummary.update({ where: { coilId: coil.id }, data: { headroomTrendJson: null } });
+    expect((await getFleetOverview(now))[0]!.headroomTrend).toEqual(row!.headroomTrend);
+    expect((await testDb.coilSummary.findUniqueOrThrow({ where: { coilId: coil.id } })).headroomTrendJson).not.toBeNull();
+    // A new policy version redraws the limit line.
+    await savePolicyVersion(admin.id, { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.5 }, "stricter");
+    expect((await getFleetOverview(now))[0]!.headroomTrend.voltage.threshold).toBe(0.5);
   });
 
   it("after the clock passes a summary's validUntil, and not before", async () => {

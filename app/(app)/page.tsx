@@ -9,6 +9,8 @@ import { COIL_STATUS_LABEL } from "@/app/ui/labels";
 import { ClearanceBadge } from "./clearances/clearance-badge";
 import { MarginCell } from "./fleet/margin-cell";
 import { FleetFilters } from "./fleet/fleet-filters";
+import { HeadroomSparkline } from "@/app/ui/headroom-trend-picture";
+import { shortenReason } from "@/lib/analysis/short-reason";
 
 export const metadata: Metadata = { title: "Fleet" };
 
@@ -64,7 +66,7 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
             <tr>
               <th scope="col">Coil</th>
               <th scope="col">Health and reasons</th>
-              <th scope="col">Latest margins (headroom)</th>
+              <th scope="col">Margins: recent trend, latest headroom</th>
               <th scope="col">Use</th>
               <th scope="col">Clearance</th>
               <th scope="col">Loan</th>
@@ -83,10 +85,10 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
                 </th>
                 <td>
                   <span className={`badge badge-${HEALTH_TONE[row.health]}`}>{row.health}</span>
-                  {row.reasons[0] && <p className="reason">{row.reasons[0]}</p>}
-                  {row.reasons.length > 1 && (
+                  {row.reasons[0] && <p className="reason">{shortenReason(row.reasons[0])}</p>}
+                  {(row.reasons.length > 1 || (row.reasons[0] !== undefined && shortenReason(row.reasons[0]) !== row.reasons[0].replace(/\.$/, ""))) && (
                     <details>
-                      <summary>All {row.reasons.length} reasons</summary>
+                      <summary>{row.reasons.length > 1 ? `All ${row.reasons.length} reasons` : "In full"}</summary>
                       <ul>
                         {row.reasons.map((r, i) => (
                           <li key={i}>{r}</li>
@@ -96,18 +98,18 @@ export default async function FleetPage({ searchParams }: { searchParams: Promis
                   )}
                 </td>
                 <td>
-                  <dl className="stacked">
+                  <dl className="stacked margin-trends">
                     <dt>Voltage</dt>
                     <dd>
-                      <MarginCell margin={row.latestMargins?.voltage} />
+                      <HeadroomSparkline kind="voltage" series={row.headroomTrend.voltage} /> <MarginCell margin={row.latestMargins?.voltage} />
                     </dd>
                     <dt>Current</dt>
                     <dd>
-                      <MarginCell margin={row.latestMargins?.current} />
+                      <HeadroomSparkline kind="current" series={row.headroomTrend.current} /> <MarginCell margin={row.latestMargins?.current} />
                     </dd>
                     <dt>Thermal</dt>
                     <dd>
-                      <MarginCell margin={row.latestMargins?.thermal} />
+                      <HeadroomSparkline kind="thermal" series={row.headroomTrend.thermal} /> <MarginCell margin={row.latestMargins?.thermal} />
                     </dd>
                   </dl>
                 </td>

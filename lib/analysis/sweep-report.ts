@@ -27,12 +27,15 @@ export interface ImpedanceCurve {
 }
 
 /** |Z| = R·m/(1 − m) for each reading (dividerImpedance without phase: Z taken as in phase). */
-export function impedanceCurve(sweep: { seriesResistanceOhm: number; sourceAmplitudeV: number; points: readonly { frequencyHz: number; amplitudeV: number }[] }): ImpedanceCurve {
+export function impedanceCurve(
+  sweep: { seriesResistanceOhm: number; sourceAmplitudeV: number; points: readonly { frequencyHz: number; amplitudeV: number }[] },
+  buckets = CHART_BUCKETS,
+): ImpedanceCurve {
   const points = sweep.points.map((p) => ({
     x: p.frequencyHz,
     y: dividerImpedance({ seriesResistance: sweep.seriesResistanceOhm, sourceAmplitude: sweep.sourceAmplitudeV, measuredAmplitude: p.amplitudeV }),
   }));
-  const thinned = decimateMinMax(points, CHART_BUCKETS, true);
+  const thinned = decimateMinMax(points, buckets, true);
   return { points: thinned, total: points.length, decimated: thinned.length < points.length };
 }
 

@@ -9,8 +9,9 @@ import { getCoilPageHistory } from "./coil-history";
 import { getCoilTimeline } from "./coil-timeline";
 import { getCurrentPolicy } from "./policy";
 import { HEALTH_WINDOW } from "../analysis/health-window";
+import type { TimelineFilter } from "../validation/timeline";
 
-export async function readCoilPage(tag: string, timelineLimit = 25) {
+export async function readCoilPage(tag: string, timelineLimit = 25, timelineFilter: TimelineFilter | null = null) {
   const coil = await getCoilByTag(tag);
   if (!coil) return null;
   const [history, policy] = await Promise.all([getCoilPageHistory(coil.id, coil), getCurrentPolicy()]);
@@ -21,7 +22,7 @@ export async function readCoilPage(tag: string, timelineLimit = 25) {
     topLoads: history.topLoads,
     // The history holds the newest HEALTH_WINDOW.recentSessions sessions; a longer timeline reads its own.
     sessionsIncludingNewest: timelineLimit <= HEALTH_WINDOW.recentSessions ? history.sessions : undefined,
-  });
+  }, timelineFilter);
   return { coil, history, timeline, policy };
 }
 

@@ -19,6 +19,7 @@ import { judgeCoil } from "../analysis/coil-health-input";
 import { computeHealthValidUntil } from "../analysis/health-validity";
 import type { HealthStatus } from "../calc/coil-health";
 import { briefSessionMargins, type SessionMarginsBrief } from "../analysis/margin-brief";
+import { collectHeadroomTrend, type HeadroomTrend } from "../analysis/headroom-trend";
 
 /** Records that the coil's logbook changed. Call it in the same transaction as the write. */
 export async function markCoilChanged(tx: Tx, coilId: string): Promise<void> {
@@ -31,6 +32,8 @@ export interface CoilFigures {
   reasons: string[];
   /** The latest session's margins in brief (headroom, status, formula): what the dashboard shows. */
   latestMargins: SessionMarginsBrief | null;
+  /** The last few sessions' headrooms per margin with the policy's thresholds (the dashboard's trend pictures). */
+  headroomTrend: HeadroomTrend;
   sessionCount: number;
   totalRunS: number;
   lastSessionAt: Date | null;
@@ -48,6 +51,7 @@ export function computeCoilFigures({ coil, components, sessions, sweeps, openFai
     health: judged.health?.status ?? "not enough data",
     reasons: judged.reasons,
     latestMargins: judged.latest ? briefSessionMargins(judged.latest.analysis.margins) : null,
+    headroomTrend: collectHeadroomTrend(judged.analyzed, policy.rules),
     sessionCount: totals.sessionCount,
     totalRunS: totals.totalDurationS,
     lastSessionAt: totals.lastSessionAt,
@@ -64,11 +68,12 @@ export function readCurrentFigures(row: CoilSummary, policyVersion: number, now:
     row.computedAt !== null &&
     row.computedAt.getTime() <= now.getTime() &&
     (row.validUntil === null || now.getTime() < row.validUntil.getTime());
-  if (!current || row.health === null || !HEALTH_STATUSES.includes(row.health) || row.reasonsJson === null || row.latestMarginsJson === null) return null;
+  if (!current || row.health === null || !HEALTH_STATUSES.includes(row.health) || row.reasonsJson === null || row.latestMarginsJson === null || row.headroomTrendJson === null) return null;
   return {
     health: row.health as HealthStatus,
     reasons: JSON.parse(row.reasonsJson) as string[],
     latestMargins: JSON.parse(row.latestMarginsJson) as SessionMarginsBrief | null,
+    headroomTrend: JSON.parse(row.headroomTrendJson) as HeadroomTrend,
     sessionCount: row.sessionCount,
     totalRunS: row.totalRunS,
     lastSessionAt: row.lastSessionAt,
@@ -123,6 +128,7 @@ export async function storeCoilFigures(computed: readonly ComputedFigures[], pol
           health: figures.health,
           reasonsJson: JSON.stringify(figures.reasons),
           latestMarginsJson: JSON.stringify(figures.latestMargins),
+          headroomTrendJson: JSON.stringify(figures.headroomTrend),
           sessionCount: figures.sessionCount,
           totalRunS: figures.totalRunS,
           lastSessionAt: figures.lastSessionAt,

@@ -5,8 +5,38 @@
  */
 import { prisma } from "./client";
 import { Prisma } from "./generated/client";
+import type { TimelineFilter } from "../validation/timeline";
 
 export type TimelineKind = "session" | "sweep" | "failure" | "part-fitted" | "part-removed" | "clearance" | "loan-out" | "loan-back";
+
+/** Which event kinds each filter of the coil page's logbook keeps. */
+export const TIMELINE_FILTER_KINDS: Record<TimelineFilter, readonly TimelineKind[]> = {
+  sessions: ["session"],
+  sweeps: ["sweep"],
+  failures: ["failure"],
+  parts: ["part-fitted", "part-removed"],
+  clearances: ["clearance"],
+  loans: ["loan-out", "loan-back"],
+};
+
+type RecordCounts = { sessions: number; sweeps: number; failures: number; components: number; clearances: number; loans: number };
+
+/** How many records stand behind a filter's events (a part or a loan gives one or two: fitted/removed, out/back). */
+function countEvents(counts: RecordCounts, filter: TimelineFilter | null): number {
+  switch (filter) {
+    case "sessions":
+    case "sweeps":
+    case "failures":
+    case "clearances":
+      return counts[filter];
+    case "parts":
+      return counts.components;
+    case "loans":
+      return counts.loans;
+    case null:
+      return counts.sessions + counts.sweeps + counts.failures + counts.components + counts.clearances + counts.loans;
+  }
+}
 
 export interface TimelineEvent {
   kind: TimelineKind;
@@ -63,7 +93,11 @@ function newestFirst<T extends { id: string }>(rows: readonly T[], at: (row: T) 
     .slice(0, take);
 }
 
-export async function getCoilTimeline(coilId: string, limit = 25, known?: KnownTimelineRecords) {
+/**
+ * The coil's newest `limit` events, of the kinds `filter` keeps (null: every kind). Each kind is read newest first up to
+ * `limit`, so a filtered timeline still shows up to `limit` of its kind.
+ */
+export async function getCoilTimeline(coilId: string, limit = 25, known?: KnownTimelineRecords, filter: TimelineFilter | null = null) {
   const take = limit;
   const knownParts = known?.parts;
   const knownSweeps = known?.sweeps && known.topLoads ? { sweeps: known.sweeps, topLoadName: new Map(known.topLoads.map((t) => [t.id, t.name])) } : null;
@@ -111,7 +145,10 @@ export async function getCoilTimeline(coilId: string, limit = 25, known?: KnownT
     ...loansOut.map((l) => ({ kind: "loan-out" as const, at: l.outAt, title: "Lent out", detail: `to ${l.borrower} for ${l.event}`, href: null })),
     ...loansBack.map((l) => ({ kind: "loan-back" as const, at: l.returnedAt!, title: "Returned", detail: `from ${l.borrower}${l.returnCondition ? ` (${l.returnCondition})` : ""}`, href: null })),
   ];
-  events.sort((a, b) => b.at.getTime() - a.at.getTime());
-  const total = counts ? counts.sessions + counts.sweeps + counts.failures + counts.components + counts.clearances + counts.loans : 0;
-  return { events: events.slice(0, limit), counts, truncated: total > limit };
+  const kept = filter === null ? events : events.filter((e) => TIMELINE_FILTER_KINDS[filter].includes(e.kind));
+  kept.sort((a, b) => b.at.getTime() - a.at.getTime());
+  const shown = kept.slice(0, limit);
+  // More than shown: more events were read than fit, or more records exist than events shown (each gives at least one).
+  const truncated = kept.length > limit || (counts !== null && countEvents(counts, filter) > shown.length);
+  return { events: shown, counts, truncated };
 }

@@ -14,6 +14,7 @@ import { findPartReplacements } from "../analysis/clearance-facts";
 import { describeClearanceState, type ClearanceState } from "../analysis/clearance-state";
 import type { HealthStatus } from "../calc/coil-health";
 import type { SessionMarginsBrief } from "../analysis/margin-brief";
+import type { HeadroomTrend } from "../analysis/headroom-trend";
 import type { FleetQuery } from "../validation/fleet-query";
 import { collectPartKinds, computePartExposures, countFailureModesByPart } from "../analysis/part-hours";
 import { partReliability } from "../calc/reliability";
@@ -26,6 +27,7 @@ export interface FleetRow {
   health: HealthStatus;
   reasons: string[];
   latestMargins: SessionMarginsBrief | null;
+  headroomTrend: HeadroomTrend;
   sessionCount: number;
   hoursRun: number;
   lastSessionAt: Date | null;
@@ -97,6 +99,7 @@ export async function getFleetOverview(now: Date = new Date()): Promise<FleetRow
         health: figures.health,
         reasons: figures.reasons,
         latestMargins: figures.latestMargins,
+        headroomTrend: figures.headroomTrend,
         sessionCount: figures.sessionCount,
         hoursRun: figures.totalRunS / 3600,
         lastSessionAt: figures.lastSessionAt,

@@ -18,6 +18,12 @@ import { PartsSection } from "./parts-section";
 import { TimelineSection } from "./timeline-section";
 import { RetireTopLoadButton } from "./top-load-forms";
 import { checkMeasuredInductance } from "@/lib/analysis/inductance-plausibility";
+import { collectHeadroomTrend } from "@/lib/analysis/headroom-trend";
+import { plotSweepThumbnail } from "@/lib/analysis/sweep-thumbnail";
+import { readCoilStanding } from "@/lib/db/coil-standing";
+import { readSweepThumbnail } from "@/lib/db/sweep-thumbnail";
+import { timelineFilterSchema } from "@/lib/validation/timeline";
+import { GlanceBand, type SweepThumbnail } from "./glance-band";
 
 type Props = { params: Promise<{ tag: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -27,19 +33,33 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 
 /** Health judged by the one coil judgement under the current lending policy, as the dashboard and the trends page judge it. */
 function assess(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
-  const { health, latest } = judgeCoil(history, rules, new Date());
-  return { health, latest: latest ? { id: latest.session.id, startedAt: latest.session.startedAt, analysis: latest.analysis } : null };
+  const { health, reasons, latest, analyzed } = judgeCoil(history, rules, new Date());
+  return {
+    health,
+    reasons,
+    latest: latest ? { id: latest.session.id, startedAt: latest.session.startedAt, analysis: latest.analysis } : null,
+    trend: collectHeadroomTrend(analyzed, rules),
+  };
 }
 
 export default async function CoilPage({ params, searchParams }: Props) {
   const user = await pageUser();
   const tag = decodeURIComponent((await params).tag);
   const query = await searchParams;
-  const records = await readCoilPage(tag);
+  const timelineFilter = timelineFilterSchema.parse(query.log);
+  const records = await readCoilPage(tag, undefined, timelineFilter);
   if (!records) notFound();
   const { coil, history, timeline, policy } = records;
-  const comparison = await readCoilComparison(history);
-  const { health, latest } = assess(history, policy.rules);
+  const latestSweepId = history.sweeps.at(-1)?.id;
+  const [comparison, standing, latestSweep] = await Promise.all([
+    readCoilComparison(history),
+    readCoilStanding(coil.id, coil.components),
+    latestSweepId ? readSweepThumbnail(latestSweepId) : null,
+  ]);
+  const { health, reasons, latest, trend } = assess(history, policy.rules);
+  const sweepThumbnail: SweepThumbnail | null = latestSweep
+    ? { id: latestSweep.id, takenAt: latestSweep.takenAt, plot: plotSweepThumbnail(latestSweep), pointCount: latestSweep.points.length }
+    : null;
   const canEdit = hasRole(user.role, "steward");
   const base = `/coils/${encodeURIComponent(coil.tag)}`;
   const justSaved = query.added ?? query.saved;
@@ -54,6 +74,7 @@ export default async function CoilPage({ params, searchParams }: Props) {
         </h1>
         <span className={`badge badge-${coil.status}`}>{COIL_STATUS_LABEL[coil.status]}</span>
       </div>
+      <GlanceBand health={health} reasons={reasons} latest={latest} standing={standing} rules={policy.rules} trend={trend} sweep={sweepThumbnail} />
       <p className="lede">
         Built by {coil.builderName}. {TOPOLOGY_LABEL[coil.topology]} driver.
         {coil.createdBy ? ` Recorded by ${coil.createdBy.name}.` : ""}
@@ -142,7 +163,7 @@ export default async function CoilPage({ params, searchParams }: Props) {
       <PlanSection planJson={coil.planJson} measuredInductanceH={coil.measuredInductanceH} sweeps={history.sweeps} sessions={history.sessions} />
       <PredictionSection comparison={comparison} />
       <PartsSection tag={coil.tag} parts={coil.components} canEdit={canEdit} />
-      <TimelineSection tag={coil.tag} events={timeline.events} truncated={timeline.truncated} counts={timeline.counts} />
+      <TimelineSection tag={coil.tag} events={timeline.events} truncated={timeline.truncated} counts={timeline.counts} filter={timelineFilter} />
 
       <section aria-labelledby="export" className="no-print">
         <h2 id="export">Export</h2>

@@ -1,0 +1,70 @@
+/**
+ * The coil page band's own reads (lib/db/coil-standing.ts, lib/db/sweep-thumbnail.ts) are raw SQL, so they are
+ * checked here against an independent answer on both databases: the standing against the dashboard's row for the
+ * same coil (the same clearance state and loan), the sweep's points against the query API's.
+ */
+import { beforeEach, describe, expect, it } from "vitest";
+import { makeUser, resetDatabase, testDb } from "./support/db";
+import { ALL_YES, makeCleanCoil } from "./fleet-fixtures";
+import { signClearance } from "@/lib/db/clearances";
+import { createLoan } from "@/lib/db/loans";
+import { getFleetOverview } from "@/lib/db/fleet";
+import { readCoilStanding } from "@/lib/db/coil-standing";
+import { readSweepThumbnail } from "@/lib/db/sweep-thumbnail";
+import { plotSweepThumbnail } from "@/lib/analysis/sweep-thumbnail";
+import { clearanceDecisionSchema } from "@/lib/validation/clearance";
+
+beforeEach(resetDatabase);
+
+const DAY = 86_400_000;
+
+describe("the coil page band's reads", () => {
+  it("a coil's standing is the dashboard's clearance and loan for it: none, then cleared, then out", async () => {
+    const steward = await makeUser("s@club.test", "steward");
+    const now = new Date();
+    const coil = await makeCleanCoil("GL-01", now);
+    const standingNow = async () => readCoilStanding(coil.id, await testDb.component.findMany({ where: { coilId: coil.id }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }), now);
+    const dashboardRow = async () => (await getFleetOverview(now)).find((r) => r.id === coil.id)!;
+
+    let standing = await standingNow();
+    expect(standing.clearance.kind).toBe("none");
+    expect(standing.activeLoan).toBeNull();
+
+    await signClearance(steward.id, clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES }), new Date(now.getTime() - 1000));
+    await createLoan(steward.id, { coilId: coil.id, borrower: "Riverside Library", borrowerContact: "", event: "Family science morning", expectedBackAt: new Date(now.getTime() + 3 * DAY) }, new Date(now.getTime() - 500));
+    standing = await standingNow();
+    const row = await dashboardRow();
+    expect(standing.clearance.kind).toBe("valid");
+    expect(standing.clearance).toEqual(row.clearance);
+    // The dashboard's loan row also names its coil; the coil page knows which coil it is on.
+    const { coilId: _coilId, ...dashboardLoan } = row.activeLoan as NonNullable<typeof row.activeLoan> & { coilId: string };
+    expect(standing.activeLoan).toEqual(dashboardLoan);
+    expect(standing.activeLoan!.borrower).toBe("Riverside Library");
+  });
+
+  it("reads only the one sweep's points, in frequency order, as the query API does; a missing sweep is null", async () => {
+    const now = new Date();
+    const coil = await makeCleanCoil("GL-02", now);
+    const sweep = await testDb.sweep.findFirstOrThrow({ where: { coilId: coil.id } });
+    const other = await testDb.sweep.create({ data: { coilId: coil.id, takenAt: now, seriesResistanceOhm: 10_000, sourceAmplitudeV: 10 } });
+    // Stored out of order, and a point of another sweep that must not be read.
+    await testDb.sweepPoint.createMany({
+      data: [
+        { sweepId: sweep.id, frequencyHz: 300_000, amplitudeV: 9 },
+        { sweepId: sweep.id, frequencyHz: 100_000, amplitudeV: 1 },
+        { sweepId: sweep.id, frequencyHz: 200_000, amplitudeV: 0.2 },
+        { sweepId: other.id, frequencyHz: 150_000, amplitudeV: 5 },
+      ],
+    });
+    const read = (await readSweepThumbnail(sweep.id))!;
+    const expected = await testDb.sweepPoint.findMany({ where: { sweepId: sweep.id }, orderBy: [{ frequencyHz: "asc" }, { id: "asc" }], select: { frequencyHz: true, amplitudeV: true } });
+    expect(read.points).toEqual(expected);
+    expect(read).toMatchObject({ id: sweep.id, takenAt: sweep.takenAt, seriesResistanceOhm: 10_000, sourceAmplitudeV: 10 });
+    expect(typeof read.points[0]!.frequencyHz).toBe("number");
+    // Its picture spans the sweep's frequencies.
+    const plot = plotSweepThumbnail(read);
+    expect(plot.xRange![0]).toBeCloseTo(100_000, 6);
+    expect(plot.xRange![1]).toBeCloseTo(300_000, 6);
+    expect(await readSweepThumbnail("no-such-sweep")).toBeNull();
+  });
+});
