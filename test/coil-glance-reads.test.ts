@@ -10,7 +10,7 @@ import { signClearance } from "@/lib/db/clearances";
 import { createLoan } from "@/lib/db/loans";
 import { getFleetOverview } from "@/lib/db/fleet";
 import { readCoilStanding } from "@/lib/db/coil-standing";
-import { readSweepThumbnail } from "@/lib/db/sweep-thumbnail";
+import { readSweepThumbnail, THUMBNAIL_BUCKETS, THUMBNAIL_FULL_READ_MAX } from "@/lib/db/sweep-thumbnail";
 import { plotSweepThumbnail } from "@/lib/analysis/sweep-thumbnail";
 import { clearanceDecisionSchema } from "@/lib/validation/clearance";
 
@@ -66,5 +66,23 @@ describe("the coil page band's reads", () => {
     expect(plot.xRange![0]).toBeCloseTo(100_000, 6);
     expect(plot.xRange![1]).toBeCloseTo(300_000, 6);
     expect(await readSweepThumbnail("no-such-sweep")).toBeNull();
+  });
+
+  it("reads a long sweep already thinned by the database: its lowest and highest readings kept, a few hundred rows", async () => {
+    const now = new Date();
+    const coil = await makeCleanCoil("GL-03", now);
+    const count = THUMBNAIL_FULL_READ_MAX * 5 + 7;
+    const sweep = await testDb.sweep.create({ data: { coilId: coil.id, takenAt: now, seriesResistanceOhm: 10_000, sourceAmplitudeV: 10, pointCount: count } });
+    // A narrow dip and a narrow peak, one reading each, somewhere inside runs: a stride sample would lose them.
+    const points = Array.from({ length: count }, (_, i) => ({ sweepId: sweep.id, frequencyHz: 100_000 + i * 10, amplitudeV: i === 3_333 ? 0.01 : i === 7_777 ? 9.9 : 5 }));
+    await testDb.sweepPoint.createMany({ data: points });
+    const read = (await readSweepThumbnail(sweep.id))!;
+    expect(read.points.length).toBeLessThanOrEqual(2 * THUMBNAIL_BUCKETS);
+    expect(Math.min(...read.points.map((p) => p.amplitudeV))).toBe(0.01);
+    expect(Math.max(...read.points.map((p) => p.amplitudeV))).toBe(9.9);
+    const frequencies = read.points.map((p) => p.frequencyHz);
+    expect(frequencies).toEqual([...frequencies].sort((a, b) => a - b));
+    expect(frequencies[0]!).toBeLessThan(100_000 + 20 * count / THUMBNAIL_BUCKETS);
+    expect(frequencies.at(-1)!).toBeGreaterThan(100_000 + 10 * count - 20 * count / THUMBNAIL_BUCKETS);
   });
 });
