@@ -35,5 +35,6 @@ export async function proxy(request: NextRequest) {
 
 export const config = {
   // Every page, sign-in included (for its CSP); not next-auth's routes, JSON APIs or static assets (the icon too).
-  matcher: ["/((?!api/|_next/|favicon\\.ico|icon\\.svg|robots\\.txt).*)"],
+  // sw.js too: the browser fetches the service worker script itself, and a signed-out redirect would fail its update.
+  matcher: ["/((?!api/|_next/|favicon\\.ico|icon\\.svg|robots\\.txt|sw\\.js).*)"],
 };

@@ -94,6 +94,8 @@ test("pages carry the security headers, with a fresh script nonce each time", as
   expect(csp).toContain("frame-ancestors 'none'");
   expect(csp).toContain("object-src 'none'");
   expect(csp).toContain("base-uri 'self'");
+  // Only this origin's scripts may run as workers (the session form's public/sw.js).
+  expect(csp).toContain("worker-src 'self'");
   expect(csp).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+' 'strict-dynamic'/);
   expect(csp).not.toMatch(/script-src[^;]*'unsafe-inline'/);
   const nonce = /'nonce-([^']+)'/.exec(csp)![1]!;

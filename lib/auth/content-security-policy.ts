@@ -14,6 +14,9 @@ export function buildContentSecurityPolicy(nonce: string, options: { development
     "img-src 'self' blob: data:",
     "font-src 'self'",
     `connect-src 'self'${options.development ? " ws: wss:" : ""}`,
+    // The session form's service worker (public/sw.js). Without this it falls back to script-src, whose
+    // 'strict-dynamic' ignores 'self', so the registration would be refused.
+    "worker-src 'self'",
     "object-src 'none'",
     "base-uri 'self'",
     "form-action 'self'",

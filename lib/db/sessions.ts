@@ -1,8 +1,9 @@
 /** Run sessions: reads and writes. */
-import { prisma } from "./client";
+import { prisma, type Tx } from "./client";
+import { serializableTransaction } from "./serializable";
 import { findCurrentTopLoadId } from "../analysis/current-top-load";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
-import type { Prisma } from "./generated/client";
+import type { Prisma, RunSession } from "./generated/client";
 import { textContains } from "./text-search";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
@@ -58,42 +59,66 @@ export async function findLastTopLoadId(coilId: string): Promise<string | null> 
 /**
  * Stores one session and its heat-sink samples with an audit entry, all in one transaction. The top
  * load must belong to the coil; a session run while the coil was out on loan is linked to that loan.
+ *
+ * With a clientKey (the submission's idempotency key) the session is stored once: a replay or a double tap
+ * with the same key returns the session already stored, with `replayed: true`, and writes nothing. The key is
+ * looked up inside the transaction, which then runs at Serializable isolation (serializable.ts): of two
+ * submits racing with one key, the unique index on RunSession.clientKey (or the isolation) refuses the
+ * second's insert, its transaction rolls back whole (no samples, summary bump or audit event) and runs again,
+ * and this time its look-up finds the winner's session. Without a key nothing is looked up, as before.
  */
-export async function createSession(actorId: string, input: SessionInput) {
-  return prisma.$transaction(async (tx) => {
-    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
-    if (!coil) throw new RecordRefusedError("coilId", "Coil: that coil does not exist.");
-    if (input.topLoadId) {
-      const topLoad = await tx.topLoad.findUnique({ where: { id: input.topLoadId }, select: { coilId: true } });
-      if (!topLoad || topLoad.coilId !== coil.id) throw new RecordRefusedError("topLoadId", `Top load: choose one of ${coil.tag}'s top loads.`);
-    }
-    const loan = await tx.loan.findFirst({
-      where: { coilId: coil.id, outAt: { lte: input.startedAt }, OR: [{ returnedAt: null }, { returnedAt: { gt: input.startedAt } }] },
-      select: { id: true },
-    });
-    const { samples, ...fields } = input;
-    const session = await tx.runSession.create({
-      data: {
-        ...fields,
-        topLoadId: fields.topLoadId ?? null,
-        loggedById: actorId,
-        loanId: loan?.id ?? null,
-        // The warm-up fit goes in with its samples, so every view judges the session from the same steady state.
-        ...fitSessionSamples(samples),
-        samples: { create: samples.map((s) => ({ elapsedS: s.elapsedS, temperatureC: s.temperatureC })) },
-      },
-    });
-    await markCoilChanged(tx, coil.id);
-    await recordAudit(tx, {
-      actorId,
-      action: "create",
-      entity: "RunSession",
-      entityId: session.id,
-      summary: `Logged a ${Math.round(input.durationS / 60)} min session on ${coil.tag} at ${input.supplyVoltageV} V with ${samples.length} heat-sink samples`,
-      detail: { ...fields, sampleCount: samples.length },
-    });
-    return { ...session, coilTag: coil.tag };
+export async function createSession(actorId: string, input: SessionInput): Promise<StoredSession> {
+  const { clientKey } = input;
+  if (!clientKey) return prisma.$transaction((tx) => insertSession(tx, actorId, input));
+  return serializableTransaction(async (tx) => (await findSessionByClientKey(tx, actorId, clientKey)) ?? insertSession(tx, actorId, input));
+}
+
+export type StoredSession = RunSession & { coilTag: string; replayed: boolean };
+
+/** The session stored under `clientKey`, as createSession returns it; refused when another member's submission used the key. */
+async function findSessionByClientKey(tx: Tx, actorId: string, clientKey: string): Promise<StoredSession | null> {
+  const session = await tx.runSession.findUnique({ where: { clientKey }, include: { coil: { select: { tag: true } } } });
+  if (!session) return null;
+  if (session.loggedById !== actorId) {
+    throw new RecordRefusedError("clientKey", "Submission key: it belongs to another member's session; send a new key.");
+  }
+  const { coil, ...fields } = session;
+  return { ...fields, coilTag: coil.tag, replayed: true };
+}
+
+async function insertSession(tx: Tx, actorId: string, input: SessionInput): Promise<StoredSession> {
+  const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
+  if (!coil) throw new RecordRefusedError("coilId", "Coil: that coil does not exist.");
+  if (input.topLoadId) {
+    const topLoad = await tx.topLoad.findUnique({ where: { id: input.topLoadId }, select: { coilId: true } });
+    if (!topLoad || topLoad.coilId !== coil.id) throw new RecordRefusedError("topLoadId", `Top load: choose one of ${coil.tag}'s top loads.`);
+  }
+  const loan = await tx.loan.findFirst({
+    where: { coilId: coil.id, outAt: { lte: input.startedAt }, OR: [{ returnedAt: null }, { returnedAt: { gt: input.startedAt } }] },
+    select: { id: true },
   });
+  const { samples, ...fields } = input;
+  const session = await tx.runSession.create({
+    data: {
+      ...fields,
+      topLoadId: fields.topLoadId ?? null,
+      loggedById: actorId,
+      loanId: loan?.id ?? null,
+      // The warm-up fit goes in with its samples, so every view judges the session from the same steady state.
+      ...fitSessionSamples(samples),
+      samples: { create: samples.map((s) => ({ elapsedS: s.elapsedS, temperatureC: s.temperatureC })) },
+    },
+  });
+  await markCoilChanged(tx, coil.id);
+  await recordAudit(tx, {
+    actorId,
+    action: "create",
+    entity: "RunSession",
+    entityId: session.id,
+    summary: `Logged a ${Math.round(input.durationS / 60)} min session on ${coil.tag} at ${input.supplyVoltageV} V with ${samples.length} heat-sink samples`,
+    detail: { ...fields, sampleCount: samples.length },
+  });
+  return { ...session, coilTag: coil.tag, replayed: false };
 }
 
 /** One session with everything its page shows: the coil, its parts (for the parts fitted that day), samples and failures. */

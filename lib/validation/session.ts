@@ -69,6 +69,16 @@ const samplesField = z
     return result.samples;
   });
 
+/**
+ * The idempotency key of one submission: a UUID the logging client generates once per filled-in form, so a
+ * replayed or double-tapped submit is stored once (lib/db/sessions.ts). Optional: a script that sends none gets
+ * a new session per request, as before.
+ */
+export const clientKeyField = z.preprocess(
+  (v) => (typeof v === "string" && v.trim() === "" ? undefined : typeof v === "string" ? v.trim().toLowerCase() : v),
+  z.uuid({ error: "Submission key: send a UUID such as 0b6f6f64-3f4e-4d59-9c1e-6f1f5d2a7c41, or leave it out." }).optional(),
+);
+
 export const sessionSchema = z
   .object({
     coilId: z.string().min(1, "Coil: choose a coil."),
@@ -86,6 +96,7 @@ export const sessionSchema = z
     outcome: sessionOutcomeSchema.default("normal"),
     notes: z.string().max(5_000, "Notes: at most 5 000 characters.").default(""),
     samples: samplesField,
+    clientKey: clientKeyField,
   })
   .superRefine((s, ctx) => {
     if (s.peakSwitchVoltageV !== undefined && s.peakSwitchVoltageV < s.supplyVoltageV) {

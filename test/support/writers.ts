@@ -7,7 +7,7 @@
 import { vi } from "vitest";
 
 async function loadWriter() {
-  const [client, coils, components, loans, failures, clearances, users, policy, throttle] = await Promise.all([
+  const [client, coils, components, loans, failures, clearances, users, policy, throttle, sessions] = await Promise.all([
     import("@/lib/db/client"),
     import("@/lib/db/coils"),
     import("@/lib/db/components"),
@@ -17,8 +17,9 @@ async function loadWriter() {
     import("@/lib/db/users"),
     import("@/lib/db/policy"),
     import("@/lib/db/sign-in-throttle"),
+    import("@/lib/db/sessions"),
   ]);
-  return { prisma: client.prisma, coils, components, loans, failures, clearances, users, policy, throttle };
+  return { prisma: client.prisma, coils, components, loans, failures, clearances, users, policy, throttle, sessions };
 }
 
 export type Writer = Awaited<ReturnType<typeof loadWriter>>;

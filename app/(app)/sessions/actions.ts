@@ -8,7 +8,10 @@ import { RecordRefusedError } from "@/lib/db/record-refused";
 import { sessionSchema } from "@/lib/validation/session";
 import { echoForm, invalid, refused, type ActionResult } from "@/lib/validation/action-result";
 
-/** Logs a run session with its heat-sink samples, then opens its page. Members and up. */
+/**
+ * Logs a run session with its heat-sink samples, then opens its page. Members and up. The form's hidden
+ * clientKey makes a double tap or a resend open the session already stored instead of storing a second one.
+ */
 export async function logSession(_previous: ActionResult<null> | null, form: FormData): Promise<ActionResult<null>> {
   const result = await guardAction<string>("member", async (user) => {
     const values = echoForm(form);

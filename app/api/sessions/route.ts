@@ -2,6 +2,8 @@
  * POST one run session as JSON, for logging scripts and the load benchmark (bench/session-load.ts). The body is
  * the log form's fields by name ({ coilId, startedAt: "2026-12-02T14:05", supplyVoltageV: "24 V", …, samples:
  * "0, 21\n60, 27" }); numbers may be sent as JSON numbers. Same schema, role and mutation as the form's action.
+ * An optional clientKey (a UUID) makes the submit idempotent: 201 stores it, a resend with the same key answers
+ * 200 with the stored session and `replayed: true` (the offline queue, app/(app)/sessions/new/offline-queue.ts).
  */
 import { revalidatePath } from "next/cache";
 import { guardRoute } from "@/lib/auth/guard";
@@ -36,7 +38,8 @@ export async function POST(request: Request): Promise<Response> {
       const session = await createSession(user.id, parsed.data);
       revalidatePath("/sessions");
       revalidatePath(`/coils/${session.coilTag}`);
-      return Response.json({ ok: true, data: { id: session.id, coilTag: session.coilTag } }, { status: 201 });
+      // A replay of a stored submission (same clientKey) answers 200 with the stored session, not a second one.
+      return Response.json({ ok: true, data: { id: session.id, coilTag: session.coilTag, replayed: session.replayed } }, { status: session.replayed ? 200 : 201 });
     } catch (error) {
       if (error instanceof RecordRefusedError) {
         const status = error.field === "coilId" ? 404 : 422;

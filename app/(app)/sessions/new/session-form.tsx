@@ -1,12 +1,15 @@
 "use client";
 
-import { useActionState, useState, type ChangeEvent } from "react";
+import { useActionState, useEffect, useState, type ChangeEvent } from "react";
 import { logSession } from "../actions";
 import { FieldError, FormStatus } from "@/app/ui/form-status";
 import { OUTCOME_LABEL } from "@/app/ui/labels";
 import { describeSampleError, parseHeatSinkSamples } from "@/lib/import/heat-sink-samples";
 import type { ActionResult } from "@/lib/validation/action-result";
 import { formatCount } from "@/lib/units/format";
+import { newClientKey, removeSubmission, saveSubmission, type QueuedSubmission } from "./offline-queue";
+import { OfflineQueuePanel } from "./offline-queue-panel";
+import { ServiceWorkerRegistration } from "./service-worker-registration";
 
 interface Props {
   coil: { id: string; tag: string; name: string };
@@ -44,12 +47,53 @@ function BenchField(props: { name: string; label: string; hint?: string; state: 
 }
 
 export function SessionForm({ coil, topLoads, defaultTopLoadId, defaultStartedAt }: Props) {
-  const [state, action, pending] = useActionState(logSession, null);
+  // The submission's idempotency key, made in the browser (a key rendered into the page would be shared by every
+  // session logged from the offline copy of it); a new one once a submission is stored or queued.
+  const [clientKey, setClientKey] = useState("");
+  useEffect(() => setClientKey(newClientKey()), []);
+  // A refused offline submission loaded back into the form: shown like a refused submit, until the next one.
+  const [loaded, setLoaded] = useState<ActionResult<null> | null>(null);
+  // Bumped on each load-back, so the uncontrolled fields take the loaded values as their defaults.
+  const [formVersion, setFormVersion] = useState(0);
+  const [actionState, action, pending] = useActionState(async (previous: ActionResult<null> | null, form: FormData): Promise<ActionResult<null>> => {
+    setLoaded(null);
+    if (!navigator.onLine) return queueOnThisDevice(form);
+    try {
+      return await logSession(previous, form);
+    } catch (error) {
+      // The request never reached the server (the connection dropped meanwhile): keep it rather than lose it.
+      if (!navigator.onLine || error instanceof TypeError) return queueOnThisDevice(form);
+      throw error;
+    }
+  }, null);
+  const state = loaded ?? actionState;
   // Controlled, so a refused form keeps the pasted samples and the preview can read them as typed.
   const [samples, setSamples] = useState("");
   const [fileNote, setFileNote] = useState("");
   const preview = samples.trim() === "" ? null : parseHeatSinkSamples(samples);
   const failed = state && !state.ok ? state : null;
+
+  async function queueOnThisDevice(form: FormData): Promise<ActionResult<null>> {
+    const values: Record<string, string> = {};
+    for (const [name, value] of form) if (typeof value === "string" && !name.startsWith("$ACTION") && name !== "clientKey") values[name] = value;
+    const key = String(form.get("clientKey") || "") || newClientKey();
+    try {
+      await saveSubmission({ clientKey: key, coilId: coil.id, coilTag: coil.tag, values, queuedAt: new Date().toISOString(), status: "queued" });
+    } catch {
+      return { ok: false, message: "No connection, and this browser could not keep the session either: copy the readings down before leaving the page.", fieldErrors: {}, values };
+    }
+    setClientKey(newClientKey());
+    setSamples("");
+    return { ok: true, data: null, message: "No connection: the session is saved on this device and will be sent when the connection returns (see below)." };
+  }
+
+  function loadBack(submission: QueuedSubmission) {
+    setClientKey(submission.clientKey);
+    setSamples(submission.values.samples ?? "");
+    setLoaded({ ok: false, message: `Loaded back: ${submission.message ?? "fix the marked fields."} Fix it and save again.`, fieldErrors: submission.fieldErrors ?? {}, values: submission.values });
+    setFormVersion((version) => version + 1);
+    void removeSubmission(submission.clientKey);
+  }
 
   async function importCsv(event: ChangeEvent<HTMLInputElement>) {
     const file = event.target.files?.[0];
@@ -59,11 +103,13 @@ export function SessionForm({ coil, topLoads, defaultTopLoadId, defaultStartedAt
   }
 
   return (
-    <form action={action} className="stack bench-form" aria-labelledby="log-heading" noValidate>
+    <>
+    <form key={formVersion} action={action} className="stack bench-form" aria-labelledby="log-heading" noValidate>
       <h2 id="log-heading">
         Session on {coil.tag} — {coil.name}
       </h2>
       <input type="hidden" name="coilId" value={coil.id} />
+      <input type="hidden" name="clientKey" value={clientKey} />
       <div className="field">
         <label htmlFor="session-topLoadId">Top load</label>
         <select id="session-topLoadId" name="topLoadId" defaultValue={failed?.values?.topLoadId ?? defaultTopLoadId} aria-describedby="session-topLoadId-error">
@@ -134,5 +180,8 @@ export function SessionForm({ coil, topLoads, defaultTopLoadId, defaultStartedAt
       </button>
       <FormStatus id="session-result" state={state} />
     </form>
+    <OfflineQueuePanel coilId={coil.id} onLoad={loadBack} />
+    <ServiceWorkerRegistration />
+    </>
   );
 }
