@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { normalizeDecimalComma, parseClockDuration, parseDecimalNumber, parseQuantity } from "./parse";
+import { keypadFor, normalizeDecimalComma, parseClockDuration, parseDecimalNumber, parseQuantity } from "./parse";
 import { formatQuantity } from "./format";
 
 const value = (text: string, kind: Parameters<typeof parseQuantity>[1], defaultUnit?: string) => {
@@ -149,5 +149,21 @@ describe("decimal commas and clock durations, as phones and stopwatches give the
         expect(withComma).toEqual(withPoint);
       }),
     );
+  });
+});
+
+describe("keypadFor", () => {
+  it("asks for the decimal keypad where a bare number is the usual entry and the full keyboard where letters are", () => {
+    expect(keypadFor("length", "mm")).toBe("decimal");
+    expect(keypadFor("time", "min")).toBe("decimal");
+    expect(keypadFor("temperature")).toBe("decimal");
+    expect(keypadFor("voltage")).toBe("decimal");
+    expect(keypadFor("count")).toBe("decimal");
+    // "330k", "2n2", "4k7", "AWG 28": a bare number would be hertz, farads or ohms, or no gauge at all.
+    expect(keypadFor("frequency")).toBe("text");
+    expect(keypadFor("capacitance")).toBe("text");
+    expect(keypadFor("resistance")).toBe("text");
+    expect(keypadFor("wireDiameter", "mm")).toBe("text");
+    expect(keypadFor("frequency", "kHz")).toBe("decimal");
   });
 });

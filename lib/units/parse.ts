@@ -204,6 +204,18 @@ function finish(value: number, spec: KindSpec, kind: QuantityKind): ParsedQuanti
   return { ok: true, value: kind === "count" ? value : Number(value.toPrecision(12)), unit: spec.unit };
 }
 
+/**
+ * The on-screen keyboard a field of this kind asks a phone for: the decimal keypad when a bare number is
+ * what people type (lengths in mm, volts, minutes, °C…), the full keyboard when the usual entry needs
+ * letters ("330k", "2n2", "4k7", "AWG 28") because a bare number would be read in hertz, farads or ohms.
+ */
+export function keypadFor(kind: QuantityKind, defaultUnit?: string): "decimal" | "text" {
+  if (kind === "wireDiameter") return "text";
+  const bareIsSi = defaultUnit === undefined || defaultUnit === SPECS[kind].unit;
+  if (SPECS[kind].prefixAlone && bareIsSi && kind !== "voltage" && kind !== "current" && kind !== "power") return "text";
+  return "decimal";
+}
+
 export function quantityUnit(kind: QuantityKind): string {
   return SPECS[kind].unit;
 }

@@ -8,7 +8,7 @@
  * own error.
  */
 import { useRef } from "react";
-import { parseQuantity } from "@/lib/units/parse";
+import { keypadFor, parseQuantity } from "@/lib/units/parse";
 
 export interface ReadingRow {
   frequency: string;
@@ -149,6 +149,7 @@ export function ReadingGrid({
                       data-row={row}
                       data-col={col}
                       value={value}
+                      inputMode={keypadFor(column.kind)}
                       autoComplete="off"
                       style={{ minWidth: 0 }}
                       aria-label={`${column.label}, row ${row + 1}`}
