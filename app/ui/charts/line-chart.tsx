@@ -121,6 +121,15 @@ export function LineChart({ title, series, x, y, height = 320 }: LineChartProps)
     const chart = new Chart(canvas.current, {
       type: "line",
       data: { datasets },
+      // The drawn tick labels, mirrored on the canvas so a browser test can read what the axis says.
+      plugins: [
+        {
+          id: "tick-labels",
+          afterUpdate(drawn) {
+            for (const axis of ["x", "y"] as const) drawn.canvas.dataset[`${axis}Ticks`] = (drawn.scales[axis]?.ticks ?? []).map((t) => String(t.label ?? "")).join(" | ");
+          },
+        },
+      ],
       options: {
         animation: false,
         responsive: true,
