@@ -13,6 +13,8 @@ import { computeClearanceExpiry, evaluateClearance, type ClearanceEvaluation, ty
 import { buildClearanceFacts, findPartReplacements, type ClearanceHistory } from "../analysis/clearance-facts";
 import { describeClearanceState, type ClearanceState } from "../analysis/clearance-state";
 import type { ClearanceDecisionInput } from "../validation/clearance";
+import type { HealthStatus } from "../calc/coil-health";
+import { getCoilFigures } from "./coil-summary";
 
 export class ClearanceRefusedError extends Error {
   constructor(
@@ -232,4 +234,14 @@ export async function listClearancesWithState(now: Date = new Date(), take = 100
     );
     return { ...r, state, superseded: latestDecision.get(r.coilId) !== r.id };
   });
+}
+
+/**
+ * The coil's health verdict now, under the current policy: the one judgement the dashboard and the coil
+ * page show (the stored summary, recomputed when stale), so a coil on watch is never cleared in silence.
+ */
+export async function getCoilHealthForClearance(coilId: string, now: Date = new Date()): Promise<{ status: HealthStatus; reasons: string[] } | null> {
+  const policy = await getCurrentPolicy();
+  const figures = (await getCoilFigures([coilId], policy, now)).get(coilId);
+  return figures ? { status: figures.health, reasons: figures.reasons } : null;
 }

@@ -5,7 +5,7 @@
  * Errors name the row (1-based, as a spreadsheet shows it) and the column, and say what was expected.
  */
 import Papa from "papaparse";
-import { parseQuantity } from "../units/parse";
+import { parseClockDuration, parseQuantity } from "../units/parse";
 
 export interface HeatSinkSampleInput {
   elapsedS: number;
@@ -23,19 +23,14 @@ export type SampleParseResult = { ok: true; samples: HeatSinkSampleInput[] } | {
 /** The most samples one session may hold: one a second for over an hour; more is a logger dump, not a bench log. */
 export const MAX_SAMPLES = 5_000;
 
-const CLOCK = /^(\d+):([0-5]?\d(?:\.\d+)?)$|^(\d+):([0-5]?\d):([0-5]?\d(?:\.\d+)?)$/;
-
 /**
  * Elapsed time in seconds from "0:30" (m:ss), "1:02:03" (h:mm:ss), "30 s", "0.5 min", "2 h" or a
  * bare number (seconds). Returns a message when it cannot be read or is negative.
  */
 export function parseSampleTime(text: string): { ok: true; seconds: number } | { ok: false; message: string } {
   const trimmed = text.trim();
-  const clock = CLOCK.exec(trimmed);
-  if (clock) {
-    const seconds = clock[1] !== undefined ? Number(clock[1]) * 60 + Number(clock[2]) : Number(clock[3]) * 3600 + Number(clock[4]) * 60 + Number(clock[5]);
-    return { ok: true, seconds };
-  }
+  const clockSeconds = parseClockDuration(trimmed);
+  if (clockSeconds !== null) return { ok: true, seconds: clockSeconds };
   const parsed = parseQuantity(trimmed, "time");
   if (!parsed.ok) return { ok: false, message: `could not read “${trimmed}” as a time: try 0:30, 30 s or 0.5 min` };
   if (parsed.value < 0) return { ok: false, message: `the time “${trimmed}” is before switch-on; times count from 0` };

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { parseQuantity } from "./parse";
+import { keypadFor, normalizeDecimalComma, parseClockDuration, parseDecimalNumber, parseQuantity } from "./parse";
 import { formatQuantity } from "./format";
 
 const value = (text: string, kind: Parameters<typeof parseQuantity>[1], defaultUnit?: string) => {
@@ -92,5 +92,78 @@ describe("parseQuantity", () => {
         expect(Math.abs(back - x) / x).toBeLessThan(1e-5);
       }),
     );
+  });
+});
+
+describe("decimal commas and clock durations, as phones and stopwatches give them", () => {
+  it("reads a decimal comma in every kind of quantity", () => {
+    expect(value("3,1", "length", "mm")).toBeCloseTo(0.0031, 12);
+    expect(value("0,25 mm", "wireDiameter")).toBeCloseTo(0.00025, 12);
+    expect(value("2,2 nF", "capacitance")).toBeCloseTo(2.2e-9, 21);
+    expect(value("-2,5 °C", "temperature")).toBe(-2.5);
+    expect(value("1,2 K/W", "thermalResistance")).toBeCloseTo(1.2, 12);
+    expect(value("48,5", "voltage")).toBe(48.5);
+  });
+
+  it("refuses a comma that could be a thousands separator rather than guessing", () => {
+    const ambiguous = parseQuantity("1,500", "count");
+    expect(ambiguous.ok).toBe(false);
+    if (!ambiguous.ok) expect(ambiguous.message).toContain("1.500 or 1500");
+    expect(normalizeDecimalComma("12,500 Hz").ok).toBe(false);
+    // A leading zero or a fraction that is not three digits long cannot be a thousands separator.
+    expect(normalizeDecimalComma("0,125")).toEqual({ ok: true, text: "0.125" });
+    expect(normalizeDecimalComma("12,50 mm")).toEqual({ ok: true, text: "12.50 mm" });
+    expect(parseQuantity("3,1,4", "length").ok).toBe(false);
+  });
+
+  it("reads minutes:seconds and hours:minutes:seconds as a duration, whatever unit a bare number takes", () => {
+    expect(parseClockDuration("4:00")).toBe(240);
+    expect(parseClockDuration("0:30.5")).toBe(30.5);
+    expect(parseClockDuration("1:02:03")).toBe(3723);
+    expect(parseClockDuration("4:75")).toBeNull();
+    expect(parseClockDuration("4 min")).toBeNull();
+    expect(value("4:00", "time", "min")).toBe(240);
+    expect(value("12:30", "time")).toBe(750);
+    expect(value("4", "time", "min")).toBe(240);
+    // A clock reading is a duration, not a length or a voltage.
+    expect(parseQuantity("4:00", "length").ok).toBe(false);
+  });
+
+  it("reads plain numbers with a point or a comma and names what it could not read", () => {
+    expect(parseDecimalNumber("2,5")).toEqual({ ok: true, value: 2.5 });
+    expect(parseDecimalNumber(" 10 ")).toEqual({ ok: true, value: 10 });
+    expect(parseDecimalNumber("−3")).toEqual({ ok: true, value: -3 });
+    expect(parseDecimalNumber("2.5 turns").ok).toBe(false);
+    expect(parseDecimalNumber("").ok).toBe(false);
+    expect(parseDecimalNumber("1,000").ok).toBe(false);
+  });
+
+  it("reads any decimal written with a comma as the same value written with a point (property)", () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 99 }), fc.integer({ min: 0, max: 9999 }), (whole, fraction) => {
+        const digits = String(fraction);
+        // Skip the one spelling that is refused as ambiguous: a non-zero whole part and three fraction digits.
+        fc.pre(!(whole > 0 && digits.length === 3));
+        const withComma = parseDecimalNumber(`${whole},${digits}`);
+        const withPoint = parseDecimalNumber(`${whole}.${digits}`);
+        expect(withComma).toEqual(withPoint);
+      }),
+    );
+  });
+});
+
+describe("keypadFor", () => {
+  it("asks for the decimal keypad where a bare number is the usual entry and the full keyboard where letters are", () => {
+    expect(keypadFor("length", "mm")).toBe("decimal");
+    expect(keypadFor("time", "min")).toBe("decimal");
+    expect(keypadFor("temperature")).toBe("decimal");
+    expect(keypadFor("voltage")).toBe("decimal");
+    expect(keypadFor("count")).toBe("decimal");
+    // "330k", "2n2", "4k7", "AWG 28": a bare number would be hertz, farads or ohms, or no gauge at all.
+    expect(keypadFor("frequency")).toBe("text");
+    expect(keypadFor("capacitance")).toBe("text");
+    expect(keypadFor("resistance")).toBe("text");
+    expect(keypadFor("wireDiameter", "mm")).toBe("text");
+    expect(keypadFor("frequency", "kHz")).toBe("decimal");
   });
 });

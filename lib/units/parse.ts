@@ -1,7 +1,8 @@
 /**
  * Reading engineering quantities the way people type them at the bench: "330k", "330 kHz",
- * "2.2 nF", "2n2", "47 kΩ", "4k7", "75 mm", "3 in", "AWG 28", "-12 °C". Returns the value in SI
- * (°C for temperatures) or a message saying what was expected.
+ * "2.2 nF", "2n2", "47 kΩ", "4k7", "75 mm", "3 in", "AWG 28", "-12 °C", with a decimal comma as a phone
+ * set to many locales types it ("3,1 mm"), and durations on a clock ("4:00", "1:02:03"). Returns the value
+ * in SI (°C for temperatures) or a message saying what was expected.
  *
  * Hand-written rather than a units library: the general-purpose ones (mathjs, js-quantities) parse
  * "330 kHz" but not bare prefixed numbers ("47k"), schematic notation ("4k7"), the Ω sign or wire
@@ -73,12 +74,59 @@ const SPECS: Record<QuantityKind, KindSpec> = {
     prefixAlone: false,
     example: "AWG 28 or 0.32 mm",
   },
-  time: { noun: "a duration", unit: "s", units: { s: 1, sec: 1, secs: 1, ms: 1e-3, min: 60, mins: 60, h: 3600, hr: 3600, hrs: 3600 }, prefixAlone: false, example: "12 min or 720 s" },
+  time: { noun: "a duration", unit: "s", units: { s: 1, sec: 1, secs: 1, ms: 1e-3, min: 60, mins: 60, h: 3600, hr: 3600, hrs: 3600 }, prefixAlone: false, example: "12 min, 12:00 or 720 s" },
   temperature: { noun: "a temperature", unit: "°C", units: { "°C": 1, C: 1, degC: 1, "℃": 1 }, prefixAlone: false, example: "45 °C" },
   thermalResistance: { noun: "a thermal resistance", unit: "K/W", units: { "K/W": 1, "°C/W": 1, "C/W": 1 }, prefixAlone: false, example: "1.2 K/W" },
   mass: { noun: "a mass", unit: "kg", units: { kg: 1, g: 1e-3 }, prefixAlone: false, example: "150 g" },
   count: { noun: "a count", unit: "", units: { turns: 1, turn: 1, t: 1 }, prefixAlone: false, example: "900 or 900 turns" },
 };
+
+/** Durations as a stopwatch shows them: m:ss ("4:00") or h:mm:ss ("1:02:03"). */
+const CLOCK = /^(\d+):([0-5]?\d(?:\.\d+)?)$|^(\d+):([0-5]?\d):([0-5]?\d(?:\.\d+)?)$/;
+
+/**
+ * Seconds from a stopwatch reading ("4:00" = 240, "1:02:03" = 3723), or null when `text` is not one.
+ * Minutes:seconds, not hours:minutes: a bench run is timed, not scheduled.
+ */
+export function parseClockDuration(text: string): number | null {
+  const clock = CLOCK.exec(text.trim());
+  if (!clock) return null;
+  return clock[1] !== undefined ? Number(clock[1]) * 60 + Number(clock[2]) : Number(clock[3]) * 3600 + Number(clock[4]) * 60 + Number(clock[5]);
+}
+
+/** A number written with a decimal comma at its start ("3,1", "0,25 mm", "-2,5"). */
+const DECIMAL_COMMA = /^([+-]?\d+),(\d+)(?![\d.,])/;
+/** "1,500" may be one and a half or fifteen hundred: a comma before exactly three digits after a non-zero whole part. */
+const AMBIGUOUS_COMMA = /^([+-]?[1-9]\d{0,2}),(\d{3})(?![\d.,])/;
+
+export type DecimalCommaResult = { ok: true; text: string } | { ok: false; message: string };
+
+/**
+ * Rewrites a leading decimal comma as a point ("3,1 mm" → "3.1 mm") so the rest of the grammar reads
+ * it. A thousands separator is not accepted: "1,500" is refused as ambiguous rather than guessed.
+ */
+export function normalizeDecimalComma(text: string): DecimalCommaResult {
+  const trimmed = text.trim();
+  const ambiguous = AMBIGUOUS_COMMA.exec(trimmed);
+  if (ambiguous) {
+    const [, whole, fraction] = ambiguous;
+    return { ok: false, message: `“${trimmed}” could be ${whole}.${fraction} or ${whole}${fraction}: write it without the comma, or with a point (${whole}.${fraction})` };
+  }
+  return { ok: true, text: trimmed.replace(DECIMAL_COMMA, "$1.$2") };
+}
+
+/**
+ * A plain number without a unit, as a form sends it ("2.5", "2,5", " 10 "): the value, or a message.
+ * For the few fields that are counts or percentages rather than physical quantities.
+ */
+export function parseDecimalNumber(input: string): { ok: true; value: number } | { ok: false; message: string } {
+  const normalized = normalizeDecimalComma(input.replace(/−/g, "-"));
+  if (!normalized.ok) return normalized;
+  const match = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/.exec(normalized.text);
+  const value = match ? Number(match[0]) : Number.NaN;
+  if (!Number.isFinite(value)) return { ok: false, message: `could not read “${input.trim()}” as a number` };
+  return { ok: true, value };
+}
 
 const NUMBER = /^([+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*)$/;
 /** Schematic notation: the prefix letter stands for the decimal point ("4k7" = 4.7k, "2n2" = 2.2n, "4R7" = 4.7). */
@@ -90,9 +138,16 @@ const SCHEMATIC = /^(\d+)([pnuµμmkKMGR])(\d+)\s*(.*)$/;
  */
 export function parseQuantity(input: string, kind: QuantityKind, defaultUnit?: string): ParsedQuantity {
   const spec = SPECS[kind];
-  const text = input.trim().replace(/\s+/g, " ").replace(/−/g, "-");
+  const spaced = input.trim().replace(/\s+/g, " ").replace(/−/g, "-");
   const fail = (): ParsedQuantity => ({ ok: false, message: `Could not read “${input.trim()}” as ${spec.noun}: try ${spec.example}.` });
-  if (text === "") return { ok: false, message: `Enter ${spec.noun}, like ${spec.example}.` };
+  if (spaced === "") return { ok: false, message: `Enter ${spec.noun}, like ${spec.example}.` };
+  if (kind === "time") {
+    const clockSeconds = parseClockDuration(spaced);
+    if (clockSeconds !== null) return finish(clockSeconds, spec, kind);
+  }
+  const normalized = normalizeDecimalComma(spaced);
+  if (!normalized.ok) return { ok: false, message: `${normalized.message}.` };
+  const text = normalized.text;
 
   if (kind === "wireDiameter") {
     const gauge = /^(?:awg|#)\s*(\d{1,2}|0{1,4}|[1-4]\/0)$|^(\d{1,2}|0{1,4}|[1-4]\/0)\s*(?:awg|ga|gauge)$/i.exec(text);
@@ -147,6 +202,18 @@ function finish(value: number, spec: KindSpec, kind: QuantityKind): ParsedQuanti
   if (!Number.isFinite(value)) return { ok: false, message: `That is not a finite ${spec.noun.replace(/^an? /, "")}.` };
   if (kind === "count" && !Number.isInteger(value)) return { ok: false, message: "Enter a whole number." };
   return { ok: true, value: kind === "count" ? value : Number(value.toPrecision(12)), unit: spec.unit };
+}
+
+/**
+ * The on-screen keyboard a field of this kind asks a phone for: the decimal keypad when a bare number is
+ * what people type (lengths in mm, volts, minutes, °C…), the full keyboard when the usual entry needs
+ * letters ("330k", "2n2", "4k7", "AWG 28") because a bare number would be read in hertz, farads or ohms.
+ */
+export function keypadFor(kind: QuantityKind, defaultUnit?: string): "decimal" | "text" {
+  if (kind === "wireDiameter") return "text";
+  const bareIsSi = defaultUnit === undefined || defaultUnit === SPECS[kind].unit;
+  if (SPECS[kind].prefixAlone && bareIsSi && kind !== "voltage" && kind !== "current" && kind !== "power") return "text";
+  return "decimal";
 }
 
 export function quantityUnit(kind: QuantityKind): string {

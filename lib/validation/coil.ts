@@ -7,7 +7,7 @@
  */
 import { z } from "zod";
 import { closeWoundTurns, DEFAULT_INSULATION_BUILD_FACTOR } from "../calc/secondary-geometry";
-import { optionalQuantityField, quantityField } from "./quantity";
+import { optionalQuantityField, quantityField, readDecimalText } from "./quantity";
 
 /** The one example tag every hint, placeholder and message uses (a tag the demo club has not taken). */
 export const COIL_TAG_EXAMPLE = "KM-08";
@@ -77,16 +77,16 @@ const coilFields = {
   turns: z.preprocess((v) => (asksToCountTurns(v) ? "count" : v), turnsField),
   wireDiameterM: quantityField({ label: "Wire diameter", kind: "wireDiameter", min: 0.00005, max: 0.005, defaultUnit: "mm" }),
   wireGaugeAwg: z.preprocess(
-    (v) => (v === "" || v === null ? undefined : v),
-    z.coerce.number({ error: "AWG: a whole gauge number." }).int("AWG: a whole gauge number.").min(-3, "AWG: 0000 (−3) or finer.").max(56, "AWG: 56 or coarser.").optional(),
+    (v) => (v === null ? undefined : readDecimalText(v)),
+    z.number({ error: "AWG: a whole gauge number." }).int("AWG: a whole gauge number.").min(-3, "AWG: 0000 (−3) or finer.").max(56, "AWG: 56 or coarser.").optional(),
   ),
   wireMaterial: z.enum(["copper", "aluminium"], { error: "Wire material: copper or aluminium." }).default("copper"),
   measuredDcResistanceOhm: optionalQuantityField({ label: "Measured DC resistance", kind: "resistance", min: 0.001, max: 10_000 }),
   measuredInductanceH: optionalQuantityField({ label: "Measured inductance", kind: "inductance", min: 1e-6, max: 10 }),
   // Primary turns may end part-way round ("2.5"), so not a whole-number count.
   primaryTurns: z.preprocess(
-    (v) => (v === "" || v === null ? undefined : typeof v === "string" ? v.replace(/\s*turns?\s*$/i, "").trim() : v),
-    z.coerce.number({ error: "Primary turns: enter a number like 3 or 2.5." }).min(0.5, "Primary turns: at least 0.5.").max(100, "Primary turns: at most 100.").optional(),
+    (v) => (v === null ? undefined : readDecimalText(v, /\s*turns?\s*$/i)),
+    z.number({ error: "Primary turns: enter a number like 3 or 2.5." }).min(0.5, "Primary turns: at least 0.5.").max(100, "Primary turns: at most 100.").optional(),
   ),
   primaryDiameterM: optionalQuantityField({ label: "Primary diameter", kind: "length", min: 0.005, max: 2, defaultUnit: "mm" }),
   notes: notesField,

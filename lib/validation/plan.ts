@@ -7,7 +7,7 @@ import { z } from "zod";
 import type { BuildPlanInput, BuildPlanResult } from "../analysis/build-plan";
 import { coilTagSchema, gaugeTyped, topologySchema } from "./coil";
 import { switchTypeSchema } from "./component";
-import { optionalQuantityField, quantityField } from "./quantity";
+import { optionalQuantityField, quantityField, readDecimalText } from "./quantity";
 
 /** How many variants the planner compares side by side. */
 export const MAX_PLAN_VARIANTS = 3;
@@ -38,8 +38,8 @@ export const planVariantSchema = z
     supplyVoltageV: quantityField({ label: "Supply voltage", kind: "voltage", min: 1, max: 1_000 }),
     supplyCurrentA: optionalQuantityField({ label: "Expected supply current", kind: "current", min: 0.01, max: 200 }),
     switchLossPercent: z.preprocess(
-      (v) => (v === "" || v === null || v === undefined ? undefined : typeof v === "string" ? v.replace(/\s*%\s*$/, "").trim() : v),
-      z.coerce.number({ error: "Switch loss: a percentage like 10." }).min(1, "Switch loss: at least 1 % of the input.").max(90, "Switch loss: at most 90 % of the input.").optional(),
+      (v) => (v === null ? undefined : readDecimalText(v, /\s*%\s*$/)),
+      z.number({ error: "Switch loss: a percentage like 10." }).min(1, "Switch loss: at least 1 % of the input.").max(90, "Switch loss: at most 90 % of the input.").optional(),
     ),
     ambientTempC: optionalQuantityField({ label: "Ambient", kind: "temperature", min: -20, max: 60 }),
     switchPartNumber: partNumber("Transistor part number"),

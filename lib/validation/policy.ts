@@ -4,6 +4,7 @@
  * one item a line: "id | text | source".
  */
 import { z } from "zod";
+import { readDecimalText } from "./quantity";
 import type { ClearancePolicyRules } from "../calc/clearance-policy";
 
 export const checklistItemSchema = z.object({
@@ -48,11 +49,11 @@ export function parseStoredPolicyRules(rulesJson: string): ClearancePolicyRules 
 
 const percentField = (label: string) =>
   z.preprocess(
-    (v) => (typeof v === "string" && v.trim() !== "" ? Number(v.replace("%", "").trim()) : v),
+    (v) => readDecimalText(v, /\s*%\s*$/),
     z.number({ error: `${label}: enter a percentage, e.g. 20.` }).min(0, { error: `${label} must be between 0 and 100 %.` }).max(100, { error: `${label} must be between 0 and 100 %.` }),
   );
 const numberField = (label: string) =>
-  z.preprocess((v) => (typeof v === "string" && v.trim() !== "" ? Number(v.trim()) : v), z.number({ error: `${label}: enter a number.` }));
+  z.preprocess((v) => readDecimalText(v), z.number({ error: `${label}: enter a number.` }));
 
 /** Turns "id | text | source" lines into checklist items, naming the line of any that cannot be read. */
 function parseChecklistLines(text: string, ctx: z.RefinementCtx) {

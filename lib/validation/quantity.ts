@@ -4,7 +4,7 @@
  * was understood when it is out of range ("Form diameter must be between 5 mm and 1 m; “75 m” was read as 75 m").
  */
 import { z } from "zod";
-import { parseQuantity, quantityUnit, type QuantityKind } from "../units/parse";
+import { parseDecimalNumber, parseQuantity, quantityUnit, type QuantityKind } from "../units/parse";
 import { formatQuantity } from "../units/format";
 
 export interface QuantityFieldOptions {
@@ -62,4 +62,17 @@ export function optionalQuantityField(options: QuantityFieldOptions) {
 /** Render a stored SI value as the text a form shows back ("330 kHz"). */
 export function describeQuantity(value: number | null | undefined, kind: QuantityKind): string {
   return value === null || value === undefined ? "" : show(value, kind);
+}
+
+/**
+ * Reads a form's text as a plain number with the same grammar as the quantities ("2,5" = 2.5), for the
+ * fields that are counts or percentages; `unitWord` ("%", "turns") may follow. Unreadable text becomes
+ * NaN so the number schema after it reports the field's own message.
+ */
+export function readDecimalText(raw: unknown, unitWord?: RegExp): unknown {
+  if (typeof raw !== "string") return raw;
+  const text = unitWord ? raw.replace(unitWord, "") : raw;
+  if (text.trim() === "") return undefined;
+  const parsed = parseDecimalNumber(text);
+  return parsed.ok ? parsed.value : Number.NaN;
 }

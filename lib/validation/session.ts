@@ -38,7 +38,7 @@ export function toLocalDateTimeValue(date: Date): string {
 }
 
 /**
- * Duty cycle as a fraction or a percentage ("0.42", "42 %"). Not a physical quantity with a unit
+ * Duty cycle as a fraction or a percentage ("0.42", "0,42", "42 %"). Not a physical quantity with a unit
  * in lib/units, so it is read here; the message names the field like quantityField's do.
  */
 const dutyCycleField = z.preprocess(
@@ -46,8 +46,8 @@ const dutyCycleField = z.preprocess(
   z
     .string()
     .transform((raw, ctx) => {
-      const match = /^\s*(\d+(?:\.\d+)?)\s*(%)?\s*$/.exec(raw);
-      const value = match ? Number(match[1]) / (match[2] ? 100 : 1) : Number.NaN;
+      const match = /^\s*(\d+(?:[.,]\d+)?)\s*(%)?\s*$/.exec(raw);
+      const value = match ? Number(match[1]!.replace(",", ".")) / (match[2] ? 100 : 1) : Number.NaN;
       if (!(value > 0 && value < 1)) {
         ctx.addIssue({ code: "custom", message: `Duty cycle: enter a fraction between 0 and 1 or a percentage, like 0.42 or 42 %; “${raw.trim()}” is not one.` });
         return z.NEVER;

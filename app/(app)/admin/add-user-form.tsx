@@ -12,6 +12,7 @@ export function AddUserForm() {
   return (
     <form action={action} className="stack" aria-labelledby="add-user-heading" noValidate>
       <h2 id="add-user-heading">Add a user</h2>
+      <FormStatus id="add-user-result" state={state} />
       <div className="field">
         <label htmlFor="new-name">Name</label>
         <input id="new-name" name="name" defaultValue={typed("name")} required aria-invalid={invalid("name")} aria-describedby="new-name-error" />
@@ -42,7 +43,6 @@ export function AddUserForm() {
       <button type="submit" disabled={pending}>
         Add user
       </button>
-      <FormStatus id="add-user-result" state={state} />
     </form>
   );
 }

@@ -29,6 +29,7 @@ export function CoilForm({ mode, coilId, version, values = {} }: { mode: "new" |
   return (
     <form action={action} className="stack" aria-labelledby="coil-form-heading" noValidate>
       <h2 id="coil-form-heading">{mode === "new" ? "The build" : "Edit the build"}</h2>
+      <FormStatus id="coil-form-result" state={state} />
       {coilId && <input type="hidden" name="coilId" value={coilId} />}
       {version !== undefined && <input type="hidden" name="version" value={version} />}
       <div className="grid-2">
@@ -119,7 +120,7 @@ export function CoilForm({ mode, coilId, version, values = {} }: { mode: "new" |
           <QuantityInput id="coil-dcr" name="measuredDcResistanceOhm" label="Measured DC resistance" kind="resistance" defaultValue={values.measuredDcResistanceOhm} hint="e.g. 38 Ω" state={state} />
           <div className="field">
             <label htmlFor="coil-primary-turns">Primary turns</label>
-            <input id="coil-primary-turns" name="primaryTurns" defaultValue={typed("primaryTurns")} aria-invalid={invalid("primaryTurns")} aria-describedby="coil-primary-turns-error" />
+            <input id="coil-primary-turns" name="primaryTurns" inputMode="decimal" defaultValue={typed("primaryTurns")} aria-invalid={invalid("primaryTurns")} aria-describedby="coil-primary-turns-error" />
             <FieldError id="coil-primary-turns-error" state={state} field="primaryTurns" />
           </div>
           <QuantityInput id="coil-primary-diameter" name="primaryDiameterM" label="Primary diameter" kind="length" defaultUnit="mm" defaultValue={values.primaryDiameterM} state={state} />
@@ -134,7 +135,6 @@ export function CoilForm({ mode, coilId, version, values = {} }: { mode: "new" |
       <button type="submit" disabled={pending}>
         {mode === "new" ? "Add coil" : "Save changes"}
       </button>
-      <FormStatus id="coil-form-result" state={state} />
     </form>
   );
 }

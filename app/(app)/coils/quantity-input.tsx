@@ -6,7 +6,7 @@
  * TypeScript, so it runs here too). The server still validates; this is a preview.
  */
 import { useState } from "react";
-import { parseQuantity, type QuantityKind } from "@/lib/units/parse";
+import { keypadFor, parseQuantity, type QuantityKind } from "@/lib/units/parse";
 import { formatQuantity } from "@/lib/units/format";
 import type { ActionResult } from "@/lib/validation/action-result";
 
@@ -43,7 +43,8 @@ export function QuantityInput({ id, name, label, kind, defaultUnit, defaultValue
   const initial = refused?.values?.[name] ?? defaultValue ?? "";
   const [text, setText] = useState(initial);
   const errors = refused?.fieldErrors[name];
-  const understood = preview ? preview(text) : describeTyped(text, kind, defaultUnit);
+  // While the server's error for this text stands, it is the one message: the preview would say the same in grey.
+  const understood = errors && text === initial ? "" : preview ? preview(text) : describeTyped(text, kind, defaultUnit);
   return (
     <div className="field">
       <label htmlFor={id}>{label}</label>
@@ -52,7 +53,7 @@ export function QuantityInput({ id, name, label, kind, defaultUnit, defaultValue
         name={name}
         defaultValue={initial}
         required={required}
-        inputMode="text"
+        inputMode={keypadFor(kind, defaultUnit)}
         autoComplete="off"
         aria-invalid={errors ? true : undefined}
         aria-describedby={`${id}-understood ${id}-error${hint ? ` ${id}-hint` : ""}`}

@@ -73,7 +73,7 @@ export function SweepSettingsFields({ coil, errors }: { coil: SweepCoilChoice; e
           {(describedBy, invalid) => <input id="sweep-seriesResistanceOhm" name="seriesResistanceOhm" required inputMode="text" autoComplete="off" aria-describedby={describedBy} aria-invalid={invalid} />}
         </Field>
         <Field id="sourceAmplitudeV" label="Source amplitude" hint="The generator's output, e.g. 20 V" errors={errors}>
-          {(describedBy, invalid) => <input id="sweep-sourceAmplitudeV" name="sourceAmplitudeV" required autoComplete="off" aria-describedby={describedBy} aria-invalid={invalid} />}
+          {(describedBy, invalid) => <input id="sweep-sourceAmplitudeV" name="sourceAmplitudeV" required inputMode="decimal" autoComplete="off" aria-describedby={describedBy} aria-invalid={invalid} />}
         </Field>
         <Field id="amplitudeConvention" label="Amplitude convention" hint="The source amplitude and every reading use the same one." errors={errors}>
           {(describedBy, invalid) => (

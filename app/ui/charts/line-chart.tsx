@@ -18,7 +18,9 @@ import {
   ScatterController,
   Tooltip,
   type ChartDataset,
+  type Scale,
 } from "chart.js";
+import { chooseAxisTicks, chooseTickUnit, formatTick, type TickQuantity } from "@/lib/units/axis-ticks";
 
 Chart.register(LineController, ScatterController, LineElement, PointElement, LinearScale, LogarithmicScale, Tooltip, Legend);
 
@@ -64,6 +66,37 @@ export function formatAxisValue(value: number, format: AxisFormat = "number"): s
   }
 }
 
+const TICK_QUANTITY: Record<AxisFormat, TickQuantity | null> = {
+  number: "plain",
+  frequency: "frequency",
+  ohms: "ohms",
+  duration: "duration",
+  percent: "percent",
+  celsius: "celsius",
+  date: null,
+};
+
+/**
+ * Tick options for one axis: round values in one unit (lib/units/axis-ticks.ts) on linear axes; on log
+ * axes chart.js keeps its decades and only the labels share one unit. Dates keep chart.js's own ticks.
+ */
+function axisTicks(format: AxisFormat = "number", log = false) {
+  const quantity = TICK_QUANTITY[format];
+  if (quantity === null) return { ticks: { callback: (v: string | number) => formatAxisValue(Number(v), format), maxTicksLimit: 8 } };
+  return {
+    afterBuildTicks: (scale: Scale) => {
+      if (log || !(scale.max >= scale.min)) return;
+      scale.ticks = chooseAxisTicks(scale.min, scale.max, quantity, 8).ticks.map((t) => ({ value: t.value }));
+    },
+    ticks: {
+      callback(this: Scale, v: string | number) {
+        return formatTick(Number(v), chooseTickUnit(Math.max(Math.abs(this.min), Math.abs(this.max)), quantity));
+      },
+      maxTicksLimit: 8,
+    },
+  };
+}
+
 export function LineChart({ title, series, x, y, height = 320 }: LineChartProps) {
   const canvas = useRef<HTMLCanvasElement>(null);
 
@@ -88,6 +121,15 @@ export function LineChart({ title, series, x, y, height = 320 }: LineChartProps)
     const chart = new Chart(canvas.current, {
       type: "line",
       data: { datasets },
+      // The drawn tick labels, mirrored on the canvas so a browser test can read what the axis says.
+      plugins: [
+        {
+          id: "tick-labels",
+          afterUpdate(drawn) {
+            for (const axis of ["x", "y"] as const) drawn.canvas.dataset[`${axis}Ticks`] = (drawn.scales[axis]?.ticks ?? []).map((t) => String(t.label ?? "")).join(" | ");
+          },
+        },
+      ],
       options: {
         animation: false,
         responsive: true,
@@ -95,8 +137,8 @@ export function LineChart({ title, series, x, y, height = 320 }: LineChartProps)
         parsing: false,
         normalized: true,
         scales: {
-          x: { type: x.log ? "logarithmic" : "linear", title: { display: true, text: x.label }, ticks: { callback: (v) => formatAxisValue(Number(v), x.format), maxTicksLimit: 8 } },
-          y: { type: y.log ? "logarithmic" : "linear", min: y.min, max: y.max, title: { display: true, text: y.label }, ticks: { callback: (v) => formatAxisValue(Number(v), y.format), maxTicksLimit: 8 } },
+          x: { type: x.log ? "logarithmic" : "linear", title: { display: true, text: x.label }, ...axisTicks(x.format, x.log) },
+          y: { type: y.log ? "logarithmic" : "linear", min: y.min, max: y.max, title: { display: true, text: y.label }, ...axisTicks(y.format, y.log) },
         },
         plugins: {
           legend: { position: "bottom", labels: { usePointStyle: true } },

@@ -22,6 +22,7 @@ export function PolicyForm({ current }: { current: PolicyFormValues }) {
   const bad = (f: string) => (state && !state.ok && state.fieldErrors[f] ? true : undefined);
   return (
     <form action={action} className="stack wide" aria-label="Lending policy" key={JSON.stringify(values)}>
+      <FormStatus id="policy-result" state={state} />
       {NUMBERS.map((f) => (
         <div className="field" key={f.name}>
           <label htmlFor={f.name}>{f.label}</label>
@@ -55,7 +56,6 @@ export function PolicyForm({ current }: { current: PolicyFormValues }) {
       <button type="submit" disabled={pending}>
         Save as a new version
       </button>
-      <FormStatus id="policy-result" state={state} />
     </form>
   );
 }

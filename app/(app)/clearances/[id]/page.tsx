@@ -3,7 +3,8 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
-import { getClearance, getClearanceStateById, recordClearanceLapse } from "@/lib/db/clearances";
+import { getClearance, getClearanceStateById, getCoilHealthForClearance, recordClearanceLapse } from "@/lib/db/clearances";
+import { HealthVerdict } from "../health-verdict";
 import { formatCount, formatDateTime, formatDuration, formatNumber } from "@/lib/units/format";
 import { ClearanceBadge } from "../clearance-badge";
 import { RuleResultsTable } from "../rule-results-table";
@@ -15,7 +16,7 @@ export default async function ClearancePage({ params }: { params: Promise<{ id: 
   const { id } = await params;
   const clearance = await getClearance(id);
   if (!clearance) notFound();
-  const state = (await getClearanceStateById(id))!;
+  const [state, health] = await Promise.all([getClearanceStateById(id).then((s) => s!), getCoilHealthForClearance(clearance.coilId)]);
   // A lapse is recorded the first time it is seen (once; never overwritten).
   if (!clearance.lapsedAt) await recordClearanceLapse(id, state);
   return (
@@ -27,6 +28,7 @@ export default async function ClearancePage({ params }: { params: Promise<{ id: 
         <ClearanceBadge state={state} />
       </div>
       <p className={`notice ${state.kind === "valid" ? "ok" : "warn"}`}>{state.explanation}</p>
+      <HealthVerdict health={health} when={`now (${formatDateTime(new Date())})`} />
       <dl className="facts">
         <dt>Decision</dt>
         <dd>{clearance.verdict === "cleared" ? "Passed the team's recorded checks; cleared for lending" : "Refused"}</dd>

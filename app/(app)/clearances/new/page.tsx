@@ -4,11 +4,12 @@ import { notFound } from "next/navigation";
 import { pageUser } from "@/app/ui/page-guard";
 import { SafetyCautions } from "@/app/ui/safety-cautions";
 import { getCoilByTag } from "@/lib/db/coils";
-import { evaluateCoilForClearance } from "@/lib/db/clearances";
+import { evaluateCoilForClearance, getCoilHealthForClearance } from "@/lib/db/clearances";
 import type { SearchParams } from "@/lib/validation/list-query";
 import { formatDate } from "@/lib/units/format";
 import { RuleResultsTable } from "../rule-results-table";
 import { ClearanceForm } from "./clearance-form";
+import { HealthVerdict, describeChecksWithHealth } from "../health-verdict";
 
 export const metadata: Metadata = { title: "Clear a coil for lending" };
 
@@ -18,7 +19,8 @@ export default async function NewClearancePage({ searchParams }: { searchParams:
   if (typeof tag !== "string" || tag === "") notFound();
   const coil = await getCoilByTag(tag);
   if (!coil) notFound();
-  const evaluated = await evaluateCoilForClearance(coil.id, {}, new Date());
+  const now = new Date();
+  const [evaluated, health] = await Promise.all([evaluateCoilForClearance(coil.id, {}, now), getCoilHealthForClearance(coil.id, now)]);
   if (!evaluated) notFound();
   const { policy, evaluation, latestSession, latestAnalysis, latestSweep, maxRun, hardestSessionIds } = evaluated;
   const dataRules = evaluation.rules.filter((r) => !r.id.startsWith("checklist:"));
@@ -42,11 +44,12 @@ export default async function NewClearancePage({ searchParams }: { searchParams:
         </p>
       )}
       <h2>Recorded checks</h2>
-      <p className={`notice ${dataRulesPass ? "ok" : "danger"}`}>
+      <p className={`notice ${dataRulesPass ? (health?.status === "watch" || health?.status === "hold" ? "warn" : "ok") : "danger"}`}>
         {dataRulesPass
-          ? "Every recorded check passes. Work through the checklist below; all items must be confirmed to clear."
+          ? describeChecksWithHealth(health?.status)
           : `${failingChecks(dataRules.filter((r) => !r.pass).length)}, so this coil cannot be cleared now. You may record a refusal with these reasons.`}
       </p>
+      <HealthVerdict health={health} when="now" />
       <RuleResultsTable rules={dataRules} caption="Rules evaluated from the logbook (checked again on the server when you sign)" />
       <p className="muted">
         Margins are judged on the hardest of the recent sessions at the coil&apos;s current setup

@@ -25,6 +25,7 @@ export function PartForm({ coilId, replacing, today }: PartFormProps) {
   return (
     <form action={action} className="stack" aria-labelledby="part-form-heading" noValidate>
       <h2 id="part-form-heading">{replacing ? `Replace ${replacing.label}` : "Fit a part"}</h2>
+      <FormStatus id="part-form-result" state={state} />
       <input type="hidden" name="coilId" value={coilId} />
       {replacing && (
         <>
@@ -132,7 +133,6 @@ export function PartForm({ coilId, replacing, today }: PartFormProps) {
       <button type="submit" disabled={pending}>
         {replacing ? "Replace the part" : "Fit the part"}
       </button>
-      <FormStatus id="part-form-result" state={state} />
     </form>
   );
 }

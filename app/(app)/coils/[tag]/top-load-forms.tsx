@@ -11,6 +11,7 @@ export function TopLoadForm({ coilId }: { coilId: string }) {
   return (
     <form action={action} className="stack" aria-labelledby="top-load-form-heading" noValidate>
       <h2 id="top-load-form-heading">Add a top load</h2>
+      <FormStatus id="top-load-form-result" state={state} />
       <input type="hidden" name="coilId" value={coilId} />
       <div className="grid-2">
         <div className="field">
@@ -42,7 +43,6 @@ export function TopLoadForm({ coilId }: { coilId: string }) {
       <button type="submit" disabled={pending}>
         Add top load
       </button>
-      <FormStatus id="top-load-form-result" state={state} />
     </form>
   );
 }

@@ -11,6 +11,7 @@ export function ImportForm() {
   return (
     <form action={action} className="stack" aria-labelledby="import-heading" noValidate>
       <h2 id="import-heading">File</h2>
+      <FormStatus id="import-result" state={state} />
       <div className="field">
         <label htmlFor="import-file">Logbook file (.json)</label>
         <input id="import-file" name="file" type="file" accept="application/json,.json" aria-invalid={refused?.fieldErrors.file ? true : undefined} aria-describedby="import-file-error" />
@@ -35,7 +36,6 @@ export function ImportForm() {
       <button type="submit" disabled={pending}>
         Import
       </button>
-      <FormStatus id="import-result" state={state} />
       {state?.ok && (
         <ul>
           {state.data.coils.map((c) => (

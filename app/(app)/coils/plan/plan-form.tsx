@@ -72,6 +72,7 @@ function Field({
       <input
         id={id}
         value={value}
+        inputMode={TYPED_WITH_LETTERS.has(name) ? "text" : "decimal"}
         onChange={(e) => onChange(name, e.target.value)}
         aria-invalid={errors ? true : undefined}
         aria-describedby={`${hint ? `${id}-hint ` : ""}${id}-error`}
@@ -172,7 +173,7 @@ export function PlanForm({ starts, canSave }: { starts: PlanStartingPoints; canS
         )}
       </div>
 
-      <section role="tabpanel" aria-label={`${labelOf(current, active)} inputs`} className="stack">
+      <section id="plan-variant-inputs" role="tabpanel" aria-label={`${labelOf(current, active)} inputs`} className="stack">
         <div className="grid-2">
           {field("label", "Variant label", `Shown as the column heading, e.g. “taller winding”. Empty: Variant ${letter(active)}.`)}
           <div className="field">
@@ -279,13 +280,14 @@ export function PlanForm({ starts, canSave }: { starts: PlanStartingPoints; canS
         <button type="submit" disabled={comparing}>
           {variants.length > 1 ? `Compare ${variants.length} variants` : "Work out the plan"}
         </button>
-        <FormStatus id="plan-compare-result" state={compared} />
+        <FormStatus id="plan-compare-result" state={compared} fieldsIn="plan-variant-inputs" />
       </form>
 
       {comparison && <ComparisonTable comparison={comparison} />}
 
       {canSave && (
         <form action={save} className="stack" aria-labelledby="plan-save-heading">
+          <FormStatus id="plan-save-result" state={saved} />
           <h2 id="plan-save-heading">Save as a planned coil</h2>
           <input type="hidden" name="variantsJson" value={variantsJson} />
           <div className="grid-2">
@@ -306,12 +308,14 @@ export function PlanForm({ starts, canSave }: { starts: PlanStartingPoints; canS
           <button type="submit" disabled={saving}>
             Save as a planned coil
           </button>
-          <FormStatus id="plan-save-result" state={saved} />
         </form>
       )}
     </div>
   );
 }
+
+/** Planner fields whose usual entry needs letters (a label, a gauge, a part number); the rest take the decimal keypad. */
+const TYPED_WITH_LETTERS = new Set(["label", "wireDiameterM", "switchPartNumber", "sinkPartNumber"]);
 
 function SaveField({ name, label, hint, state }: { name: string; label: string; hint?: string; state: ActionResult<unknown> | null }) {
   const id = `plan-save-${name}`;

@@ -21,12 +21,12 @@ export function PostMortemForm({ failureId, recordedMode, failedPart, defaultIns
   const typed = (name: string) => failed?.values?.[name];
   const invalid = (name: string) => (failed?.fieldErrors[name] ? true : undefined);
 
-  const text = (name: string, label: string, defaultValue: string, hint?: string, type = "text") => {
+  const text = (name: string, label: string, defaultValue: string, hint?: string, type = "text", inputMode?: "decimal") => {
     const id = `pm-${name.replace(".", "-")}`;
     return (
       <div className="field" key={name}>
         <label htmlFor={id}>{label}</label>
-        <input id={id} name={name} type={type} defaultValue={typed(name) ?? defaultValue} aria-invalid={invalid(name)} aria-describedby={`${hint ? `${id}-hint ` : ""}${id}-error`} />
+        <input id={id} name={name} type={type} inputMode={inputMode} defaultValue={typed(name) ?? defaultValue} aria-invalid={invalid(name)} aria-describedby={`${hint ? `${id}-hint ` : ""}${id}-error`} />
         {hint && (
           <span id={`${id}-hint`} className="hint">
             {hint}
@@ -41,6 +41,7 @@ export function PostMortemForm({ failureId, recordedMode, failedPart, defaultIns
   return (
     <form action={action} className="stack" aria-labelledby="pm-heading" noValidate>
       <h2 id="pm-heading">Complete the post-mortem</h2>
+      <FormStatus id="pm-result" state={state} />
       <input type="hidden" name="failureId" value={failureId} />
       <div className="field">
         <label htmlFor="pm-mode">Failure mode found</label>
@@ -82,7 +83,7 @@ export function PostMortemForm({ failureId, recordedMode, failedPart, defaultIns
               {text("replacement.manufacturer", "Manufacturer", failedPart.manufacturer)}
               {text("replacement.serial", "Serial or batch", "")}
               {text("replacement.installedAt", "Replacement fitted at", defaultInstalledAt, undefined, "datetime-local")}
-              {failedPart.ratings.map((r) => text(`replacement.${r.name}`, r.label, r.value, r.hint))}
+              {failedPart.ratings.map((r) => text(`replacement.${r.name}`, r.label, r.value, r.hint, "text", "decimal"))}
             </fieldset>
           )}
         </>
@@ -90,7 +91,6 @@ export function PostMortemForm({ failureId, recordedMode, failedPart, defaultIns
       <button type="submit" disabled={pending}>
         {pending ? "Saving…" : "Complete post-mortem"}
       </button>
-      <FormStatus id="pm-result" state={state} />
     </form>
   );
 }

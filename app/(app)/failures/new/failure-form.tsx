@@ -21,6 +21,7 @@ export function FailureForm({ coil, sessions, defaultSessionId, parts, defaultOc
   return (
     <form action={action} className="stack bench-form" aria-labelledby="failure-heading" noValidate>
       <h2 id="failure-heading">Failure on {coil.tag}</h2>
+      <FormStatus id="failure-result" state={state} />
       <input type="hidden" name="coilId" value={coil.id} />
       <div className="field">
         <label htmlFor="failure-session">Session</label>
@@ -79,7 +80,6 @@ export function FailureForm({ coil, sessions, defaultSessionId, parts, defaultOc
       <button type="submit" className="big-button" disabled={pending}>
         {pending ? "Saving…" : "Record failure"}
       </button>
-      <FormStatus id="failure-result" state={state} />
     </form>
   );
 }

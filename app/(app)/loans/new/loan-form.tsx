@@ -16,6 +16,7 @@ export function LoanForm({ coilId, defaultBackDate }: { coilId: string; defaultB
   const values = state && !state.ok ? state.values : undefined;
   return (
     <form action={action} className="stack" aria-label="Lend coil" key={JSON.stringify(values ?? {})}>
+      <FormStatus id="loan-result" state={state} />
       <input type="hidden" name="coilId" value={coilId} />
       {FIELDS.map((f) => (
         <div className="field" key={f.name}>
@@ -37,7 +38,6 @@ export function LoanForm({ coilId, defaultBackDate }: { coilId: string; defaultB
       <button type="submit" disabled={pending}>
         Lend coil
       </button>
-      <FormStatus id="loan-result" state={state} />
     </form>
   );
 }

@@ -19,7 +19,7 @@ interface Props {
 }
 
 /** One labelled text field whose error is tied to it (aria-describedby, aria-invalid). */
-function BenchField(props: { name: string; label: string; hint?: string; state: ActionResult<null> | null; defaultValue?: string; type?: string; required?: boolean }) {
+function BenchField(props: { name: string; label: string; hint?: string; state: ActionResult<null> | null; defaultValue?: string; type?: string; required?: boolean; inputMode?: "decimal" | "text" }) {
   const { name, label, hint, state } = props;
   const failed = state && !state.ok ? state : null;
   const id = `session-${name}`;
@@ -30,6 +30,7 @@ function BenchField(props: { name: string; label: string; hint?: string; state: 
         id={id}
         name={name}
         type={props.type ?? "text"}
+        inputMode={props.inputMode}
         autoComplete="off"
         defaultValue={failed?.values?.[name] ?? props.defaultValue}
         required={props.required}
@@ -108,6 +109,7 @@ export function SessionForm({ coil, topLoads, defaultTopLoadId, defaultStartedAt
       <h2 id="log-heading">
         Session on {coil.tag} — {coil.name}
       </h2>
+      <FormStatus id="session-result" state={state} />
       <input type="hidden" name="coilId" value={coil.id} />
       <input type="hidden" name="clientKey" value={clientKey} />
       <div className="field">
@@ -123,15 +125,15 @@ export function SessionForm({ coil, topLoads, defaultTopLoadId, defaultStartedAt
         <FieldError id="session-topLoadId-error" state={state} field="topLoadId" />
       </div>
       <BenchField name="startedAt" label="Started at" type="datetime-local" defaultValue={defaultStartedAt} state={state} required />
-      <BenchField name="supplyVoltageV" label="Supply voltage" hint="e.g. 48 V" state={state} required />
-      <BenchField name="supplyCurrentA" label="Average current" hint="e.g. 2.5 A or 800 mA" state={state} required />
-      <BenchField name="durationS" label="Duration" hint="e.g. 12 min or 720 s (a bare number is minutes)" state={state} required />
-      <BenchField name="ambientTempC" label="Ambient temperature" hint="°C" state={state} required />
-      <BenchField name="heatSinkStartC" label="Heat sink at start" hint="°C, if read" state={state} />
-      <BenchField name="heatSinkEndC" label="Heat sink at end" hint="°C, if read" state={state} />
+      <BenchField name="supplyVoltageV" inputMode="decimal" label="Supply voltage" hint="e.g. 48 V" state={state} required />
+      <BenchField name="supplyCurrentA" inputMode="decimal" label="Average current" hint="e.g. 2.5 A or 800 mA" state={state} required />
+      <BenchField name="durationS" inputMode="decimal" label="Duration" hint="e.g. 12 min, 12:00 or 720 s (a bare number is minutes)" state={state} required />
+      <BenchField name="ambientTempC" inputMode="decimal" label="Ambient temperature" hint="°C" state={state} required />
+      <BenchField name="heatSinkStartC" inputMode="decimal" label="Heat sink at start" hint="°C, if read" state={state} />
+      <BenchField name="heatSinkEndC" inputMode="decimal" label="Heat sink at end" hint="°C, if read" state={state} />
       <BenchField name="runningFrequencyHz" label="Running frequency" hint="e.g. 334k or 334 kHz" state={state} />
-      <BenchField name="peakSwitchVoltageV" label="Peak collector/drain voltage" hint="Only if measured on a scope, e.g. 310 V" state={state} />
-      <BenchField name="dutyCycle" label="Duty cycle" hint="Only if known: 0.42 or 42 %" state={state} />
+      <BenchField name="peakSwitchVoltageV" inputMode="decimal" label="Peak collector/drain voltage" hint="Only if measured on a scope, e.g. 310 V" state={state} />
+      <BenchField name="dutyCycle" inputMode="decimal" label="Duty cycle" hint="Only if known: 0.42 or 42 %" state={state} />
       <div className="field">
         <label htmlFor="session-outcome">Outcome</label>
         <select id="session-outcome" name="outcome" defaultValue={failed?.values?.outcome ?? "normal"} aria-describedby="session-outcome-error">
@@ -178,7 +180,6 @@ export function SessionForm({ coil, topLoads, defaultTopLoadId, defaultStartedAt
       <button type="submit" className="big-button" disabled={pending}>
         {pending ? "Saving…" : "Save session"}
       </button>
-      <FormStatus id="session-result" state={state} />
     </form>
     <OfflineQueuePanel coilId={coil.id} onLoad={loadBack} />
     <ServiceWorkerRegistration />

@@ -32,7 +32,7 @@ export function WhatIfForm({ values, errors, result, currentHz }: { values: Reco
         {FIELDS.map((f) => (
           <div className="field" key={f.name}>
             <label htmlFor={`what-if-${f.name}`}>{f.label}</label>
-            <input id={`what-if-${f.name}`} name={f.name} defaultValue={values[f.name] ?? ""} autoComplete="off" aria-describedby={`what-if-${f.name}-hint what-if-${f.name}-error`} aria-invalid={Boolean(errors[f.name])} />
+            <input id={`what-if-${f.name}`} name={f.name} inputMode={f.name === "capacitance" ? "text" : "decimal"} defaultValue={values[f.name] ?? ""} autoComplete="off" aria-describedby={`what-if-${f.name}-hint what-if-${f.name}-error`} aria-invalid={Boolean(errors[f.name])} />
             <span id={`what-if-${f.name}-hint`} className="hint">
               {f.hint}
             </span>

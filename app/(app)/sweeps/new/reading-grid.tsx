@@ -8,7 +8,7 @@
  * own error.
  */
 import { useRef } from "react";
-import { parseQuantity } from "@/lib/units/parse";
+import { keypadFor, parseQuantity } from "@/lib/units/parse";
 
 export interface ReadingRow {
   frequency: string;
@@ -115,7 +115,7 @@ export function ReadingGrid({
   return (
     <div className="table-wrap">
       {/* Fixed layout with narrow cells, so two columns fit a phone-width screen. */}
-      <table ref={table} className="reading-grid" style={{ tableLayout: "fixed", width: "100%" }}>
+      <table ref={table} className="reading-grid keep-grid" style={{ tableLayout: "fixed", width: "100%" }}>
         <caption>
           Readings ({rows.filter((r) => !isBlankReading(r)).length}) — Enter or arrow keys move between cells; paste two columns to fill rows
         </caption>
@@ -149,6 +149,7 @@ export function ReadingGrid({
                       data-row={row}
                       data-col={col}
                       value={value}
+                      inputMode={keypadFor(column.kind)}
                       autoComplete="off"
                       style={{ minWidth: 0 }}
                       aria-label={`${column.label}, row ${row + 1}`}

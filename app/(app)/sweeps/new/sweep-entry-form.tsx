@@ -62,6 +62,7 @@ export function SweepEntryForm({ coil }: { coil: SweepCoilChoice }) {
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="New sweep" aria-describedby="sweep-entry-status">
+      <FormStatus id="sweep-entry-status" state={state} />
       <SweepSettingsFields coil={coil} errors={fieldErrors} />
       {fieldErrors["points"] && <p className="error">{fieldErrors["points"].join(" ")}</p>}
       <ReadingGrid rows={rows} onChange={changeRows} errors={gridErrors} touched={touched} onTouch={(key) => setTouched((t) => new Set(t).add(key))} />
@@ -70,7 +71,6 @@ export function SweepEntryForm({ coil }: { coil: SweepCoilChoice }) {
           {pending ? "Saving…" : "Save sweep"}
         </button>
       </p>
-      <FormStatus id="sweep-entry-status" state={state} />
     </form>
   );
 }

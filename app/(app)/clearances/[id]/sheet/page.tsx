@@ -4,7 +4,8 @@ import { notFound } from "next/navigation";
 import QRCode from "qrcode";
 import { pageUser } from "@/app/ui/page-guard";
 import { SafetyCautions } from "@/app/ui/safety-cautions";
-import { getClearance, getClearanceStateById } from "@/lib/db/clearances";
+import { getClearance, getClearanceStateById, getCoilHealthForClearance } from "@/lib/db/clearances";
+import { HealthVerdict } from "../../health-verdict";
 import { formatCount, formatDateTime, formatDuration, formatNumber } from "@/lib/units/format";
 import { TOPOLOGY_LABEL } from "@/app/ui/labels";
 import { RuleResultsTable } from "../../rule-results-table";
@@ -25,7 +26,7 @@ export default async function ClearanceSheetPage({ params }: { params: Promise<{
   const { id } = await params;
   const clearance = await getClearance(id);
   if (!clearance) notFound();
-  const state = (await getClearanceStateById(id))!;
+  const [state, health] = await Promise.all([getClearanceStateById(id).then((s) => s!), getCoilHealthForClearance(clearance.coilId)]);
   const url = await liveUrl(`/clearances/${clearance.id}`);
   const qrSvg = await QRCode.toString(url, { type: "svg", margin: 1, errorCorrectionLevel: "M" });
   return (
@@ -57,6 +58,7 @@ export default async function ClearanceSheetPage({ params }: { params: Promise<{
           <figcaption className="mono">{url}</figcaption>
         </figure>
       </header>
+      <HealthVerdict health={health} when={`when printed (${formatDateTime(new Date())})`} />
       <section aria-labelledby="conditions-heading">
         <h2 id="conditions-heading">Conditions</h2>
         <ul>

@@ -15,6 +15,7 @@ export function ReturnForm({ loanId, defaultReturnedAt, sessions }: { loanId: st
   const invalidFlag = (f: string) => (state && !state.ok && state.fieldErrors[f] ? true : undefined);
   return (
     <form action={action} className="stack" aria-label="Return coil" key={JSON.stringify(values ?? {})}>
+      <FormStatus id="return-result" state={state} />
       <input type="hidden" name="loanId" value={loanId} />
       <div className="field">
         <label htmlFor="returnedAt">Returned at</label>
@@ -45,7 +46,6 @@ export function ReturnForm({ loanId, defaultReturnedAt, sessions }: { loanId: st
       <button type="submit" disabled={pending}>
         Record return
       </button>
-      <FormStatus id="return-result" state={state} />
     </form>
   );
 }
