@@ -3,6 +3,7 @@ import { redirect } from "next/navigation";
 import { getCurrentUser } from "@/lib/auth/session";
 import { MainNav } from "@/app/ui/main-nav";
 import { SignOutButton } from "@/app/ui/sign-out-button";
+import { ScrollableRegions } from "@/app/ui/scrollable-regions";
 
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
   const user = await getCurrentUser();
@@ -25,6 +26,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
         </div>
       </header>
       <main id="main">{children}</main>
+      <ScrollableRegions />
       <footer className="site-footer">
         High voltage and RF: follow your local codes, venue rules and licensed practice. Coilyard records the team&apos;s checks; it
         does not certify any build as safe.
