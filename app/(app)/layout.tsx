@@ -4,6 +4,7 @@ import { getCurrentUser } from "@/lib/auth/session";
 import { MainNav } from "@/app/ui/main-nav";
 import { SignOutButton } from "@/app/ui/sign-out-button";
 import { StackedTableLabels } from "@/app/ui/stacked-table-labels";
+import { ScrollableRegions } from "@/app/ui/scrollable-regions";
 
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
   const user = await getCurrentUser();
@@ -27,6 +28,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
       </header>
       <main id="main">{children}</main>
       <StackedTableLabels />
+      <ScrollableRegions />
       <footer className="site-footer">
         High voltage and RF: follow your local codes, venue rules and licensed practice. Coilyard records the team&apos;s checks; it
         does not certify any build as safe.

@@ -4,9 +4,14 @@
  * The one chart component: chart.js line/scatter plots with linear or log axes, threshold lines and
  * markers, legible in print (no animation, fixed colours and dash patterns that survive greyscale).
  * Server components pass plain data; formatting is chosen by name because functions cannot cross
- * the server/client boundary. A data table in <details> gives the same figures to screen readers.
+ * the server/client boundary. A data table in <details> gives the same figures to screen readers, and a
+ * generated sentence (lib/units/chart-summary.ts) describes the chart (aria-describedby). Colours are read
+ * from CSS custom properties, re-read when the colour scheme changes or the page is printed.
  */
-import { useEffect, useRef } from "react";
+import { useEffect, useId, useRef } from "react";
+import type { AxisFormat } from "@/lib/units/axis-format";
+import { formatAxisValue } from "@/lib/units/axis-format";
+import { describeChart } from "@/lib/units/chart-summary";
 import {
   Chart,
   Legend,
@@ -24,13 +29,15 @@ import { chooseAxisTicks, chooseTickUnit, formatTick, type TickQuantity } from "
 
 Chart.register(LineController, ScatterController, LineElement, PointElement, LinearScale, LogarithmicScale, Tooltip, Legend);
 
-export type AxisFormat = "number" | "frequency" | "date" | "duration" | "percent" | "ohms" | "celsius";
+export type { AxisFormat } from "@/lib/units/axis-format";
+export { formatAxisValue } from "@/lib/units/axis-format";
 
 export interface ChartSeries {
   label: string;
   points: { x: number; y: number }[];
   /** "line" joins the points; "points" shows markers only; "marker" shows large markers (e.g. resonances). */
   style?: "line" | "points" | "marker";
+  /** A colour, or a CSS custom property reference such as "var(--chart-limit)" (follows light/dark/print). */
   colour?: string;
   dashed?: boolean;
 }
@@ -43,27 +50,15 @@ export interface LineChartProps {
   height?: number;
 }
 
-const PALETTE = ["#0b5cad", "#a3161b", "#1b6e3a", "#8a5a00", "#5b2c83", "#00727a"];
+/** Series colours come from app/globals.css (--chart-1…6), so dark mode and print each get their own palette. */
+const PALETTE = [1, 2, 3, 4, 5, 6].map((n) => `var(--chart-${n})`);
 const DASHES = [[], [6, 4], [2, 3], [10, 3, 2, 3]];
 
-export function formatAxisValue(value: number, format: AxisFormat = "number"): string {
-  if (!Number.isFinite(value)) return "—";
-  switch (format) {
-    case "frequency":
-      return value >= 1e6 ? `${+(value / 1e6).toPrecision(3)} MHz` : value >= 1e3 ? `${+(value / 1e3).toPrecision(3)} kHz` : `${+value.toPrecision(3)} Hz`;
-    case "ohms":
-      return value >= 1e6 ? `${+(value / 1e6).toPrecision(3)} MΩ` : value >= 1e3 ? `${+(value / 1e3).toPrecision(3)} kΩ` : `${+value.toPrecision(3)} Ω`;
-    case "date":
-      return new Date(value).toISOString().slice(0, 10);
-    case "duration":
-      return value >= 120 ? `${+(value / 60).toFixed(1)} min` : `${Math.round(value)} s`;
-    case "percent":
-      return `${Math.round(value * 100)} %`;
-    case "celsius":
-      return `${+value.toFixed(1)} °C`;
-    default:
-      return `${+value.toPrecision(4)}`;
-  }
+/** Resolves "var(--name)" against the page's current custom properties; other colours pass through. */
+function resolveColour(colour: string, style: CSSStyleDeclaration): string {
+  const match = /^var\((--[\w-]+)\)$/.exec(colour.trim());
+  if (!match) return colour;
+  return style.getPropertyValue(match[1]!).trim() || "#000000";
 }
 
 const TICK_QUANTITY: Record<AxisFormat, TickQuantity | null> = {
@@ -99,17 +94,15 @@ function axisTicks(format: AxisFormat = "number", log = false) {
 
 export function LineChart({ title, series, x, y, height = 320 }: LineChartProps) {
   const canvas = useRef<HTMLCanvasElement>(null);
+  const summaryId = useId();
 
   useEffect(() => {
     if (!canvas.current) return;
-    const datasets: ChartDataset<"line", { x: number; y: number }[]>[] = series.map((s, i) => {
-      const colour = s.colour ?? PALETTE[i % PALETTE.length]!;
+    const datasets: ChartDataset<"line", { x: number; y: number }[]>[] = series.map((s) => {
       const style = s.style ?? "line";
       return {
         label: s.label,
         data: s.points,
-        borderColor: colour,
-        backgroundColor: colour,
         borderDash: s.dashed ? [6, 4] : DASHES[0],
         showLine: style === "line",
         pointRadius: style === "marker" ? 6 : style === "points" ? 3 : 0,
@@ -146,22 +139,58 @@ export function LineChart({ title, series, x, y, height = 320 }: LineChartProps)
         },
       },
     });
-    // Re-render at print size so the printed chart is sharp and fits the page.
-    const beforePrint = () => chart.resize();
+    const element = canvas.current;
+    // Paint with the palette in force now (light, dark, or print's light palette).
+    const applyColours = () => {
+      const style = getComputedStyle(element);
+      chart.data.datasets.forEach((dataset, i) => {
+        const colour = resolveColour(series[i]?.colour ?? PALETTE[i % PALETTE.length]!, style);
+        dataset.borderColor = colour;
+        dataset.backgroundColor = colour;
+      });
+      const ink = resolveColour("var(--ink)", style);
+      const grid = resolveColour("var(--line)", style);
+      for (const scale of [chart.options.scales?.x, chart.options.scales?.y]) {
+        if (!scale) continue;
+        scale.ticks = { ...scale.ticks, color: ink };
+        scale.grid = { ...scale.grid, color: grid };
+        if ("title" in scale && scale.title) scale.title.color = ink;
+      }
+      if (chart.options.plugins?.legend?.labels) chart.options.plugins.legend.labels.color = ink;
+      chart.update("none");
+    };
+    applyColours();
+    const schemeQuery = window.matchMedia("(prefers-color-scheme: dark)");
+    const printQuery = window.matchMedia("print");
+    schemeQuery.addEventListener("change", applyColours);
+    printQuery.addEventListener("change", applyColours);
+    // Re-render at print size (and in print's light palette) so the printed chart is sharp and fits the page.
+    const beforePrint = () => {
+      applyColours();
+      chart.resize();
+    };
     window.addEventListener("beforeprint", beforePrint);
+    window.addEventListener("afterprint", applyColours);
     return () => {
+      schemeQuery.removeEventListener("change", applyColours);
+      printQuery.removeEventListener("change", applyColours);
       window.removeEventListener("beforeprint", beforePrint);
+      window.removeEventListener("afterprint", applyColours);
       chart.destroy();
     };
   }, [series, x, y]);
 
+  const summary = describeChart(title, series, x, y);
   const tableRows = series.flatMap((s) => (s.points.length <= 60 ? s.points.map((p) => ({ series: s.label, ...p })) : []));
   return (
     <figure className="chart" style={{ margin: "1rem 0" }}>
       <figcaption style={{ fontWeight: 600 }}>{title}</figcaption>
       <div style={{ position: "relative", height }}>
-        <canvas ref={canvas} role="img" aria-label={`${title}: ${series.map((s) => s.label).join(", ")}`} />
+        <canvas ref={canvas} role="img" aria-label={`${title}: ${series.map((s) => s.label).join(", ")}`} aria-describedby={summaryId} />
       </div>
+      <p id={summaryId} className="chart-summary">
+        {summary}
+      </p>
       {tableRows.length > 0 && (
         <details className="no-print">
           <summary>Figures as a table</summary>

@@ -151,18 +151,40 @@ export function PlanForm({ starts, canSave }: { starts: PlanStartingPoints; canS
     setActive(0);
   };
 
+  const onTabKey = (event: React.KeyboardEvent<HTMLDivElement>) => {
+    const step = event.key === "ArrowRight" ? 1 : event.key === "ArrowLeft" ? -1 : 0;
+    if (step === 0) return;
+    event.preventDefault();
+    const next = (active + step + variants.length) % variants.length;
+    setActive(next);
+    document.getElementById(`plan-variant-tab-${next}`)?.focus();
+  };
+
   const comparison = compared?.ok ? compared.data : null;
   const shape = current.topLoadShape ?? "none";
 
   return (
     <div className="stack">
-      <div role="tablist" aria-label="Variants" className="inline-form">
-        {variants.map((v, i) => (
-          <button key={i} type="button" role="tab" aria-selected={i === active} className={i === active ? "" : "secondary"} onClick={() => setActive(i)}>
-            {labelOf(v, i)}
-            {hasErrors(i) ? " (check fields)" : ""}
-          </button>
-        ))}
+      <div className="inline-form">
+        {/* A tablist holds only its tabs (WCAG 4.1.2); the arrow keys move between them, as for any tab set. */}
+        <div role="tablist" aria-label="Variants" className="inline-form" onKeyDown={onTabKey}>
+          {variants.map((v, i) => (
+            <button
+              key={i}
+              type="button"
+              role="tab"
+              id={`plan-variant-tab-${i}`}
+              aria-selected={i === active}
+              aria-controls="plan-variant-inputs"
+              tabIndex={i === active ? 0 : -1}
+              className={i === active ? "" : "secondary"}
+              onClick={() => setActive(i)}
+            >
+              {labelOf(v, i)}
+              {hasErrors(i) ? " (check fields)" : ""}
+            </button>
+          ))}
+        </div>
         <button type="button" className="secondary" onClick={addVariant} disabled={variants.length >= MAX_VARIANTS}>
           Add variant (copy of this one)
         </button>
@@ -173,7 +195,7 @@ export function PlanForm({ starts, canSave }: { starts: PlanStartingPoints; canS
         )}
       </div>
 
-      <section id="plan-variant-inputs" role="tabpanel" aria-label={`${labelOf(current, active)} inputs`} className="stack">
+      <section role="tabpanel" id="plan-variant-inputs" aria-labelledby={`plan-variant-tab-${active}`} className="stack">
         <div className="grid-2">
           {field("label", "Variant label", `Shown as the column heading, e.g. “taller winding”. Empty: Variant ${letter(active)}.`)}
           <div className="field">

@@ -37,7 +37,7 @@ export function WarmUpSection({ analysis, samples, supplyVoltageV }: { analysis:
           { label: "Logged samples", points: series.samples, style: "points" },
           { label: "Fitted curve", points: series.fitted, style: "line" },
           { label: `Predicted steady state (${formatNumber(warmUp.predictedSteadySinkC, 1, "°C")})`, points: series.steady, dashed: true },
-          { label: `Sink temperature at the junction limit (${formatNumber(warmUp.sinkLimitC, 1, "°C")})`, points: series.sinkLimit, colour: "#a3161b" },
+          { label: `Sink temperature at the junction limit (${formatNumber(warmUp.sinkLimitC, 1, "°C")})`, points: series.sinkLimit, colour: "var(--chart-limit)" },
         ]}
       />
       <dl className="facts">

@@ -47,8 +47,8 @@ export default async function SweepPage({ params, searchParams }: Props) {
   const parallel = sweep.resonances.filter((r) => r.kind === "parallel");
   const chartSeries: ChartSeries[] = [
     { label: "|Z|", points: curve.points, style: "line" },
-    { label: "Series resonances", points: series.map((r) => ({ x: r.frequencyHz, y: r.impedanceOhm })), style: "marker", colour: "#1b6e3a" },
-    { label: "Parallel resonances", points: parallel.map((r) => ({ x: r.frequencyHz, y: r.impedanceOhm })), style: "marker", colour: "#a3161b" },
+    { label: "Series resonances", points: series.map((r) => ({ x: r.frequencyHz, y: r.impedanceOhm })), style: "marker", colour: "var(--chart-good)" },
+    { label: "Parallel resonances", points: parallel.map((r) => ({ x: r.frequencyHz, y: r.impedanceOhm })), style: "marker", colour: "var(--chart-limit)" },
   ];
 
   return (

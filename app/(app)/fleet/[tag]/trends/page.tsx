@@ -47,10 +47,10 @@ export default async function TrendsPage({ params }: Props) {
         const chart = buildMarginChart(margin, analyzed, now);
         const series: ChartSeries[] = [
           { label: `${MARGIN_TITLE[kind]} per session`, points: chart.readings, style: "points" },
-          { label: `Policy threshold (${formatNumber(margin.threshold * 100, 0)} %)`, points: chart.threshold, style: "line", dashed: true, colour: "#a3161b" },
+          { label: `Policy threshold (${formatNumber(margin.threshold * 100, 0)} %)`, points: chart.threshold, style: "line", dashed: true, colour: "var(--chart-limit)" },
         ];
-        if (chart.trend.length > 0) series.push({ label: "Fitted trend", points: chart.trend, style: "line", colour: "#8a5a00" });
-        if (chart.crossing.length > 0) series.push({ label: "Projected crossing", points: chart.crossing, style: "marker", colour: "#a3161b" });
+        if (chart.trend.length > 0) series.push({ label: "Fitted trend", points: chart.trend, style: "line", colour: "var(--chart-fit)" });
+        if (chart.crossing.length > 0) series.push({ label: "Projected crossing", points: chart.crossing, style: "marker", colour: "var(--chart-limit)" });
         return (
           <section key={kind} aria-labelledby={`${kind}-heading`}>
             <h2 id={`${kind}-heading`}>{MARGIN_TITLE[kind]}</h2>
