@@ -78,14 +78,7 @@ function Field({
         aria-describedby={`${hint ? `${id}-hint ` : ""}${id}-error`}
         data-variant={variant}
       />
-      {hint && (
-        <span id={`${id}-hint`} className="hint">
-          {hint}
-        </span>
-      )}
-      <span id={`${id}-error`} className="error">
-        {errors?.join(" ") ?? ""}
-      </span>
+      <FieldNotes id={id} hint={hint} errors={errors} />
     </div>
   );
 }
@@ -346,14 +339,7 @@ function SaveField({ name, label, hint, state }: { name: string; label: string; 
     <div className="field">
       <label htmlFor={id}>{label}</label>
       <input id={id} name={name} required aria-invalid={errors ? true : undefined} aria-describedby={`${hint ? `${id}-hint ` : ""}${id}-error`} />
-      {hint && (
-        <span id={`${id}-hint`} className="hint">
-          {hint}
-        </span>
-      )}
-      <span id={`${id}-error`} className="error">
-        {errors?.join(" ") ?? ""}
-      </span>
+      <FieldNotes id={id} hint={hint} errors={errors} />
     </div>
   );
 }
@@ -439,5 +425,21 @@ function FleetPartPicker({ id, parts, onPick }: { id: string; parts: readonly { 
         ))}
       </select>
     </div>
+  );
+}
+
+/** A field's hint and its error line, the targets of the input's aria-describedby. */
+function FieldNotes({ id, hint, errors }: { id: string; hint?: string; errors?: readonly string[] }) {
+  return (
+    <>
+      {hint && (
+        <span id={`${id}-hint`} className="hint">
+          {hint}
+        </span>
+      )}
+      <span id={`${id}-error`} className="error">
+        {errors?.join(" ") ?? ""}
+      </span>
+    </>
   );
 }
