@@ -52,8 +52,9 @@ test("signing with boxes unticked marks them at the boxes with one short summary
 });
 
 test("a failure makes that clearance lapse and blocks the next loan", async ({ page }) => {
-  // The failure screens belong to another area and may not be on this branch, so the failure is written
-  // straight into the e2e database file, as the failure form would store it (ISO text dates, as Prisma writes them).
+  // The failure is written straight into the e2e database file, as the failure form's transaction stores it (ISO text
+  // dates, as Prisma writes them), with the coil's summary marked changed as markCoilChanged does in that transaction;
+  // the failure form itself has its own journeys in failures.spec.ts.
   const db = new Database(`data/e2e-${port}/e2e.db`);
   try {
     const coil = db.prepare("SELECT id FROM Coil WHERE tag = ?").get("KM-02") as { id: string };
@@ -64,6 +65,7 @@ test("a failure makes that clearance lapse and blocks the next loan", async ({ p
       now,
       now,
     );
+    db.prepare("UPDATE CoilSummary SET revision = revision + 1 WHERE coilId = ?").run(coil.id);
   } finally {
     db.close();
   }

@@ -16,7 +16,7 @@ test("a member logs a session with pasted samples and sees its margins, warm-up 
   }
   await expect(page.getByRole("table", { name: "Inputs to the voltage margin" }).getByRole("rowheader").first()).toBeVisible();
   await expect(page.getByText("Formula: headroom = 1 − V_peak / V_rating")).toBeVisible();
-  await expect(page.getByText("Heat-sink temperature: logged samples, fitted curve and limits")).toBeVisible();
+  await expect(page.getByText("Heat-sink temperature: logged samples, fitted curve and limits", { exact: true })).toBeVisible();
   await expect(page.locator("figure.chart canvas")).toBeVisible();
   await expect(page.getByTestId("longest-run")).toContainText(/Longest run at 18 V: (about .+ before the junction reaches|never reaches the limit)/);
   await expect(page.getByText("Extrapolation")).toBeVisible();
