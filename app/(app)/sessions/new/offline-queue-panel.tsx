@@ -8,9 +8,12 @@ const STATUS_LABEL: Record<QueuedSubmission["status"], string> = { queued: "Wait
 
 /**
  * What this device holds of the bench form's offline queue: waiting, stored (with the link) and refused (with the
- * server's reasons, to load back into the form and fix). Sends the waiting ones when the page opens and whenever
- * the browser comes back online.
+ * server's reasons, to load back into the form and fix). Sends the waiting ones when the page opens, whenever the
+ * browser comes back online, and every RETRY_WAITING_MS while it is online: on a flaky connection the first attempt
+ * after reconnecting can fail again, and nothing else would wake the queue until the page is reopened.
  */
+const RETRY_WAITING_MS = 15_000;
+
 export function OfflineQueuePanel({ coilId, onLoad }: { coilId: string; onLoad: (submission: QueuedSubmission) => void }) {
   const [submissions, setSubmissions] = useState<QueuedSubmission[] | null>(null);
   const [unavailable, setUnavailable] = useState(false);
@@ -25,7 +28,11 @@ export function OfflineQueuePanel({ coilId, onLoad }: { coilId: string; onLoad: 
     if (navigator.onLine) send();
     window.addEventListener("online", send);
     window.addEventListener(QUEUE_CHANGED_EVENT, refresh);
+    const retry = window.setInterval(() => {
+      if (navigator.onLine) send();
+    }, RETRY_WAITING_MS);
     return () => {
+      window.clearInterval(retry);
       window.removeEventListener("online", send);
       window.removeEventListener(QUEUE_CHANGED_EVENT, refresh);
     };
