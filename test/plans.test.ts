@@ -10,31 +10,13 @@ import { exportCoil } from "@/lib/db/export";
 import { createLoan, LoanRefusedError } from "@/lib/db/loans";
 import { PLANNED_PART_DESCRIPTION, savePlannedCoil } from "@/lib/db/plans";
 import { planSaveSchema, readStoredPlan, type PlanVariant } from "@/lib/validation/plan";
+import { PLAN_VARIANT } from "./support/plan-fixtures";
 
 beforeEach(resetDatabase);
 
 const policy: PlanPolicy & { version: number } = { version: 1, ituRegion: 2, minVoltageHeadroom: 0.2, minThermalHeadroom: 0.2, minJunctionMarginK: 25 };
 
-const VARIANT = {
-  label: "Short",
-  formDiameterM: "75 mm",
-  wireDiameterM: "AWG 30",
-  windingLengthM: "250 mm",
-  topLoadShape: "toroid",
-  topLoadDiameterM: "150 mm",
-  topLoadTubeDiameterM: "40 mm",
-  supplyVoltageV: "24 V",
-  supplyCurrentA: "3 A",
-  switchPartNumber: "PLAN-FET-1",
-  switchType: "mosfet",
-  voltageRatingV: "200 V",
-  powerRating25CW: "150 W",
-  maxJunctionTempC: "150",
-  sinkPartNumber: "PLAN-SINK-1",
-  sinkThermalResistanceKPerW: "2 K/W",
-  sinkMassKg: "200 g",
-  clampVoltageV: "150 V",
-};
+
 
 function workedPlan(variants: Record<string, string>[]) {
   const worked = workOutVariants(variants, policy);
@@ -45,7 +27,7 @@ function workedPlan(variants: Record<string, string>[]) {
 describe("saving a plan", () => {
   it("creates a planned coil with its planned top load, parts and stored plan, audited once", async () => {
     const steward = await makeUser("s@club.test", "steward");
-    const worked = workedPlan([VARIANT, { ...VARIANT, label: "Tall", windingLengthM: "350 mm" }]);
+    const worked = workedPlan([PLAN_VARIANT, { ...PLAN_VARIANT, label: "Tall", windingLengthM: "350 mm" }]);
     const plan = buildStoredPlan(worked.variants, worked.results, 1, policy, new Date());
     const save = planSaveSchema.parse({ tag: "pl-01", name: "Planned tall", builderName: "Ada", chosenVariant: "1" });
     const coil = await savePlannedCoil(steward.id, save, worked.variants[1]!, plan);
@@ -75,7 +57,7 @@ describe("saving a plan", () => {
 
   it("stores nothing when a write inside the transaction fails part-way", async () => {
     const steward = await makeUser("s@club.test", "steward");
-    const worked = workedPlan([VARIANT]);
+    const worked = workedPlan([PLAN_VARIANT]);
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
     const save = planSaveSchema.parse({ tag: "PL-02", name: "Broken", builderName: "Ada", chosenVariant: "0" });
     // A switch type the database refuses: the coil row is written first, so only a rollback leaves nothing behind.
@@ -87,7 +69,7 @@ describe("saving a plan", () => {
 
   it("refuses a stored plan that does not match its schema, storing nothing", async () => {
     const steward = await makeUser("s@club.test", "steward");
-    const worked = workedPlan([VARIANT]);
+    const worked = workedPlan([PLAN_VARIANT]);
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
     plan.variants[0]!.predicted.firstResonanceHz = Number.NaN;
     const before = await countAllRows();
@@ -97,7 +79,7 @@ describe("saving a plan", () => {
 
   it("refuses a tag already in use", async () => {
     const steward = await makeUser("s@club.test", "steward");
-    const worked = workedPlan([VARIANT]);
+    const worked = workedPlan([PLAN_VARIANT]);
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
     const save = planSaveSchema.parse({ tag: "PL-04", name: "First", builderName: "Ada", chosenVariant: "0" });
     await savePlannedCoil(steward.id, save, worked.variants[0]!, plan);
@@ -109,7 +91,7 @@ describe("saving a plan", () => {
 
 describe("a bad plan is refused with specific field errors", () => {
   it("names the variant and the field for absurd turns and a missing top-load size", () => {
-    const worked = workOutVariants([VARIANT, { ...VARIANT, turns: "90000", windingLengthM: "" }, { ...VARIANT, topLoadTubeDiameterM: "" }], policy);
+    const worked = workOutVariants([PLAN_VARIANT, { ...PLAN_VARIANT, turns: "90000", windingLengthM: "" }, { ...PLAN_VARIANT, topLoadTubeDiameterM: "" }], policy);
     expect(worked.ok).toBe(false);
     if (worked.ok) return;
     expect(worked.fieldErrors["v1.turns"]?.join(" ")).toMatch(/Turns must be between 10 and 20 ?000/);
@@ -118,7 +100,7 @@ describe("a bad plan is refused with specific field errors", () => {
   });
 
   it("refuses more turns than fit on the winding", () => {
-    const worked = workOutVariants([{ ...VARIANT, turns: "2000", windingLengthM: "100 mm" }], policy);
+    const worked = workOutVariants([{ ...PLAN_VARIANT, turns: "2000", windingLengthM: "100 mm" }], policy);
     expect(worked.ok).toBe(false);
     if (!worked.ok) expect(worked.fieldErrors["v0.turns"]?.join(" ")).toMatch(/need at least/);
   });
@@ -127,7 +109,7 @@ describe("a bad plan is refused with specific field errors", () => {
 describe("a planned coil is not in service", () => {
   it("is not lent, and goes active through the status change", async () => {
     const steward = await makeUser("s@club.test", "steward");
-    const worked = workedPlan([VARIANT]);
+    const worked = workedPlan([PLAN_VARIANT]);
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
     const coil = await savePlannedCoil(steward.id, planSaveSchema.parse({ tag: "PL-05", name: "Lend me", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan);
     const expectedBackAt = new Date(Date.now() + 7 * 86_400_000);
@@ -156,7 +138,7 @@ describe("a planned coil is not in service", () => {
 
   it("keeps its plan through a JSON logbook export", async () => {
     const steward = await makeUser("s@club.test", "steward");
-    const worked = workedPlan([VARIANT]);
+    const worked = workedPlan([PLAN_VARIANT]);
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
     const coil = await savePlannedCoil(steward.id, planSaveSchema.parse({ tag: "PL-06", name: "Export", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan);
     const document = await exportCoil(coil.tag);

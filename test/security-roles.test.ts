@@ -18,6 +18,7 @@ import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { hasRole, ROLES, type Role } from "../lib/auth/roles";
 import { countAllRows, makeUser, resetDatabase } from "./support/db";
 import { discoverEntryPoints, ENTRY_POINT_ROLES } from "./support/entry-points";
+import { PLAN_VARIANT } from "./support/plan-fixtures";
 
 const session = vi.hoisted(() => ({ userId: null as string | null, headers: new Headers() }));
 vi.mock("next-auth", () => ({ getServerSession: vi.fn(async () => (session.userId ? { user: { id: session.userId } } : null)) }));
@@ -56,25 +57,10 @@ async function callEntryPoint(key: string, body: unknown): Promise<Outcome> {
 
 // Inputs that would succeed if the guard let them through, so a refusal that stores nothing means something.
 const VALID_COIL = { tag: "SEC-01", name: "Guard probe", builderName: "Test", formDiameterM: "50 mm", windingLengthM: "200 mm", turns: "900", wireDiameterM: "0.2 mm" };
-const VALID_PLAN_VARIANT = {
-  formDiameterM: "75 mm",
-  wireDiameterM: "AWG 30",
-  windingLengthM: "250 mm",
-  topLoadShape: "toroid",
-  topLoadDiameterM: "150 mm",
-  topLoadTubeDiameterM: "40 mm",
-  supplyVoltageV: "24 V",
-  supplyCurrentA: "3 A",
-  voltageRatingV: "200 V",
-  powerRating25CW: "150 W",
-  maxJunctionTempC: "150",
-  sinkThermalResistanceKPerW: "2 K/W",
-  sinkMassKg: "200 g",
-};
 const VALID_INPUT: Record<string, unknown> = {
   "app/(app)/admin/actions.ts#addUser": { name: "Probe", email: "probe@lab.test", role: "member", password: "probe-pass-1234" },
   "app/(app)/coils/actions.ts#createCoilAction": VALID_COIL,
-  "app/(app)/coils/plan/actions.ts#savePlanAction": { tag: "SEC-02", name: "Planned probe", builderName: "Test", chosenVariant: "0", variantsJson: JSON.stringify([VALID_PLAN_VARIANT]) },
+  "app/(app)/coils/plan/actions.ts#savePlanAction": { tag: "SEC-02", name: "Planned probe", builderName: "Test", chosenVariant: "0", variantsJson: JSON.stringify([PLAN_VARIANT]) },
   "app/api/coils/route.ts#POST": { ...VALID_COIL, formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002 },
 };
 

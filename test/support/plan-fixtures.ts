@@ -1,0 +1,21 @@
+/** One variant of a planned build as the planner form sends it (text as typed), valid under the default policy. */
+export const PLAN_VARIANT = {
+  label: "Short",
+  formDiameterM: "75 mm",
+  wireDiameterM: "AWG 30",
+  windingLengthM: "250 mm",
+  topLoadShape: "toroid",
+  topLoadDiameterM: "150 mm",
+  topLoadTubeDiameterM: "40 mm",
+  supplyVoltageV: "24 V",
+  supplyCurrentA: "3 A",
+  switchPartNumber: "PLAN-FET-1",
+  switchType: "mosfet",
+  voltageRatingV: "200 V",
+  powerRating25CW: "150 W",
+  maxJunctionTempC: "150",
+  sinkPartNumber: "PLAN-SINK-1",
+  sinkThermalResistanceKPerW: "2 K/W",
+  sinkMassKg: "200 g",
+  clampVoltageV: "150 V",
+};
