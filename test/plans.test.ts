@@ -17,7 +17,6 @@ beforeEach(resetDatabase);
 const policy: PlanPolicy & { version: number } = { version: 1, ituRegion: 2, minVoltageHeadroom: 0.2, minThermalHeadroom: 0.2, minJunctionMarginK: 25 };
 
 
-
 function workedPlan(variants: Record<string, string>[]) {
   const worked = workOutVariants(variants, policy);
   if (!worked.ok) throw new Error(`plan refused: ${JSON.stringify(worked.fieldErrors)}`);
