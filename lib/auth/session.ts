@@ -1,17 +1,32 @@
 /**
- * Who is asking, checked where the work happens. Server components, server actions and route
- * handlers call these; the proxy only redirects anonymous visitors and protects nothing by itself.
+ * Who is asking, and for which site, checked where the work happens. Server components, server actions and
+ * route handlers call these; the proxy only redirects anonymous visitors and protects nothing by itself.
+ *
+ * The current site is the one named by the site cookie (set by the site switcher) when the user may reach it,
+ * else their first site by name. Roles are per site: `role` is the role at the current site, and `scope` is
+ * what every lib/db call takes, so a page can only ever read and write the current site's records.
  */
+import { cache } from "react";
+import { cookies } from "next/headers";
 import { getServerSession } from "next-auth";
 import { authOptions } from "./options";
-import { getUserById } from "../db/users";
-import { hasRole, isRole, type Role } from "./roles";
+import { getUserAccess, type SiteRef, type SiteRole } from "../db/site-access";
+import type { SiteScope } from "../db/site-scope";
+import { hasRole, type Role } from "./roles";
+
+export const SITE_COOKIE = "coilyard-site";
 
 export interface CurrentUser {
   id: string;
   email: string;
   name: string;
+  /** The role at the current site. */
   role: Role;
+  organisationAdmin: boolean;
+  site: SiteRef;
+  /** Every site the user may switch to, with their role there. */
+  sites: SiteRole[];
+  scope: SiteScope;
 }
 
 export class AuthError extends Error {
@@ -23,24 +38,51 @@ export class AuthError extends Error {
   }
 }
 
-/** The signed-in, active user, or null. Reads the database so role changes apply immediately. */
-export async function getCurrentUser(): Promise<CurrentUser | null> {
+/** Picks the current site: the requested one when reachable, else the first. Pure, for tests. */
+export function chooseSite(sites: readonly SiteRole[], requestedSlug: string | undefined): SiteRole | undefined {
+  return sites.find((site) => site.slug === requestedSlug) ?? sites[0];
+}
+
+/**
+ * The signed-in, active user at their current site, or null when anonymous. Reads the database so role and
+ * membership changes apply at once; cached for the request, so a page, its layout and its sections share one
+ * check. Throws AuthError 403 for an account that belongs to no site.
+ */
+export const getCurrentUser = cache(async (): Promise<CurrentUser | null> => {
   const session = await getServerSession(authOptions());
   const id = (session?.user as { id?: string } | undefined)?.id;
   if (!id) return null;
-  const user = await getUserById(id);
-  if (!user || !user.active || !isRole(user.role)) return null;
-  return { id: user.id, email: user.email, name: user.name, role: user.role };
-}
+  const access = await getUserAccess(id);
+  if (!access || !access.active) return null;
+  const site = chooseSite(access.sites, (await cookies()).get(SITE_COOKIE)?.value);
+  if (!site) throw new AuthError(403, "Your account does not belong to any site yet. Ask an admin to add you to one.");
+  return {
+    id: access.id,
+    email: access.email,
+    name: access.name,
+    role: site.role,
+    organisationAdmin: access.organisationAdmin,
+    site: { id: site.id, slug: site.slug, name: site.name },
+    sites: access.sites,
+    scope: { siteId: site.id, actorId: access.id },
+  };
+});
 
-/** The current user with at least `role`; throws AuthError (401 anonymous, 403 not allowed). */
+/** The current user with at least `role` at the current site; throws AuthError (401 anonymous, 403 not allowed). */
 export async function requireRole(role: Role): Promise<CurrentUser> {
   const user = await getCurrentUser();
   if (!user) throw new AuthError(401, "Sign in to continue.");
-  if (!hasRole(user.role, role)) throw new AuthError(403, `This needs the ${role} role; you are signed in as a ${user.role}.`);
+  if (!hasRole(user.role, role)) throw new AuthError(403, `This needs the ${role} role at ${user.site.name}; you are a ${user.role} there.`);
   return user;
 }
 
 export function requireUser(): Promise<CurrentUser> {
   return requireRole("member");
+}
+
+/** An organisation admin (manages sites and the organisation's default policy; sees the district view). */
+export async function requireOrganisationAdmin(): Promise<CurrentUser> {
+  const user = await requireRole("member");
+  if (!user.organisationAdmin) throw new AuthError(403, "This needs an organisation admin.");
+  return user;
 }

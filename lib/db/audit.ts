@@ -7,6 +7,8 @@ import type { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
 
 export interface AuditEntry {
+  /** The site whose record changed; null for organisation-wide events (sign-in, sites, the default policy). */
+  siteId: string | null;
   actorId: string | null;
   action: "create" | "update" | "delete" | "sign-in" | "lapse" | "import" | (string & {});
   entity: string;
@@ -18,6 +20,7 @@ export interface AuditEntry {
 export async function recordAudit(tx: Tx, entry: AuditEntry): Promise<void> {
   await tx.auditEvent.create({
     data: {
+      siteId: entry.siteId,
       actorId: entry.actorId,
       action: entry.action,
       entity: entry.entity,
