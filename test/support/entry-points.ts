@@ -94,3 +94,33 @@ export function discoverMutatingRoutes(root: string): MutatingRoute[] {
       return { key, method, path: `/${segments.join("/")}` };
     });
 }
+
+/**
+ * The pages that show one record: every page.tsx under app/(app) with a dynamic segment in its path
+ * ("app/(app)/coils/[tag]/page.tsx"), and every GET of app/api/**\/route.ts with one ("/api/export/coils/[tag]").
+ * The site dimension of test/security-roles.test.ts must list each with how to name a record of another site, so
+ * a new record page is checked for isolation as soon as it exists.
+ */
+export function discoverRecordPages(root: string): string[] {
+  const found: string[] = [];
+  for (const file of walk(path.join(root, "app"))) {
+    const relative = path.relative(root, file).split(path.sep).join("/");
+    if (!/\[[^\]]+\]/.test(relative)) continue;
+    if (relative.startsWith("app/(app)/") && relative.endsWith("/page.tsx")) found.push(relative);
+    if (relative.startsWith("app/api/") && relative.endsWith("/route.ts") && !relative.startsWith("app/api/auth/")) {
+      if (exportedNames(readFileSync(file, "utf8")).includes("GET")) found.push(`${relative}#GET`);
+    }
+  }
+  return found.sort();
+}
+
+/** The GET routes with no dynamic segment (lists and whole-fleet exports): a site's answer must name only its records. */
+export function discoverListRoutes(root: string): string[] {
+  const found: string[] = [];
+  for (const file of walk(path.join(root, "app/api"))) {
+    const relative = path.relative(root, file).split(path.sep).join("/");
+    if (!relative.endsWith("/route.ts") || /\[[^\]]+\]/.test(relative)) continue;
+    if (exportedNames(readFileSync(file, "utf8")).includes("GET")) found.push(`${relative}#GET`);
+  }
+  return found.sort();
+}
