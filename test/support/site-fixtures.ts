@@ -57,6 +57,17 @@ export interface SiteCopyOptions {
   tags?: readonly string[];
   /** Demo user ids → this site's users, for the "who" columns (logged by, decided by …); others become null. */
   people?: Readonly<Record<string, string>>;
+  /** Keep only the first 40 points of each sweep and 4 samples of each session, so a site loads in a moment. */
+  thin?: boolean;
+}
+
+function firstOfEach<T>(list: T[], key: (row: T) => string, keep: number): T[] {
+  const seen = new Map<string, number>();
+  return list.filter((row) => {
+    const n = seen.get(key(row)) ?? 0;
+    seen.set(key(row), n + 1);
+    return n < keep;
+  });
 }
 
 const isKeyField = (field: string) => field === "id" || field.endsWith("Id");
@@ -78,6 +89,10 @@ export function siteCopy(options: SiteCopyOptions): SiteRows {
   keep.sweepPoints = rows.sweepPoints.filter((p) => sweepIds.has(p.sweepId as string));
   keep.sweepResonances = rows.sweepResonances.filter((r) => sweepIds.has(r.sweepId as string));
   keep.samples = rows.samples.filter((s) => sessionIds.has(s.sessionId as string));
+  if (options.thin) {
+    keep.sweepPoints = firstOfEach(keep.sweepPoints, (p) => p.sweepId as string, 40);
+    keep.samples = firstOfEach(keep.samples, (p) => p.sessionId as string, 4);
+  }
 
   const ours = new Set<string>();
   for (const table of RECORD_TABLES) for (const row of keep[table]) if (typeof row.id === "string") ours.add(row.id);
@@ -269,6 +284,19 @@ const SITE_OWNERSHIP: Record<string, ((siteId: string) => object) | { organisati
 
 export function modelsWithoutSiteOwnership(): string[] {
   return Object.values(Prisma.ModelName).filter((model) => !(model in SITE_OWNERSHIP));
+}
+
+/** The rows of each table that one snapshot has and the other has not (tables with no difference left out). */
+export function snapshotDifference(before: Record<string, string[]>, after: Record<string, string[]>): Record<string, { gone: string[]; new: string[] }> {
+  const difference: Record<string, { gone: string[]; new: string[] }> = {};
+  for (const table of new Set([...Object.keys(before), ...Object.keys(after)])) {
+    const was = new Set(before[table] ?? []);
+    const is = new Set(after[table] ?? []);
+    const gone = [...was].filter((row) => !is.has(row));
+    const added = [...is].filter((row) => !was.has(row));
+    if (gone.length > 0 || added.length > 0) difference[table] = { gone: gone.slice(0, 3), new: added.slice(0, 3) };
+  }
+  return difference;
 }
 
 /** Every row of every table that belongs to `siteId`, sorted, for before/after comparisons. */
