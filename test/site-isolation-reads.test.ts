@@ -67,6 +67,15 @@ const SCOPED_READS: Record<string, Call> = {
   "clearances.ts#getClearanceStateById": args((p) => p.clearanceId(), (p) => p.now),
   "clearances.ts#listClearancesWithState": args((p) => p.now),
   "clearances.ts#getCoilHealthForClearance": args((p) => p.coilId(), (p) => p.now),
+  "clearances.ts#getClearanceSheet": args((p) => p.clearanceId(), (p) => p.now),
+  "coil-summary.ts#getCoilFigures": async (scope, pick, read) => {
+    const policy = await (await import("@/lib/db/policy")).getCurrentPolicy(scope);
+    return read.self!(scope, [pick.coilId(), pick.coilId(), pick.coilId()], policy, pick.now);
+  },
+  "coil-summary.ts#computeFiguresFor": async (scope, pick, read) => {
+    const policy = await (await import("@/lib/db/policy")).getCurrentPolicy(scope);
+    return read.self!(scope, [pick.coilId(), pick.coilId(), pick.coilId()], new Map(), policy, pick.now);
+  },
   "coil-history.ts#getCoilHistory": args((p) => p.coilId()),
   "coil-history.ts#getCoilPageHistory": args((p) => p.coilId()),
   "coil-history.ts#getFleetHistory": args(),
@@ -89,6 +98,9 @@ const SCOPED_READS: Record<string, Call> = {
   "loans.ts#listLoansNeedingRecall": args((p) => p.now),
   "loans.ts#getLoan": args((p) => p.loanId()),
   "loans.ts#getLoanHandover": args((p) => p.loanId()),
+  "loans.ts#listBorrowedLoans": args(() => ({ state: "all" }), (p) => p.now),
+  "loans.ts#listBorrowerSites": args(),
+  "loans.ts#listSessionsInLoanWindow": args((p) => ({ coilId: p.coilId(), outAt: new Date(0) }), (p) => p.now),
   "plans.ts#listPlanStartingPoints": args(),
   "policy.ts#getCurrentPolicy": args(),
   "policy.ts#listPolicyVersions": args(),
@@ -129,7 +141,11 @@ const SCOPED_WRITES = new Set([
   "loans.ts#createLoan",
   "loans.ts#returnLoan",
   "plans.ts#savePlannedCoil",
-  "policy.ts#savePolicyVersion",
+  "policy.ts#saveDefaultPolicyVersion",
+  "policy.ts#saveSitePolicyVersion",
+  "coil-summary.ts#storeCoilFigures",
+  "clearances.ts#recordClearanceLapse",
+  "clearances.ts#recordLapseCausedByWrite",
   "session-fits.ts#backfillSessionFits",
   "sessions.ts#createSession",
   "sweeps.ts#recordSweep",
@@ -166,6 +182,8 @@ const UNSCOPED: Record<string, string> = {
   "demo-loader.ts#emptyDatabase": "the demo reset: empties everything",
   "demo-loader.ts#disconnect": "closes the connection",
   "fleet.ts#selectFleetRows": "pure: filters rows already read in scope",
+  "policy.ts#combinePolicies": "pure: the stricter of the organisation's default and a site's own rules",
+  "policy.ts#getDefaultPolicy": "the organisation's default policy, the same for every site (a site's own rules only tighten it)",
   "pagination.ts#normalizePage": "pure",
   "pagination.ts#toPage": "pure",
   "pg-adapter.ts#createPostgresAdapter": "the connection itself",
@@ -180,8 +198,6 @@ const UNSCOPED: Record<string, string> = {
   "sign-in-throttle.ts#recordThrottleFailure": "before sign-in, keyed by e-mail or client address",
   "sign-in-throttle.ts#clearThrottle": "before sign-in, keyed by e-mail or client address",
   "site-access.ts#getUserAccess": "who the user is and which sites they reach: what the scope is made from",
-  "site-scope.ts#coilOfSite": "builds the scope's filter",
-  "site-scope.ts#recordOfSite": "builds the scope's filter",
   "text-search.ts#textContains": "pure: builds a filter",
   "sites.ts#findReachableSite": "which site an actor may switch to: what the scope is made from",
   "sites.ts#findSiteBySlug": "for scripts run on the server, which have no actor to scope by",
@@ -195,11 +211,10 @@ const UNSCOPED: Record<string, string> = {
   "users.ts#assertAdminsRemain": "a check inside a caller's transaction",
   "users.ts#createOrganisationAdmin": "scripts/create-admin.ts, run by an operator on the server",
   "coil-summary.ts#markCoilChanged": "writes inside a caller's transaction, for a coil the caller already found in scope",
-  "clearances.ts#recordLapseCausedByWrite": "writes inside a caller's transaction, for a coil the caller already found in scope",
 };
 
 /** Reads a borrowing site may use to see a loan lent to it, and the clearance it went out on. */
-const BORROWER_READS = new Set(["loans.ts#listLoans", "loans.ts#getLoan", "loans.ts#getLoanHandover", "clearances.ts#getClearance"]);
+const BORROWER_READS = new Set(["loans.ts#listBorrowedLoans", "loans.ts#getLoan", "loans.ts#getLoanHandover", "clearances.ts#getClearanceSheet"]);
 
 interface ExportedFunction {
   key: string;
