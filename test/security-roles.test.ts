@@ -103,13 +103,15 @@ async function callEntryPoint(key: string, body: unknown, options: { params?: Re
 const VALID_COIL = { tag: "SEC-01", name: "Guard probe", builderName: "Test", formDiameterM: "50 mm", windingLengthM: "200 mm", turns: "900", wireDiameterM: "0.2 mm" };
 const VALID_INPUT: Record<string, unknown> = {
   "app/(app)/admin/actions.ts#addUser": { name: "Probe", email: "probe@lab.test", role: "member", password: "probe-pass-1234" },
+  "app/(app)/admin/policy/actions.ts#saveDefaultPolicyAction": tighterPolicyForm(),
+  "app/(app)/admin/policy/actions.ts#saveSitePolicyAction": tighterPolicyForm(),
   "app/(app)/coils/actions.ts#createCoilAction": VALID_COIL,
   "app/(app)/coils/plan/actions.ts#savePlanAction": { tag: "SEC-02", name: "Planned probe", builderName: "Test", chosenVariant: "0", variantsJson: JSON.stringify([PLAN_VARIANT]) },
   "app/api/coils/route.ts#POST": { ...VALID_COIL, formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002 },
 };
 
 const HOME_SITE = { slug: "home-lab", name: "Home lab" };
-const users: Partial<Record<Role, string>> = {};
+const users: Partial<Record<Role | "organisation", string>> = {};
 let homeSiteName = "";
 
 async function makeRoleUsers() {
@@ -117,6 +119,8 @@ async function makeRoleUsers() {
   const home = await makeSite(HOME_SITE.slug, HOME_SITE.name);
   homeSiteName = home.name;
   for (const role of ROLES) users[role] = (await makeSiteUser(`${role}@lab.test`, { [home.id]: role })).id;
+  // An organisation admin belongs to no site and is admin at each.
+  users.organisation = (await makeSiteUser("organisation@lab.test", {}, true)).id;
 }
 
 beforeAll(makeRoleUsers);
@@ -135,7 +139,8 @@ describe("every mutating entry point is in the role table", () => {
   });
 });
 
-const guarded = Object.entries(ENTRY_POINT_ROLES).filter((entry): entry is [string, Role] => entry[1] !== "public");
+const guarded = Object.entries(ENTRY_POINT_ROLES).filter((entry): entry is [string, Role | "organisation"] => entry[1] !== "public");
+const ORGANISATION_REFUSAL = /organisation admin/i;
 
 describe.each(guarded)("%s (needs %s)", (key, required) => {
   it("refuses an anonymous caller and stores nothing", async () => {
@@ -150,6 +155,15 @@ describe.each(guarded)("%s (needs %s)", (key, required) => {
   it.each(ROLES)("as %s: refused only when the role is too low", async (role) => {
     session.userId = users[role]!;
     const before = await countAllRows();
+    if (required === "organisation") {
+      // No role at a site is enough: even the site's admin is refused, and nothing is stored.
+      const outcome = await callEntryPoint(key, VALID_INPUT[key] ?? {});
+      expect([200, 201, 303], outcome.message).not.toContain(outcome.status);
+      // A site's admin is told it needs an organisation admin; lower roles may be stopped by the site role first.
+      expect(outcome.message).toMatch(role === "admin" ? ORGANISATION_REFUSAL : new RegExp(`${ORGANISATION_REFUSAL.source}|${ROLE_REFUSAL.source}`, "i"));
+      expect(await countAllRows()).toEqual(before);
+      return;
+    }
     const allowed = hasRole(role, required);
     // A refused caller gets the input that would succeed; an allowed one gets an empty form, so it is
     // refused for the input (422) and not for its role, and the database is left as the next test needs it.
@@ -164,12 +178,24 @@ describe.each(guarded)("%s (needs %s)", (key, required) => {
       expect(await countAllRows()).toEqual(before);
     }
   });
+
+  it("as an organisation admin (admin at every site): never refused for the role", async () => {
+    session.userId = users.organisation!;
+    session.siteSlug = HOME_SITE.slug;
+    const outcome = await callEntryPoint(key, {});
+    session.siteSlug = undefined;
+    expect(outcome.status, outcome.message).not.toBe(401);
+    expect(outcome.status, outcome.message).not.toBe(403);
+    expect(outcome.message).not.toMatch(ROLE_REFUSAL);
+    expect(outcome.message).not.toMatch(ORGANISATION_REFUSAL);
+  });
 });
 
 describe("the valid probes really would store something", () => {
   it.each(Object.keys(VALID_INPUT))("%s succeeds for its role", async (key) => {
     await makeRoleUsers();
-    session.userId = users[ENTRY_POINT_ROLES[key] as Role]!;
+    session.userId = users[ENTRY_POINT_ROLES[key] as Role | "organisation"]!;
+    session.siteSlug = HOME_SITE.slug;
     const outcome = await callEntryPoint(key, VALID_INPUT[key]);
     expect([200, 201, 303], outcome.message).toContain(outcome.status);
   });
@@ -244,10 +270,15 @@ const SITE_PROBES: Record<string, Probe> = {
     atTargetSite: "refused",
   },
   "app/(app)/admin/actions.ts#changeAccess": { input: (_s, _w, member) => ({ userId: member.id, role: "steward" }), atTargetSite: "stored" },
-  "app/(app)/admin/policy/actions.ts#savePolicyAction": {
+  "app/(app)/admin/policy/actions.ts#saveSitePolicyAction": {
     input: () => tighterPolicyForm(),
     atTargetSite: "stored",
     namesNoRecord: "a site's own lending policy: the caller's site gets a new version, the other site's policies must stay as they were",
+  },
+  "app/(app)/admin/policy/actions.ts#saveDefaultPolicyAction": {
+    input: () => tighterPolicyForm(),
+    atTargetSite: "refused",
+    namesNoRecord: "the organisation's default policy: no site admin may save it (an organisation admin may), and no site's rows change",
   },
   "app/(app)/clearances/actions.ts#signClearanceAction": { input: (s) => ({ coilId: s.coilId, verdict: "refused", conditions: "Probe" }), atTargetSite: "stored" },
   "app/(app)/coils/[tag]/actions.ts#changeCoilStatus": { input: (s) => ({ coilId: s.coilId, status: "repair" }), atTargetSite: "stored" },
@@ -290,7 +321,7 @@ const SITE_PROBES: Record<string, Probe> = {
     input: (s) => ({ coilId: s.coilId, borrower: "North school", borrowerContact: "", event: "Science fair", expectedBackAt: localDay(7) }),
     atTargetSite: "stored",
   },
-  "app/(app)/loans/actions.ts#returnLoanAction": { input: (s) => ({ loanId: s.outLoanId, returnedAt: localDay(0), returnCondition: "As lent", returnNotes: "" }), atTargetSite: "stored" },
+  "app/(app)/loans/actions.ts#returnLoanAction": { input: (s) => ({ loanId: s.outLoanId, returnedAt: localDay(-1), returnCondition: "As lent", returnNotes: "" }), atTargetSite: "stored" },
   "app/(app)/sessions/actions.ts#logSession": { input: (s) => sessionForm(s), atTargetSite: "stored" },
   "app/(app)/sweeps/actions.ts#recordTypedSweep": {
     input: (s) => ({

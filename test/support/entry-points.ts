@@ -8,13 +8,16 @@
 import { readFileSync, readdirSync, statSync } from "node:fs";
 import path from "node:path";
 
-export type Required = "member" | "steward" | "admin" | "public";
+/** The least role at the current site, "organisation" for an organisation admin only, or "public". */
+export type Required = "member" | "steward" | "admin" | "organisation" | "public";
 
 /** The committed table: every mutating entry point and the least role that may use it. */
 export const ENTRY_POINT_ROLES: Record<string, Required> = {
   "app/(app)/admin/actions.ts#addUser": "admin",
   "app/(app)/admin/actions.ts#changeAccess": "admin",
-  "app/(app)/admin/policy/actions.ts#savePolicyAction": "admin",
+  // The organisation's default lending policy: organisation admins; a site's own tightening of it: that site's admins.
+  "app/(app)/admin/policy/actions.ts#saveDefaultPolicyAction": "organisation",
+  "app/(app)/admin/policy/actions.ts#saveSitePolicyAction": "admin",
   "app/(app)/clearances/actions.ts#signClearanceAction": "steward",
   "app/(app)/coils/[tag]/actions.ts#changeCoilStatus": "steward",
   "app/(app)/coils/[tag]/actions.ts#addTopLoadAction": "steward",
