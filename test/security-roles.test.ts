@@ -103,6 +103,7 @@ async function callEntryPoint(key: string, body: unknown, options: { params?: Re
 const VALID_COIL = { tag: "SEC-01", name: "Guard probe", builderName: "Test", formDiameterM: "50 mm", windingLengthM: "200 mm", turns: "900", wireDiameterM: "0.2 mm" };
 const VALID_INPUT: Record<string, unknown> = {
   "app/(app)/admin/actions.ts#addUser": { name: "Probe", email: "probe@lab.test", role: "member", password: "probe-pass-1234" },
+  "app/(app)/admin/sites/actions.ts#addSite": { name: "Probe school", slug: "probe-school" },
   "app/(app)/admin/policy/actions.ts#saveDefaultPolicyAction": tighterPolicyForm(),
   "app/(app)/admin/policy/actions.ts#saveSitePolicyAction": tighterPolicyForm(),
   "app/(app)/coils/actions.ts#createCoilAction": VALID_COIL,
@@ -255,30 +256,54 @@ type Probe =
       /** What the target site's own admin gets for the same input: it is stored, or refused because the record is really there (a tag taken). */
       atTargetSite: "stored" | "refused";
       /**
-       * Set (with the reason) when the input names no record of either site, so there is no "missing record" to
-       * answer like: only "nothing changed at the other site" is checked.
+       * Set (with the reason) when there is no "missing record" to answer like: the input names no record of either
+       * site, or names an account, which belongs to the organisation rather than a site. Then only "nothing changed at
+       * the other site" and the other site's own answer are checked.
        */
-      namesNoRecord?: string;
+      notComparedWithMissing?: string;
     }
   | { exempt: string };
 
 /** Every mutating entry point, with an input that names the other site's records. */
 const SITE_PROBES: Record<string, Probe> = {
   "app/(app)/admin/actions.ts#addUser": {
-    // Adding, at the caller's site, a person with the e-mail of a member of the other site.
+    // A new account at the caller's site with the e-mail of the other site's member: e-mail addresses are unique in the organisation.
     input: (_s, _w, member) => ({ name: "Probe", email: member.email, role: "member", password: "probe-pass-1234" }),
     atTargetSite: "refused",
+    notComparedWithMissing: "accounts belong to the organisation, and one address names one account: the caller is told to add the existing account instead",
+  },
+  "app/(app)/admin/actions.ts#addExistingMember": {
+    input: (_s, _w, member) => ({ email: member.email, role: "member" }),
+    atTargetSite: "refused",
+    notComparedWithMissing: "by design a site's admin finds an existing account by e-mail to add it to their own site; its membership of the other site stays as it was",
   },
   "app/(app)/admin/actions.ts#changeAccess": { input: (_s, _w, member) => ({ userId: member.id, role: "steward" }), atTargetSite: "stored" },
+  "app/(app)/admin/actions.ts#removeSiteMember": { input: (_s, _w, member) => ({ userId: member.id }), atTargetSite: "stored" },
+  "app/(app)/admin/sites/actions.ts#addSite": {
+    input: () => ({ name: "Probe school", slug: "probe-school" }),
+    atTargetSite: "refused",
+    notComparedWithMissing: "organisation admins only: no site's admin may create a site, and no site's rows change",
+  },
+  "app/(app)/admin/sites/actions.ts#changeSiteName": {
+    input: (s, w) => ({ siteId: s === w.target ? s.siteId : "site-nowhere", name: "Renamed", slug: "renamed-school" }),
+    atTargetSite: "refused",
+    notComparedWithMissing: "organisation admins only: refused for every site's admin alike",
+  },
+  "app/(app)/admin/sites/actions.ts#changeOrganisationAdmin": {
+    input: (_s, _w, member) => ({ userId: member.id, organisationAdmin: "true" }),
+    atTargetSite: "refused",
+    notComparedWithMissing: "organisation admins only: refused for every site's admin alike",
+  },
+  "app/(app)/site-actions.ts#switchSite": { input: (s, w) => ({ slug: s === w.target ? w.targetSlug : "nowhere-school" }), atTargetSite: "stored" },
   "app/(app)/admin/policy/actions.ts#saveSitePolicyAction": {
     input: () => tighterPolicyForm(),
     atTargetSite: "stored",
-    namesNoRecord: "a site's own lending policy: the caller's site gets a new version, the other site's policies must stay as they were",
+    notComparedWithMissing: "a site's own lending policy: the caller's site gets a new version, the other site's policies must stay as they were",
   },
   "app/(app)/admin/policy/actions.ts#saveDefaultPolicyAction": {
     input: () => tighterPolicyForm(),
     atTargetSite: "refused",
-    namesNoRecord: "the organisation's default policy: no site admin may save it (an organisation admin may), and no site's rows change",
+    notComparedWithMissing: "the organisation's default policy: no site admin may save it (an organisation admin may), and no site's rows change",
   },
   "app/(app)/clearances/actions.ts#signClearanceAction": { input: (s) => ({ coilId: s.coilId, verdict: "refused", conditions: "Probe" }), atTargetSite: "stored" },
   "app/(app)/coils/[tag]/actions.ts#changeCoilStatus": { input: (s) => ({ coilId: s.coilId, status: "repair" }), atTargetSite: "stored" },
@@ -430,7 +455,11 @@ async function restoreSites(): Promise<void> {
   await deleteSiteRecords(world.callerSiteId);
   await loadSiteRows(siteCopy({ siteId: world.callerSiteId, idPrefix: "sa-", thin: true }));
   await loadSiteRows(siteCopy({ siteId: world.target.siteId, idPrefix: "sb-", tagPrefix: "B-", thin: true }));
-  await testDb.siteMembership.update({ where: { userId_siteId: { userId: world.targetMember.id, siteId: world.target.siteId } }, data: { role: "member" } });
+  // The other site's member as built: a member there, of no other site, not an organisation admin.
+  await testDb.siteMembership.deleteMany({ where: { userId: world.targetMember.id } });
+  await testDb.siteMembership.create({ data: { userId: world.targetMember.id, siteId: world.target.siteId, role: "member" } });
+  await testDb.user.update({ where: { id: world.targetMember.id }, data: { organisationAdmin: false, active: true } });
+  await testDb.site.updateMany({ where: { id: world.target.siteId }, data: { slug: world.targetSlug, name: "South school" } });
   await testDb.user.deleteMany({ where: { email: world.ghostMember.email } });
 }
 
@@ -456,7 +485,7 @@ describe("a site's admin cannot reach another site's records through any entry p
     asCaller();
     const crossSite = await callEntryPoint(key, await probe.input(world.target, world, world.targetMember), { throws: "record" });
     expect(snapshotDifference(targetBefore, await siteSnapshot(world.target.siteId)), `${key} changed the other site's records`).toEqual({});
-    if (!probe.namesNoRecord) {
+    if (!probe.notComparedWithMissing) {
       const ghost = await callEntryPoint(key, await probe.input(world.ghost, world, world.ghostMember), { throws: "record" });
       expect(asGhost(crossSite, world), "the answer for another site's record differs from the answer for one that does not exist").toEqual(asGhost(ghost, world));
     }
@@ -466,7 +495,7 @@ describe("a site's admin cannot reach another site's records through any entry p
     const atTarget = await callEntryPoint(key, await probe.input(world.target, world, world.targetMember), { throws: "record" });
     if (probe.atTargetSite === "stored") expect([200, 201, 303], `${key} as the site's own admin: ${atTarget.message}`).toContain(atTarget.status);
     else expect([409, 422], `${key} as the site's own admin should be refused (the record is there): ${atTarget.message}`).toContain(atTarget.status);
-    if (!probe.namesNoRecord) expect(asGhost(atTarget, world), "the site's own admin gets the same answer: the probe never reached a record").not.toEqual(asGhost(crossSite, world));
+    if (!probe.notComparedWithMissing) expect(asGhost(atTarget, world), "the site's own admin gets the same answer: the probe never reached a record").not.toEqual(asGhost(crossSite, world));
   });
 });
 

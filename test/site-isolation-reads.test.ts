@@ -120,6 +120,7 @@ const SCOPED_READS: Record<string, Call> = {
   "sweeps.ts#getCoilForSweepEntry": args((p) => p.coilTag()),
   "sweeps.ts#listCalibrationSweeps": args((p) => p.coilId()),
   "sites.ts#listSites": args(),
+  "district.ts#getDistrictHealth": args((p) => p.now),
   "users.ts#listSiteMembers": args(),
   "users.ts#listAllUsers": args(),
 };

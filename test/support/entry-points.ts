@@ -13,8 +13,16 @@ export type Required = "member" | "steward" | "admin" | "organisation" | "public
 
 /** The committed table: every mutating entry point and the least role that may use it. */
 export const ENTRY_POINT_ROLES: Record<string, Required> = {
+  // A site's admin manages that site's members; an organisation admin manages sites and organisation admins.
   "app/(app)/admin/actions.ts#addUser": "admin",
+  "app/(app)/admin/actions.ts#addExistingMember": "admin",
   "app/(app)/admin/actions.ts#changeAccess": "admin",
+  "app/(app)/admin/actions.ts#removeSiteMember": "admin",
+  "app/(app)/admin/sites/actions.ts#addSite": "organisation",
+  "app/(app)/admin/sites/actions.ts#changeSiteName": "organisation",
+  "app/(app)/admin/sites/actions.ts#changeOrganisationAdmin": "organisation",
+  // The site switcher (and the district view's drill-down): anyone signed in, to a site they may reach.
+  "app/(app)/site-actions.ts#switchSite": "member",
   // The organisation's default lending policy: organisation admins; a site's own tightening of it: that site's admins.
   "app/(app)/admin/policy/actions.ts#saveDefaultPolicyAction": "organisation",
   "app/(app)/admin/policy/actions.ts#saveSitePolicyAction": "admin",
