@@ -10,7 +10,8 @@ import { signInAs, type DemoRole } from "./support/accounts";
 import { localMinute } from "./support/http-client";
 import { discoverMutatingRoutes, ENTRY_POINT_ROLES } from "../test/support/entry-points";
 
-const RANK: Record<DemoRole, number> = { member: 1, steward: 2, admin: 3 };
+// The organisation admin is admin at every site.
+const RANK: Record<DemoRole, number> = { member: 1, steward: 2, admin: 3, organiser: 4 };
 
 const validCoil = { tag: "SEC-E2E-01", name: "Guard probe", builderName: "Test runner", formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002 };
 const validSweep = {

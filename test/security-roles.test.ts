@@ -11,7 +11,7 @@
  * every entry point for every role in seconds, and lets the test count every table's rows before and after a
  * refusal — "nothing stored" is checked for the whole database, not one table. The HTTP side of the route
  * handlers (cookies, real sessions, status codes on the wire) is covered again against the built app in
- * e2e/security-routes.spec.ts and e2e/sites.spec.ts; the action protocol's Origin check in
+ * e2e/security-routes.spec.ts and e2e/two-schools.spec.ts; the action protocol's Origin check in
  * e2e/security-origin.spec.ts.
  *
  * The site dimension: a user who is admin at site A (so no role check stands in the way) calls every entry point

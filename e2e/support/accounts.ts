@@ -1,10 +1,11 @@
 import { expect, type Page } from "@playwright/test";
 
-/** The demo club's sign-ins (prisma/demo/people.ts). */
+/** The demo club's sign-ins (prisma/demo/people.ts), and the demo network's organisation admin. */
 export const DEMO = {
   admin: { email: "admin@kettlewell.example", password: "demo-admin-pass" },
   steward: { email: "steward@kettlewell.example", password: "demo-steward-pass" },
   member: { email: "member@kettlewell.example", password: "demo-member-pass" },
+  organiser: { email: "coordinator@northmoor.example", password: "demo-organisation-pass" },
 } as const;
 
 export type DemoRole = keyof typeof DEMO;

@@ -87,6 +87,8 @@ export const ROUTE_TABLE: AuditRoute[] = [
   { name: "loan return", file: "app/(app)/loans/[id]/return/page.tsx", role: "steward", path: firstLink("/loans", /^\/loans\/[^/]+\/return$/) },
   { name: "admin: users and audit log", file: "app/(app)/admin/page.tsx", role: "admin", path: "/admin" },
   { name: "admin: policy", file: "app/(app)/admin/policy/page.tsx", role: "admin", path: "/admin/policy" },
+  { name: "admin: sites", file: "app/(app)/admin/sites/page.tsx", role: "organiser", path: "/admin/sites" },
+  { name: "district", file: "app/(app)/district/page.tsx", role: "organiser", path: "/district" },
 ];
 
 /** The page.tsx files under app/ that the table does not list (should be none). */

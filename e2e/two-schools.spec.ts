@@ -64,9 +64,10 @@ test("each school's steward, on a different instance, sees only their own fleet"
   const club = await signedIn(browser, 0, "clubSteward");
   const school = await signedIn(browser, 1, "schoolSteward");
 
-  // The current site is always named in the navigation.
-  await expect(club.getByRole("navigation").getByText(CLUB.name)).toBeVisible();
-  await expect(school.getByRole("navigation").getByText(SCHOOL.name)).toBeVisible();
+  // The current site is always named in the header.
+  await expect(club.getByRole("banner")).toContainText(CLUB.name);
+  await expect(school.getByRole("banner")).toContainText(SCHOOL.name);
+  await expect(school.getByRole("banner")).not.toContainText(CLUB.name);
 
   expect(await listedTags(club)).toEqual(CLUB.tags);
   expect(await listedTags(school)).toEqual(SCHOOL.tags);
@@ -99,16 +100,16 @@ test("the club lends a cleared coil to the school's event: the school sees the l
   // The school's steward, on the other instance, finds it among the loans borrowed from other sites.
   const school = await signedIn(browser, 1, "schoolSteward");
   await school.goto("/loans");
-  const borrowed = school.getByRole("region", { name: /borrowed from other sites/i });
-  await expect(borrowed.getByRole("row", { name: new RegExp(`${LENT_COIL}.*Fenwick science fair`) })).toBeVisible();
-  await borrowed.getByRole("link", { name: new RegExp(`Loan sheet.*${LENT_COIL}|${LENT_COIL}.*loan sheet`, "i") }).first().click();
+  const borrowed = school.getByRole("region", { name: "Borrowed from other sites" });
+  await expect(borrowed.getByRole("row", { name: new RegExp(`${LENT_COIL}.*${CLUB.name}.*Fenwick science fair`) })).toBeVisible();
+  await borrowed.getByRole("link", { name: `Loan sheet for ${LENT_COIL} from ${CLUB.name}` }).click();
   await expect(school).toHaveURL(new RegExp(`${loanSheet}$`));
   await expect(school.getByRole("heading", { level: 1, name: new RegExp(`^Handover sheet: ${LENT_COIL}`) })).toBeVisible();
   await expect(school.getByText("Fenwick science fair", { exact: true })).toBeVisible();
 
   await school.goto("/loans");
-  await school.getByRole("region", { name: /borrowed from other sites/i }).getByRole("link", { name: /clearance sheet/i }).first().click();
-  await expect(school.getByRole("heading", { level: 1, name: new RegExp(LENT_COIL) })).toBeVisible();
+  await school.getByRole("region", { name: "Borrowed from other sites" }).getByRole("link", { name: `Clearance sheet for ${LENT_COIL} from ${CLUB.name}` }).click();
+  await expect(school.getByRole("heading", { level: 1, name: new RegExp(`^Lending sheet: ${LENT_COIL}`) })).toBeVisible();
   await expect(school).toHaveURL(/\/clearances\/[^/]+\/sheet$/);
 
   // Nothing else of the lending site: the coil page, its decision page, the return form.
@@ -120,24 +121,31 @@ test("the club lends a cleared coil to the school's event: the school sees the l
   await school.context().close();
 });
 
-test("the organisation admin's district view shows every site and drills down into one", async ({ browser }) => {
+test("the organisation admin's district view shows every site's fleet and drills down into one", async ({ browser }) => {
   const organiser = await signedIn(browser, 0, "organiser");
-  await organiser.goto("/district");
-  await expect(organiser.getByRole("heading", { level: 1 })).toBeVisible();
+  await organiser.getByRole("link", { name: "District" }).click();
+  await expect(organiser.getByRole("heading", { level: 1, name: "District" })).toBeVisible();
   const table = organiser.getByRole("table");
-  const clubRow = table.getByRole("row", { name: new RegExp(CLUB.name) });
-  const schoolRow = table.getByRole("row", { name: new RegExp(SCHOOL.name) });
-  await expect(clubRow).toBeVisible();
-  await expect(schoolRow).toBeVisible();
-  // The club's coil lent to the school's event is out on loan; neither site has an open failure in the demo.
-  await expect(clubRow.getByRole("cell")).not.toHaveCount(0);
+  const headings = await table.getByRole("columnheader").allTextContents();
+  const figure = async (site: string, column: string) => {
+    const cells = table.getByRole("row", { name: new RegExp(site) }).getByRole("cell");
+    // The site's name is the row header; the cells follow the column headings after "Site".
+    return (await cells.nth(headings.indexOf(column) - 1).textContent())?.trim();
+  };
+  expect(await figure(CLUB.name, "Coils")).toBe(String(CLUB.tags.length));
+  expect(await figure(SCHOOL.name, "Coils")).toBe(String(SCHOOL.tags.length));
+  // Loans count at the lending site: the demo's loan to the library and the one lent to the school above.
+  expect(await figure(CLUB.name, "On loan")).toBe("2");
+  expect(await figure(SCHOOL.name, "On loan")).toBe("0");
 
-  await schoolRow.getByRole("link", { name: new RegExp(SCHOOL.name) }).click();
-  await expect(organiser.getByRole("navigation").getByText(SCHOOL.name)).toBeVisible();
+  await organiser.getByRole("button", { name: `${SCHOOL.name}: open its dashboard` }).click();
+  await expect(organiser).toHaveURL(/\/$/);
+  await expect(organiser.getByRole("combobox", { name: "Site" }).locator("option:checked")).toHaveText(`${SCHOOL.name} (admin)`);
   expect(await listedTags(organiser)).toEqual(SCHOOL.tags);
 
-  // A steward is not an organisation admin: the district view is refused.
+  // A site's steward is not an organisation admin: no District link, and the page is refused.
   const club = await signedIn(browser, 1, "clubSteward");
+  await expect(club.getByRole("link", { name: "District" })).toHaveCount(0);
   const response = await club.goto("/district");
   expect(response?.status()).toBe(403);
   await organiser.context().close();
