@@ -294,7 +294,7 @@ const SITE_PROBES: Record<string, Probe> = {
     atTargetSite: "refused",
     notComparedWithMissing: "organisation admins only: refused for every site's admin alike",
   },
-  "app/(app)/site-actions.ts#switchSite": { input: (s, w) => ({ slug: s === w.target ? w.targetSlug : "nowhere-school" }), atTargetSite: "stored" },
+  "app/(app)/site-actions.ts#switchSite": { input: (s) => ({ slug: s.siteSlug }), atTargetSite: "stored" },
   "app/(app)/admin/policy/actions.ts#saveSitePolicyAction": {
     input: () => tighterPolicyForm(),
     atTargetSite: "stored",
@@ -434,11 +434,11 @@ async function buildWorld(): Promise<void> {
   await loadSiteRows(callerRows);
   await loadSiteRows(targetRows);
   Object.assign(world, {
-    target: recordsOf(targetRows, targetSite.id, "sb-", "B-"),
+    target: recordsOf(targetRows, targetSite, "sb-", "B-"),
     targetSlug: targetSite.slug,
     targetAdmin: (await makeSiteUser("admin@south.test", { [targetSite.id]: "admin" })).id,
     targetMember: await makeSiteUser("member@south.test", { [targetSite.id]: "member" }),
-    ghost: recordsOf(siteCopy({ siteId: "site-nowhere", idPrefix: "sg-", tagPrefix: "G-" }), "site-nowhere", "sg-", "G-"),
+    ghost: recordsOf(siteCopy({ siteId: "site-nowhere", idPrefix: "sg-", tagPrefix: "G-" }), { id: "site-nowhere", slug: "nowhere-school" }, "sg-", "G-"),
     ghostMember: { id: "sg-user", email: "member@nowhere.test" },
     caller: (await makeSiteUser("admin@north.test", { [callerSite.id]: "admin" })).id,
     callerSiteId: callerSite.id,
@@ -527,14 +527,24 @@ const RECORD_PAGES: Record<string, RecordPage> = {
   "app/api/export/coils/[tag]/route.ts#GET": { params: (s) => ({ tag: `${s.coilTag}.json` }) },
 };
 
-/** Pages without a dynamic segment that show a record named in the query string. */
+/**
+ * Pages that take a record named in the query string (listed by hand: a page that only filters a list by it, such as
+ * /sessions?coil=, shows the scope's records only, which test/site-isolation-reads.test.ts proves of every read).
+ * "file?what" for a page of RECORD_PAGES opened with a query.
+ */
 const QUERY_RECORD_PAGES: Record<string, RecordPage> = {
   "app/(app)/clearances/new/page.tsx": { params: () => ({}), searchParams: (s) => ({ coil: s.coilTag }) },
+  "app/(app)/loans/new/page.tsx": { params: () => ({}), searchParams: (s) => ({ coil: s.coilTag }) },
+  "app/(app)/sweeps/new/page.tsx": { params: () => ({}), searchParams: (s) => ({ coil: s.coilTag }) },
+  "app/(app)/sweeps/import/page.tsx": { params: () => ({}), searchParams: (s) => ({ coil: s.coilTag }) },
+  // A label's link names its site: for a site the caller does not belong to, the coil page is not found either.
+  "app/(app)/coils/[tag]/page.tsx?site": { params: (s) => ({ tag: s.coilTag }), searchParams: (s) => ({ site: s.siteSlug }) },
 };
 
 type PageAnswer = "found" | "not-found" | "forbidden" | "redirect";
 
-async function openRecordPage(file: string, page: RecordPage, site: SiteRecords): Promise<PageAnswer> {
+async function openRecordPage(key: string, page: RecordPage, site: SiteRecords): Promise<PageAnswer> {
+  const file = key.split("?")[0]!;
   if (file.includes("#")) {
     const outcome = await callEntryPoint(file, undefined, { params: page.params(site) });
     if (outcome.status === 200) return "found";

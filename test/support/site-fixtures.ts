@@ -179,6 +179,8 @@ export async function loadSiteRows(rows: SiteRows): Promise<void> {
 /** Ids and tags of one site's copy that the probes and pages need: a record of every kind. */
 export interface SiteRecords {
   siteId: string;
+  /** The site's short name (the site cookie, the ?site= of a label's link). */
+  siteSlug: string;
   idPrefix: string;
   tagPrefix: string;
   /** Every coil tag of the copy. */
@@ -201,7 +203,7 @@ export interface SiteRecords {
   outLoanCoilTag: string;
 }
 
-export function recordsOf(rows: SiteRows, siteId: string, idPrefix: string, tagPrefix = ""): SiteRecords {
+export function recordsOf(rows: SiteRows, site: { id: string; slug: string }, idPrefix: string, tagPrefix = ""): SiteRecords {
   const first = <T,>(list: T[], what: string): T => {
     const found = list[0];
     if (found === undefined) throw new Error(`The site copy has no ${what}: choose other demo coils (SITE_COPY_TAGS).`);
@@ -214,7 +216,8 @@ export function recordsOf(rows: SiteRows, siteId: string, idPrefix: string, tagP
   );
   const replaced = new Set(rows.componentReplacements.map((link) => link.id));
   return {
-    siteId,
+    siteId: site.id,
+    siteSlug: site.slug,
     idPrefix,
     tagPrefix,
     tags: rows.coils.map((c) => c.tag as string),
