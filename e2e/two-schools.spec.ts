@@ -76,6 +76,12 @@ test("each school's steward, on a different instance, sees only their own fleet"
   for (const path of [`/coils/${LENT_COIL}`, `/coils/${LENT_COIL}/label`, `/fleet/${LENT_COIL}/trends`, `/api/export/coils/${LENT_COIL}.json`]) await expectNotFound(school, path);
   await expectNotFound(club, `/coils/${SCHOOL.tags[0]}`);
 
+  // The whole-fleet exports over HTTP hold only the site's own coils.
+  const exported = await school.request.get("/api/export/fleet.json");
+  expect(exported.status()).toBe(200);
+  const logbook = (await exported.json()) as { coils: { tag: string }[] };
+  expect(logbook.coils.map((coil) => coil.tag).sort()).toEqual(SCHOOL.tags);
+
   // The dashboard, sessions and sweeps lists name only the site's own coils.
   for (const path of ["/", "/sessions", "/sweeps"]) {
     await school.goto(path);
