@@ -74,7 +74,8 @@ for (const route of ROUTES.filter((r) => r.role && VALID[r.key])) {
       await signInAs(rolePage, role);
       const refused = await send(rolePage.request, body);
       expect(refused.status()).toBe(403);
-      expect(await refused.json()).toMatchObject({ ok: false, message: `This needs the ${required} role; you are signed in as a ${role}.` });
+      // Roles are per site: the demo's people sign in at the club's site.
+      expect(await refused.json()).toMatchObject({ ok: false, message: `This needs the ${required} role at Kettlewell Maker Collective; you are a ${role} there.` });
       await context.close();
     }
     expect(await fleetSnapshot(page)).toBe(before);
