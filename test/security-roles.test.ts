@@ -242,6 +242,9 @@ interface SiteWorld {
   /** Admin at the caller's site only. */
   caller: string;
   callerSiteId: string;
+  callerSlug: string;
+  /** An organisation admin (who may switch to either site) working at the caller's site. */
+  organiser: string;
 }
 
 interface Person {
@@ -442,6 +445,8 @@ async function buildWorld(): Promise<void> {
     ghostMember: { id: "sg-user", email: "member@nowhere.test" },
     caller: (await makeSiteUser("admin@north.test", { [callerSite.id]: "admin" })).id,
     callerSiteId: callerSite.id,
+    callerSlug: callerSite.slug,
+    organiser: (await makeSiteUser("organiser@district.test", {}, true)).id,
   } satisfies SiteWorld);
 }
 
@@ -504,6 +509,8 @@ describe("a site's admin cannot reach another site's records through any entry p
 interface RecordPage {
   params: (site: SiteRecords) => Record<string, string>;
   searchParams?: (site: SiteRecords) => Record<string, string>;
+  /** Why an organisation admin working at another site is answered (without the record) rather than "not found". */
+  answersOrganiser?: string;
 }
 
 /** Every page (and GET route) that shows one record, with how to name a site's record. */
@@ -538,7 +545,11 @@ const QUERY_RECORD_PAGES: Record<string, RecordPage> = {
   "app/(app)/sweeps/new/page.tsx": { params: () => ({}), searchParams: (s) => ({ coil: s.coilTag }) },
   "app/(app)/sweeps/import/page.tsx": { params: () => ({}), searchParams: (s) => ({ coil: s.coilTag }) },
   // A label's link names its site: for a site the caller does not belong to, the coil page is not found either.
-  "app/(app)/coils/[tag]/page.tsx?site": { params: (s) => ({ tag: s.coilTag }), searchParams: (s) => ({ site: s.siteSlug }) },
+  "app/(app)/coils/[tag]/page.tsx?site": {
+    params: (s) => ({ tag: s.coilTag }),
+    searchParams: (s) => ({ site: s.siteSlug }),
+    answersOrganiser: "someone who may reach the label's site is told to switch to it; the page reads nothing of the coil",
+  },
 };
 
 type PageAnswer = "found" | "not-found" | "forbidden" | "redirect";
@@ -580,6 +591,11 @@ describe("a site's admin gets not-found for another site's record on every recor
     expect(await openRecordPage(file, page, world.target), "the site's own admin sees the record (the control)").toBe("found");
     asCaller();
     expect(await openRecordPage(file, page, world.target)).toBe("not-found");
+    // An organisation admin may switch to the other site, but while working at this one its records are not found here either.
+    if (!page.answersOrganiser) {
+      Object.assign(session, { userId: world.organiser, siteSlug: world.callerSlug });
+      expect(await openRecordPage(file, page, world.target)).toBe("not-found");
+    }
     expect(await openRecordPage(file, page, world.ghost)).toBe("not-found");
   });
 
