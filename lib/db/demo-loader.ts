@@ -6,6 +6,7 @@ import { prisma } from "./client";
 import { markCoilChanged } from "./coil-summary";
 import { fitsBySession } from "./session-fits";
 import type { Prisma } from "./generated/client";
+import { DEFAULT_SITE_ID } from "./site-scope";
 
 export interface DemoDataset {
   users: Prisma.UserCreateManyInput[];
@@ -71,7 +72,10 @@ export async function loadDemoDataset(data: DemoDataset): Promise<void> {
   );
 }
 
-/** Empties every table (children first). Only for the demo reset. */
+/** The default site as the sites migration creates it (prisma/migrations/20261204090000_sites). */
+const DEFAULT_SITE = { id: DEFAULT_SITE_ID, slug: "main", name: "Main site" };
+
+/** Empties every table (children first), leaving only the default site. For the demo reset and the tests. */
 export async function emptyDatabase(): Promise<void> {
   await prisma.$transaction([
     prisma.auditEvent.deleteMany(),
@@ -91,7 +95,11 @@ export async function emptyDatabase(): Promise<void> {
     prisma.topLoad.deleteMany(),
     prisma.coil.deleteMany(),
     prisma.signInThrottle.deleteMany(),
+    prisma.siteMembership.deleteMany(),
     prisma.user.deleteMany(),
+    // Back to what a freshly migrated database holds: the one default site, as the migration named it.
+    prisma.site.deleteMany({ where: { id: { not: DEFAULT_SITE_ID } } }),
+    prisma.site.upsert({ where: { id: DEFAULT_SITE_ID }, create: DEFAULT_SITE, update: DEFAULT_SITE }),
   ]);
 }
 
