@@ -1,6 +1,7 @@
 /**
  * Writes a generated demo dataset (prisma/demo/generate.ts) in one transaction: either the whole
- * demo club lands or nothing does. Also empties the database for `db:reset-demo`.
+ * demo network (its sites, people and their memberships, every site's logbook) lands or nothing does.
+ * Also empties the database for `db:reset-demo`.
  */
 import { prisma } from "./client";
 import { markCoilChanged } from "./coil-summary";
@@ -9,7 +10,10 @@ import type { Prisma } from "./generated/client";
 import { DEFAULT_SITE_ID } from "./site-scope";
 
 export interface DemoDataset {
+  /** The default site (DEFAULT_SITE_ID) is among them: it exists already and is renamed to the demo's first site. */
+  sites: Prisma.SiteCreateManyInput[];
   users: Prisma.UserCreateManyInput[];
+  memberships: Prisma.SiteMembershipCreateManyInput[];
   coils: Prisma.CoilCreateManyInput[];
   topLoads: Prisma.TopLoadCreateManyInput[];
   components: Prisma.ComponentCreateManyInput[];
@@ -42,7 +46,9 @@ async function inChunks<T>(rows: T[], write: (chunk: T[]) => Promise<unknown>) {
 export async function loadDemoDataset(data: DemoDataset): Promise<void> {
   await prisma.$transaction(
     async (tx) => {
+      for (const site of data.sites) await tx.site.upsert({ where: { id: site.id! }, create: site, update: site });
       await tx.user.createMany({ data: data.users });
+      await tx.siteMembership.createMany({ data: data.memberships });
       await tx.coil.createMany({ data: data.coils });
       await tx.topLoad.createMany({ data: data.topLoads });
       await tx.component.createMany({ data: data.components });

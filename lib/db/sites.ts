@@ -38,6 +38,11 @@ export async function findReachableSite(actorId: string, slug: string): Promise<
   });
 }
 
+/** A site by its short name, for scripts run on the server (no actor to scope by). */
+export function findSiteBySlug(slug: string): Promise<SiteRef | null> {
+  return prisma.site.findUnique({ where: { slug }, select: { id: true, slug: true, name: true } });
+}
+
 export class DuplicateSiteSlugError extends Error {
   constructor(readonly slug: string) {
     super(`A site with the short name "${slug}" already exists`);
