@@ -1,4 +1,5 @@
-import { beforeEach, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { closeWriters, openWriters, outcomes, type Writer } from "./support/writers";
 import { addMembership, createSite, mainScope, makeOrganisationAdmin, makeUser, makeUserAtSite, resetDatabase, siteScope, testDb, TEST_PASSWORD } from "./support/db";
 import { createUser, DuplicateEmailError, LastAdminError, listSiteMembers, setOrganisationAdmin, SiteAccessError, updateUserAccess, UserNotFoundError } from "@/lib/db/users";
 import { addMemberByEmail, AlreadyMemberError, AccountNotFoundError, createSite as createSiteAsActor, DuplicateSiteSlugError, listSites, removeMember, renameSite } from "@/lib/db/sites";
@@ -125,6 +126,52 @@ describe("the admin rule: every site keeps an admin, the organisation an organis
     const admin = await makeUser("admin@club.test", "admin");
     await expect(setOrganisationAdmin(mainScope(admin.id), admin.id, true)).rejects.toBeInstanceOf(SiteAccessError);
     expect((await testDb.user.findUniqueOrThrow({ where: { id: admin.id } })).organisationAdmin).toBe(false);
+  });
+});
+
+describe("the admin rule under concurrent writes (one connection each, as two server processes)", () => {
+  let writers: Writer[] = [];
+  beforeAll(async () => {
+    writers = await openWriters(2);
+  });
+  afterAll(() => closeWriters(writers));
+
+  it("two site admins demoting each other at once leave the site one admin", async () => {
+    const ann = await makeUser("ann@club.test", "admin");
+    const ben = await makeUser("ben@club.test", "admin");
+    const settled = await Promise.allSettled([
+      writers[0]!.users.updateUserAccess(mainScope(ann.id), ben.id, { role: "member" }),
+      writers[1]!.users.updateUserAccess(mainScope(ben.id), ann.id, { role: "member" }),
+    ]);
+    const { stored, refused } = outcomes(settled);
+    expect(stored).toHaveLength(1);
+    // The loser, run again after the conflict, finds either no other admin left or that it is no longer an admin itself.
+    expect(refused).toHaveLength(1);
+    expect(refused[0]).toSatisfy((e) => e instanceof writers[0]!.users.LastAdminError || e instanceof writers[0]!.users.SiteAccessError || e instanceof writers[1]!.users.LastAdminError || e instanceof writers[1]!.users.SiteAccessError);
+    expect(await testDb.siteMembership.count({ where: { siteId: DEFAULT_SITE_ID, role: "admin" } })).toBe(1);
+  });
+
+  it("one admin removing the other from the site while the other demotes the first leaves one admin", async () => {
+    const ann = await makeUser("ann@club.test", "admin");
+    const ben = await makeUser("ben@club.test", "admin");
+    // The removal runs on the test's own connection, the demotion on a writer's: two connections, side by side.
+    const settled = await Promise.allSettled([removeMember(mainScope(ann.id), ben.id), writers[1]!.users.updateUserAccess(mainScope(ben.id), ann.id, { role: "steward" })]);
+    expect(outcomes(settled).stored).toHaveLength(1);
+    expect(await testDb.siteMembership.count({ where: { siteId: DEFAULT_SITE_ID, role: "admin" } })).toBe(1);
+  });
+
+  it("two organisation admins withdrawing each other at once leave the organisation one", async () => {
+    const ann = await makeOrganisationAdmin("ann@district.test", "Ann");
+    const ben = await makeOrganisationAdmin("ben@district.test", "Ben");
+    const settled = await Promise.allSettled([
+      writers[0]!.users.setOrganisationAdmin(mainScope(ann.id), ben.id, false),
+      writers[1]!.users.setOrganisationAdmin(mainScope(ben.id), ann.id, false),
+    ]);
+    const { stored, refused } = outcomes(settled);
+    expect(stored).toHaveLength(1);
+    // The loser either re-read the winner's change (the last organisation admin) or had lost its own authority to it.
+    expect(refused.map((e) => e.message)).toEqual([expect.stringMatching(/at least one active organisation admin|needs an organisation admin/)]);
+    expect(await testDb.user.count({ where: { organisationAdmin: true, active: true } })).toBe(1);
   });
 });
 
