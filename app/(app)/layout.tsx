@@ -1,6 +1,6 @@
 import Link from "next/link";
-import { redirect } from "next/navigation";
-import { getCurrentUser } from "@/lib/auth/session";
+import { forbidden, redirect } from "next/navigation";
+import { AuthError, getCurrentUser } from "@/lib/auth/session";
 import { MainNav } from "@/app/ui/main-nav";
 import { SignOutButton } from "@/app/ui/sign-out-button";
 import { StackedTableLabels } from "@/app/ui/stacked-table-labels";
@@ -12,7 +12,8 @@ import { SiteSwitcher } from "@/app/ui/site-switcher";
  * switcher for people in several sites, and the footer's caution.
  */
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
-  const user = await getCurrentUser();
+  // An account whose last membership was removed while signed in reaches no site: the 403 page says so.
+  const user = await getCurrentUser().catch((error: unknown) => (error instanceof AuthError ? forbidden() : Promise.reject(error)));
   if (!user) redirect("/sign-in");
   return (
     <>
