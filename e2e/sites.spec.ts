@@ -3,6 +3,7 @@
  * organisation admin's district view lists every site and drills down into one, and a site admin adds an account of
  * another site to theirs. Uses the demo network (prisma/demo/people.ts).
  */
+import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
 import { SignInPage, signInAs } from "./support/accounts";
 
@@ -64,4 +65,14 @@ test("a site admin adds an account of another site by e-mail; a site admin sees 
   await expect(page.getByRole("cell", { name: "member@fenwick.example", exact: true })).toBeVisible();
   const response = await page.goto("/district");
   expect(response?.status()).toBe(403);
+});
+
+test("the district view, the sites page and the members page have no serious accessibility violation", async ({ page }) => {
+  await signInWith(page, "coordinator@northmoor.example", "demo-organisation-pass");
+  for (const path of ["/district", "/admin/sites", "/admin"]) {
+    await page.goto(path);
+    const { violations } = await new AxeBuilder({ page }).withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa"]).analyze();
+    const blocking = violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${path}: ${v.id} ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`);
+    expect(blocking).toEqual([]);
+  }
 });
