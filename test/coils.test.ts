@@ -145,7 +145,7 @@ describe("top loads", () => {
 });
 
 describe("sites: a coil belongs to its site", () => {
-  // Sites are not emptied between tests (the default site must stay); this one is removed when the file is done.
+  // Removed again when the file is done, so the files after this one start from the default site alone.
   const OTHER_SITE = { id: "site-coils-test-other", slug: "coils-test-other", name: "Other test site" };
   const DAY = 86_400_000;
 
