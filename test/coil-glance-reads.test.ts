@@ -25,14 +25,14 @@ describe("the coil page band's reads", () => {
     const now = new Date();
     const coil = await makeCleanCoil("GL-01", now);
     const standingNow = async () => readCoilStanding(scope, coil.id, await testDb.component.findMany({ where: { coilId: coil.id }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }), now);
-    const dashboardRow = async () => (await getFleetOverview(now)).find((r) => r.id === coil.id)!;
+    const dashboardRow = async () => (await getFleetOverview(scope, now)).find((r) => r.id === coil.id)!;
 
     let standing = await standingNow();
     expect(standing.clearance.kind).toBe("none");
     expect(standing.activeLoan).toBeNull();
 
-    await signClearance(steward.id, clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES }), new Date(now.getTime() - 1000));
-    await createLoan(steward.id, { coilId: coil.id, borrower: "Riverside Library", borrowerContact: "", event: "Family science morning", expectedBackAt: new Date(now.getTime() + 3 * DAY) }, new Date(now.getTime() - 500));
+    await signClearance(mainScope(steward.id), clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES }), new Date(now.getTime() - 1000));
+    await createLoan(mainScope(steward.id), { coilId: coil.id, borrower: "Riverside Library", borrowerContact: "", event: "Family science morning", expectedBackAt: new Date(now.getTime() + 3 * DAY) }, new Date(now.getTime() - 500));
     standing = await standingNow();
     const row = await dashboardRow();
     expect(standing.clearance.kind).toBe("valid");

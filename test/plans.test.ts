@@ -115,7 +115,7 @@ describe("a planned coil is not in service", () => {
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
     const coil = await savePlannedCoil(mainScope(steward.id), planSaveSchema.parse({ tag: "PL-05", name: "Lend me", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan);
     const expectedBackAt = new Date(Date.now() + 7 * 86_400_000);
-    const refusal = await createLoan(steward.id, { coilId: coil.id, borrower: "Fair", borrowerContact: "", event: "Open day", expectedBackAt }).catch((error: unknown) => error);
+    const refusal = await createLoan(mainScope(steward.id), { coilId: coil.id, borrower: "Fair", borrowerContact: "", event: "Open day", expectedBackAt }).catch((error: unknown) => error);
     expect(refusal).toBeInstanceOf(LoanRefusedError);
     expect((refusal as LoanRefusedError).reason).toBe("planned");
     expect(await testDb.loan.count()).toBe(0);
@@ -132,10 +132,10 @@ describe("a planned coil is not in service", () => {
     const coil = await makeCleanCoil("PL-07", now);
     await setCoilStatus(mainScope(steward.id), coil.id, "planned");
     const decision = clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES, maxSupplyVoltageV: "24 V", maxRunS: "12", conditions: "" });
-    await expect(signClearance(steward.id, decision, now)).rejects.toBeInstanceOf(ClearanceRefusedError);
+    await expect(signClearance(mainScope(steward.id), decision, now)).rejects.toBeInstanceOf(ClearanceRefusedError);
     expect(await testDb.clearance.count()).toBe(0);
     await setCoilStatus(mainScope(steward.id), coil.id, "active");
-    expect((await signClearance(steward.id, decision, now)).verdict).toBe("cleared");
+    expect((await signClearance(mainScope(steward.id), decision, now)).verdict).toBe("cleared");
   });
 
   it("keeps its plan through a JSON logbook export", async () => {
