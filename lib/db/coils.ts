@@ -105,7 +105,7 @@ export async function setCoilStatus(scope: SiteScope, coilId: string, status: "p
 
 export class CoilNotFoundError extends Error {
   constructor(readonly ref: string) {
-    super(`No coil ${ref} on this install`);
+    super(`No coil ${ref} at this site`);
   }
 }
 
