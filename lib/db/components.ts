@@ -45,7 +45,7 @@ export async function addComponent(scope: SiteScope, input: ComponentInput) {
     if (!coil) throw new ComponentStateError("That coil no longer exists.");
     const component = await tx.component.create({ data: { coilId: input.coilId, ...componentData(input) } });
     await markCoilChanged(tx, input.coilId);
-    await recordLapseCausedByWrite(tx, input.coilId, scope.actorId);
+    await recordLapseCausedByWrite(scope, tx, input.coilId);
     await recordAudit(tx, { siteId: scope.siteId, actorId: scope.actorId, action: "create", entity: "Component", entityId: component.id, summary: `${coil.tag}: fitted ${component.partNumber} (${component.kind})`, detail: input });
     return { component, coilTag: coil.tag };
   });
@@ -70,7 +70,7 @@ export async function replaceComponent(scope: SiteScope, input: ReplaceComponent
     const removed = await tx.component.updateMany({ where: { id: old.id, removedAt: null }, data: { removedAt: next.installedAt, removalReason, replacedById: fitted.id } });
     if (removed.count === 0) throw new ComponentStateError(`${old.partNumber} was replaced by someone else just now.`);
     await markCoilChanged(tx, old.coilId);
-    await recordLapseCausedByWrite(tx, old.coilId, scope.actorId);
+    await recordLapseCausedByWrite(scope, tx, old.coilId);
     await recordAudit(tx, {
       siteId: scope.siteId,
       actorId: scope.actorId,
