@@ -158,4 +158,23 @@ describe("export and import between sites", () => {
     // A second import of the same file at the importing site is refused by tag, as at any site.
     await expect(importLogbook(northScope, parse(file))).rejects.toBeInstanceOf(ImportConflictError);
   });
+
+  it("a clearance's policy version held by another site is recreated at the importing site from the file, never linked", async () => {
+    const file = (await exportCoil(main, "KM-02"))!;
+    const rulesJson = file.coils[0]!.clearances[0]!.policyRulesJson;
+    const latest = (await testDb.clearancePolicy.aggregate({ _max: { version: true } }))._max.version!;
+    const mainOwn = await testDb.clearancePolicy.create({ data: { siteId: DEFAULT_SITE_ID, version: latest + 1, rulesJson: '{"mainSiteOnly":true}', note: "Main site's own" } });
+    const doc = parse(file);
+    for (const clearance of doc.coils[0]!.clearances) clearance.policyVersion = mainOwn.version;
+
+    await importLogbook(siteScope(north.id, null), doc, { asTag: "KM-02-N" });
+
+    const clearances = await testDb.clearance.findMany({ where: { coil: { siteId: north.id, tag: "KM-02-N" } }, include: { policy: true } });
+    expect(clearances.length).toBe(doc.coils[0]!.clearances.length);
+    for (const clearance of clearances) {
+      expect(clearance.policyId).not.toBe(mainOwn.id);
+      expect(clearance.policy).toMatchObject({ siteId: north.id, version: mainOwn.version + 1, rulesJson });
+    }
+    expect(await testDb.clearancePolicy.findUniqueOrThrow({ where: { id: mainOwn.id } })).toEqual(mainOwn);
+  });
 });

@@ -3,6 +3,7 @@ import { beforeEach, describe, expect, it } from "vitest";
 import { createSite, mainScope, makeUser, resetDatabase, siteScope, testDb } from "./support/db";
 import { makeBenchCoil } from "./support/bench-fixtures";
 import { createSession, findLastTopLoadId, getSessionDetail, listSessions } from "@/lib/db/sessions";
+import { backfillSessionFits, backfillSessionFitsEverySite } from "@/lib/db/session-fits";
 import { DEFAULT_SITE_ID } from "@/lib/db/site-scope";
 import { RecordRefusedError } from "@/lib/db/record-refused";
 import { sessionSchema } from "@/lib/validation/session";
@@ -124,5 +125,33 @@ describe("a second site", () => {
     expect((await listSessions(north, { coilTag: "T-01" })).rows.map((r) => r.id)).toEqual([northSession.id]);
     expect((await listSessions(mainScope(null), { coilTag: "T-01" })).rows.map((r) => r.id)).toEqual([session.id]);
     expect(await getSessionDetail(mainScope(null), northSession.id)).toBeNull();
+  });
+});
+
+describe("the warm-up fit backfill", () => {
+  it("fits one site's sessions under its scope, and the setup task fits every site's, once", async () => {
+    const member = await makeUser("m@club.test", "member");
+    const { coil } = await makeBenchCoil(member.id, "T-01");
+    const north = await createSite("north");
+    const { coil: northCoil } = await makeBenchCoil(member.id, "T-01", north.id);
+    const samples = [0, 120, 240, 360, 480].map((elapsedS, i) => ({ elapsedS, temperatureC: 21 + 4 * i }));
+    // Sessions as they were stored before fits were kept with the session: samples, no fit.
+    const unfitted = (coilId: string) =>
+      testDb.runSession.create({
+        data: { coilId, startedAt: new Date("2026-01-10T14:05:00Z"), supplyVoltageV: 24, supplyCurrentA: 2, durationS: 480, ambientTempC: 21, samples: { create: samples } },
+      });
+    const mainSessions = [await unfitted(coil.id), await unfitted(coil.id)];
+    const northSessions = [await unfitted(northCoil.id)];
+    const fitted = async (ids: string[]) => testDb.runSession.count({ where: { id: { in: ids }, sinkFitSampleCount: { not: null } } });
+
+    expect(await backfillSessionFits(mainScope(null))).toBe(2);
+    expect(await fitted(mainSessions.map((s) => s.id))).toBe(2);
+    expect(await fitted(northSessions.map((s) => s.id))).toBe(0);
+    expect(await testDb.auditEvent.findFirstOrThrow({ where: { entity: "RunSession", action: "update" } })).toMatchObject({ siteId: DEFAULT_SITE_ID, actorId: null });
+
+    expect(Object.fromEntries(await backfillSessionFitsEverySite())).toEqual({ [DEFAULT_SITE_ID]: 0, [north.id]: 1 });
+    expect(await fitted(northSessions.map((s) => s.id))).toBe(1);
+    expect(await testDb.auditEvent.count({ where: { entity: "RunSession", action: "update", siteId: north.id } })).toBe(1);
+    expect([...(await backfillSessionFitsEverySite()).values()]).toEqual([0, 0]);
   });
 });

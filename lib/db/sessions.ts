@@ -99,7 +99,7 @@ async function findSessionByClientKey(tx: Tx, scope: SiteScope, clientKey: strin
     return { ...fields, coilTag: coil.tag, replayed: true };
   }
   if ((await tx.runSession.count({ where: { clientKey } })) > 0) {
-    throw new RecordRefusedError("clientKey", "Submission key: it belongs to another member's session; send a new key.");
+    throw new RecordRefusedError("clientKey", "Submission key: it was already used for another submission; send a new key.");
   }
   return null;
 }
