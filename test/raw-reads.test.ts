@@ -12,7 +12,7 @@ import { getCoilByTag } from "@/lib/db/coils";
 import { getCoilHistory, getCoilPageHistory } from "@/lib/db/coil-history";
 import { getCoilTimeline } from "@/lib/db/coil-timeline";
 import { readCoilPage } from "@/lib/db/coil-page";
-import { getCurrentPolicy, savePolicyVersion } from "@/lib/db/policy";
+import { getCurrentPolicy, saveSitePolicyVersion } from "@/lib/db/policy";
 import { getFleetOverview, readLatestClearances } from "@/lib/db/fleet";
 import { selectHealthWindow } from "@/lib/analysis/health-window";
 import { DEFAULT_CLEARANCE_POLICY } from "@/lib/calc/clearance-policy";
@@ -141,16 +141,25 @@ describe("raw page reads", () => {
     expect(await readCoilPage(main, "RR-99")).toBeNull();
   });
 
-  it("getCurrentPolicy: the highest version, as stored", async () => {
+  it("getCurrentPolicy: the organisation's and the site's highest versions, as stored, and no other site's", async () => {
     const admin = await makeUser("admin@club.test", "admin");
+    const north = siteScope((await createSite("north")).id, null);
     const first = await getCurrentPolicy(main);
-    await savePolicyVersion(mainScope(admin.id), { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.3 }, "tighter");
+    await saveSitePolicyVersion(mainScope(admin.id), { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.3 }, "tighter");
     const latest = await getCurrentPolicy(main);
-    const stored = await testDb.clearancePolicy.findFirstOrThrow({ orderBy: { version: "desc" } });
+    const storedDefault = await testDb.clearancePolicy.findFirstOrThrow({ where: { siteId: null }, orderBy: { version: "desc" } });
+    const storedOwn = await testDb.clearancePolicy.findFirstOrThrow({ where: { siteId: DEFAULT_SITE_ID }, orderBy: { version: "desc" } });
+    const fields = ({ id, siteId, version, note, createdAt }: typeof storedOwn) => ({ id, siteId, version, note, createdAt });
     expect(latest.version).toBe(first.version + 1);
-    expect(latest).toMatchObject(stored);
+    expect(latest).toMatchObject(fields(storedOwn));
+    expect(latest.organisationDefault).toMatchObject(fields(storedDefault));
+    expect(latest.siteOwn).toMatchObject(fields(storedOwn));
     expect(latest.createdAt).toBeInstanceOf(Date);
     expect(latest.rules.minVoltageHeadroom).toBe(0.3);
+    // The other site still lends by the default alone.
+    const northPolicy = await getCurrentPolicy(north);
+    expect(northPolicy).toMatchObject({ ...fields(storedDefault), siteOwn: null });
+    expect(northPolicy.rules.minVoltageHeadroom).toBe(DEFAULT_CLEARANCE_POLICY.minVoltageHeadroom);
   });
 
   it("the dashboard's latest clearance per coil is the query API's distinct-by-coil answer, and the dashboard reads it", async () => {
