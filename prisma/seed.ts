@@ -1,6 +1,6 @@
 /**
- * Loads the demo club into an empty database (the quick start), or wipes and reloads it with
- * --reset. Never touches a database that already has users unless told to.
+ * Loads the demo network (the Kettlewell club on the default site, and a school) into an empty database (the quick
+ * start), or wipes and reloads it with --reset. Never touches a database that already has users unless told to.
  *   npm run db:seed            # only when empty
  *   npm run db:reset-demo      # wipe and reload
  */
@@ -25,7 +25,7 @@ async function main() {
   if (reset) await emptyDatabase();
   await loadDemoDataset(dataset);
   console.log(
-    `Demo club loaded in ${((Date.now() - started) / 1000).toFixed(1)} s: ${dataset.coils.length} coils, ${dataset.sessions.length} run sessions ` +
+    `Demo network loaded in ${((Date.now() - started) / 1000).toFixed(1)} s: ${dataset.sites.length} sites, ${dataset.users.length} people, ${dataset.coils.length} coils, ${dataset.sessions.length} run sessions ` +
       `(${dataset.samples.length} heat-sink samples), ${dataset.sweeps.length} sweeps (${dataset.sweepPoints.length} points), ` +
       `${dataset.failures.length} failures, ${dataset.clearances.length} clearances, ${dataset.loans.length} loans.`,
   );

@@ -17,5 +17,5 @@ npx tsx prisma/seed.ts
 echo "==> Building the app"
 npx next build
 echo "==> Starting Coilyard on http://localhost:${PORT:-3000}"
-echo "    Demo sign-ins: admin@kettlewell.example / demo-admin-pass · steward@kettlewell.example / demo-steward-pass · member@kettlewell.example / demo-member-pass"
+echo "    Demo sign-ins: admin@kettlewell.example / demo-admin-pass · steward@kettlewell.example / demo-steward-pass · member@kettlewell.example / demo-member-pass · organisation admin: coordinator@northmoor.example / demo-organisation-pass (README lists the rest)"
 exec npx next start -p "${PORT:-3000}"

@@ -4,7 +4,7 @@
  * same coil (the same clearance state and loan), the sweep's points against the query API's.
  */
 import { beforeEach, describe, expect, it } from "vitest";
-import { makeUser, resetDatabase, testDb } from "./support/db";
+import { makeUser, resetDatabase, mainScope, testDb } from "./support/db";
 import { ALL_YES, makeCleanCoil } from "./fleet-fixtures";
 import { signClearance } from "@/lib/db/clearances";
 import { createLoan } from "@/lib/db/loans";
@@ -17,21 +17,22 @@ import { clearanceDecisionSchema } from "@/lib/validation/clearance";
 beforeEach(resetDatabase);
 
 const DAY = 86_400_000;
+const scope = mainScope(null);
 
 describe("the coil page band's reads", () => {
   it("a coil's standing is the dashboard's clearance and loan for it: none, then cleared, then out", async () => {
     const steward = await makeUser("s@club.test", "steward");
     const now = new Date();
     const coil = await makeCleanCoil("GL-01", now);
-    const standingNow = async () => readCoilStanding(coil.id, await testDb.component.findMany({ where: { coilId: coil.id }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }), now);
-    const dashboardRow = async () => (await getFleetOverview(now)).find((r) => r.id === coil.id)!;
+    const standingNow = async () => readCoilStanding(scope, coil.id, await testDb.component.findMany({ where: { coilId: coil.id }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }), now);
+    const dashboardRow = async () => (await getFleetOverview(scope, now)).find((r) => r.id === coil.id)!;
 
     let standing = await standingNow();
     expect(standing.clearance.kind).toBe("none");
     expect(standing.activeLoan).toBeNull();
 
-    await signClearance(steward.id, clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES }), new Date(now.getTime() - 1000));
-    await createLoan(steward.id, { coilId: coil.id, borrower: "Riverside Library", borrowerContact: "", event: "Family science morning", expectedBackAt: new Date(now.getTime() + 3 * DAY) }, new Date(now.getTime() - 500));
+    await signClearance(mainScope(steward.id), clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES }), new Date(now.getTime() - 1000));
+    await createLoan(mainScope(steward.id), { coilId: coil.id, borrower: "Riverside Library", borrowerContact: "", event: "Family science morning", expectedBackAt: new Date(now.getTime() + 3 * DAY) }, new Date(now.getTime() - 500));
     standing = await standingNow();
     const row = await dashboardRow();
     expect(standing.clearance.kind).toBe("valid");
@@ -56,7 +57,7 @@ describe("the coil page band's reads", () => {
         { sweepId: other.id, frequencyHz: 150_000, amplitudeV: 5 },
       ],
     });
-    const read = (await readSweepThumbnail(sweep.id))!;
+    const read = (await readSweepThumbnail(scope, sweep.id))!;
     const expected = await testDb.sweepPoint.findMany({ where: { sweepId: sweep.id }, orderBy: [{ frequencyHz: "asc" }, { id: "asc" }], select: { frequencyHz: true, amplitudeV: true } });
     expect(read.points).toEqual(expected);
     expect(read).toMatchObject({ id: sweep.id, takenAt: sweep.takenAt, seriesResistanceOhm: 10_000, sourceAmplitudeV: 10 });
@@ -65,7 +66,7 @@ describe("the coil page band's reads", () => {
     const plot = plotSweepThumbnail(read);
     expect(plot.xRange![0]).toBeCloseTo(100_000, 6);
     expect(plot.xRange![1]).toBeCloseTo(300_000, 6);
-    expect(await readSweepThumbnail("no-such-sweep")).toBeNull();
+    expect(await readSweepThumbnail(scope, "no-such-sweep")).toBeNull();
   });
 
   it("reads a long sweep already thinned by the database: its lowest and highest readings kept, a few hundred rows", async () => {
@@ -76,7 +77,7 @@ describe("the coil page band's reads", () => {
     // A narrow dip and a narrow peak, one reading each, somewhere inside runs: a stride sample would lose them.
     const points = Array.from({ length: count }, (_, i) => ({ sweepId: sweep.id, frequencyHz: 100_000 + i * 10, amplitudeV: i === 3_333 ? 0.01 : i === 7_777 ? 9.9 : 5 }));
     await testDb.sweepPoint.createMany({ data: points });
-    const read = (await readSweepThumbnail(sweep.id))!;
+    const read = (await readSweepThumbnail(scope, sweep.id))!;
     expect(read.points.length).toBeLessThanOrEqual(2 * THUMBNAIL_BUCKETS);
     expect(Math.min(...read.points.map((p) => p.amplitudeV))).toBe(0.01);
     expect(Math.max(...read.points.map((p) => p.amplitudeV))).toBe(9.9);

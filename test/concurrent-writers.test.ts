@@ -6,7 +6,7 @@
  * the conditional updates and lib/db/serializable.ts are for — these tests are meant to run against both.
  */
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
-import { makeUser, resetDatabase, testDb } from "./support/db";
+import { mainScope, makeOrganisationAdmin, makeUser, resetDatabase, testDb } from "./support/db";
 import { closeWriters, openWriters, outcomes, type Writer } from "./support/writers";
 import { ALL_YES, makeCleanCoil } from "./fleet-fixtures";
 import { signClearance, getClearanceStateById } from "@/lib/db/clearances";
@@ -18,6 +18,7 @@ import { coilUpdateSchema } from "@/lib/validation/coil";
 import { replaceComponentSchema } from "@/lib/validation/component";
 import { postMortemSchema } from "@/lib/validation/failure";
 import { DEFAULT_CLEARANCE_POLICY } from "@/lib/calc/clearance-policy";
+import { DEFAULT_SITE_ID } from "@/lib/db/site-scope";
 
 const WRITERS = 4;
 const DAY = 86_400_000;
@@ -38,7 +39,7 @@ async function stewards() {
 async function clearedCoil(stewardId: string) {
   const now = new Date();
   const coil = await makeCleanCoil("RACE-1", now);
-  await signClearance(stewardId, clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES }), now);
+  await signClearance(mainScope(stewardId), clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES }), now);
   return { coil, now };
 }
 
@@ -48,7 +49,7 @@ describe("loans", () => {
     const { coil, now } = await clearedCoil(people[0]!.id);
     const back = new Date(now.getTime() + 3 * DAY);
     const settled = await Promise.allSettled(
-      writers.map((w, i) => w.loans.createLoan(people[i]!.id, { coilId: coil.id, borrower: `Borrower ${i}`, borrowerContact: "", event: "Open day", expectedBackAt: back }, new Date(now.getTime() + 1000))),
+      writers.map((w, i) => w.loans.createLoan(mainScope(people[i]!.id), { coilId: coil.id, borrower: `Borrower ${i}`, borrowerContact: "", event: "Open day", expectedBackAt: back }, new Date(now.getTime() + 1000))),
     );
     const { stored, refused } = outcomes(settled);
     expect(stored).toHaveLength(1);
@@ -60,10 +61,10 @@ describe("loans", () => {
   it("two stewards receiving the same loan at once record one return, the first one's", async () => {
     const people = await stewards();
     const { coil, now } = await clearedCoil(people[0]!.id);
-    const loan = await createLoan(people[0]!.id, { coilId: coil.id, borrower: "Library", borrowerContact: "", event: "Open day", expectedBackAt: new Date(now.getTime() + 3 * DAY) }, new Date(now.getTime() + 1000));
+    const loan = await createLoan(mainScope(people[0]!.id), { coilId: coil.id, borrower: "Library", borrowerContact: "", event: "Open day", expectedBackAt: new Date(now.getTime() + 3 * DAY) }, new Date(now.getTime() + 1000));
     const returnedAt = new Date(now.getTime() + 2000);
     const settled = await Promise.allSettled(
-      writers.map((w, i) => w.loans.returnLoan(people[i]!.id, { loanId: loan.id, returnedAt, returnCondition: "ok", returnNotes: `Checked by steward ${i}`, sessionIds: [] }, new Date(now.getTime() + 3000))),
+      writers.map((w, i) => w.loans.returnLoan(mainScope(people[i]!.id), { loanId: loan.id, returnedAt, returnCondition: "ok", returnNotes: `Checked by steward ${i}`, sessionIds: [] }, new Date(now.getTime() + 3000))),
     );
     const { stored, refused } = outcomes(settled);
     expect(stored).toHaveLength(1);
@@ -84,7 +85,7 @@ describe("parts", () => {
     const settled = await Promise.allSettled(
       writers.map((w, i) =>
         w.components.replaceComponent(
-          people[i]!.id,
+          mainScope(people[i]!.id),
           replaceComponentSchema.parse({ oldComponentId: old.id, removalReason: `worn (${i})`, coilId: coil.id, kind: "switch", partNumber: `NEW-${i}`, switchType: "bjt", installedAt: daysAgo(1) }),
         ),
       ),
@@ -108,7 +109,7 @@ describe("parts", () => {
     const settled = await Promise.allSettled(
       writers.map((w, i) =>
         w.failures.completePostMortem(
-          people[i]!.id,
+          mainScope(people[i]!.id),
           postMortemSchema.parse({
             failureId: failure.id,
             rootCause: `Overshoot on the collector, seen by steward ${i}.`,
@@ -136,9 +137,9 @@ describe("clearances", () => {
     const { coil, now } = await clearedCoil(people[0]!.id);
     const clearance = await testDb.clearance.findFirstOrThrow({ where: { coilId: coil.id } });
     await testDb.failure.create({ data: { coilId: coil.id, occurredAt: new Date(now.getTime() + 1000), mode: "over_temperature", symptoms: "Hot" } });
-    const state = (await getClearanceStateById(clearance.id, new Date(now.getTime() + 5000)))!;
+    const state = (await getClearanceStateById(mainScope(null), clearance.id, new Date(now.getTime() + 5000)))!;
     expect(state.kind).toBe("lapsed-failure");
-    const results = await Promise.all(writers.map((w, i) => w.clearances.recordClearanceLapse(clearance.id, { ...state, explanation: `${state.explanation} (${i})` })));
+    const results = await Promise.all(writers.map((w, i) => w.clearances.recordClearanceLapse(mainScope(null), clearance.id, { ...state, explanation: `${state.explanation} (${i})` })));
     expect(results.filter(Boolean)).toHaveLength(1);
     const winner = results.indexOf(true);
     expect((await testDb.clearance.findUniqueOrThrow({ where: { id: clearance.id } })).lapseReason).toBe(`${state.explanation} (${winner})`);
@@ -146,8 +147,8 @@ describe("clearances", () => {
   });
 
   it("policy versions saved at once are numbered 1…n with none lost", async () => {
-    const admins = await Promise.all(writers.map((_, i) => makeUser(`admin${i}@club.test`, "admin")));
-    const settled = await Promise.allSettled(writers.map((w, i) => w.policy.savePolicyVersion(admins[i]!.id, DEFAULT_CLEARANCE_POLICY, `note ${i}`)));
+    const admins = await Promise.all(writers.map((_, i) => makeOrganisationAdmin(`admin${i}@club.test`)));
+    const settled = await Promise.allSettled(writers.map((w, i) => w.policy.saveDefaultPolicyVersion(mainScope(admins[i]!.id), DEFAULT_CLEARANCE_POLICY, `note ${i}`)));
     const { stored, refused } = outcomes(settled);
     expect(refused).toEqual([]);
     const versions = (await testDb.clearancePolicy.findMany({ orderBy: { version: "asc" } })).map((p) => p.version);
@@ -165,8 +166,8 @@ describe("coil edits", () => {
     const bob = await makeUser("bob@club.test", "steward", "Bob Builder");
     const coil = await makeCleanCoil("RACE-4", new Date());
     // Both open the form at version 0; Ada saves first.
-    await updateCoil(ada.id, edit(coil.id, 0, { name: "Ada's name" }));
-    const error = await updateCoil(bob.id, edit(coil.id, 0, { notes: "Bob's note" })).catch((e: unknown) => e);
+    await updateCoil(mainScope(ada.id), edit(coil.id, 0, { name: "Ada's name" }));
+    const error = await updateCoil(mainScope(bob.id), edit(coil.id, 0, { notes: "Bob's note" })).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(CoilEditConflictError);
     expect((error as Error).message).toMatch(/^Nothing was saved: Ada Lovelace changed RACE-4 at \d{4}-\d\d-\d\d \d\d:\d\d UTC, after you opened this form/);
     const after = await testDb.coil.findUniqueOrThrow({ where: { id: coil.id } });
@@ -177,15 +178,15 @@ describe("coil edits", () => {
   it("a status change also makes an open form stale", async () => {
     const ada = await makeUser("ada@club.test", "steward", "Ada Lovelace");
     const coil = await makeCleanCoil("RACE-4", new Date());
-    await setCoilStatus(ada.id, coil.id, "repair");
-    await expect(updateCoil(ada.id, edit(coil.id, 0, { status: "active", notes: "fixed" }))).rejects.toBeInstanceOf(CoilEditConflictError);
+    await setCoilStatus(mainScope(ada.id), coil.id, "repair");
+    await expect(updateCoil(mainScope(ada.id), edit(coil.id, 0, { status: "active", notes: "fixed" }))).rejects.toBeInstanceOf(CoilEditConflictError);
     expect(await testDb.coil.findUniqueOrThrow({ where: { id: coil.id } })).toMatchObject({ status: "repair", notes: "" });
   });
 
   it("saves fired at once from forms opened at the same version: one lands, the rest are refused", async () => {
     const people = await stewards();
     const coil = await makeCleanCoil("RACE-4", new Date());
-    const settled = await Promise.allSettled(writers.map((w, i) => w.coils.updateCoil(people[i]!.id, edit(coil.id, 0, { notes: `note ${i}` }))));
+    const settled = await Promise.allSettled(writers.map((w, i) => w.coils.updateCoil(mainScope(people[i]!.id), edit(coil.id, 0, { notes: `note ${i}` }))));
     const { stored, refused } = outcomes(settled);
     expect(stored).toHaveLength(1);
     expect(refused).toHaveLength(WRITERS - 1);
@@ -199,11 +200,13 @@ describe("accounts", () => {
   it("two admins removing each other's admin role at once leave one admin", async () => {
     const ann = await makeUser("ann@club.test", "admin");
     const ben = await makeUser("ben@club.test", "admin");
-    const settled = await Promise.allSettled([writers[0]!.users.updateUserAccess(ann.id, ben.id, { role: "member" }), writers[1]!.users.updateUserAccess(ben.id, ann.id, { role: "member" })]);
+    const settled = await Promise.allSettled([writers[0]!.users.updateUserAccess(mainScope(ann.id), ben.id, { role: "member" }), writers[1]!.users.updateUserAccess(mainScope(ben.id), ann.id, { role: "member" })]);
     const { stored, refused } = outcomes(settled);
     expect(stored).toHaveLength(1);
-    expect(refused.map((e) => e.message)).toEqual(["Coilyard must keep at least one active admin"]);
-    expect(await testDb.user.count({ where: { role: "admin", active: true } })).toBe(1);
+    // The one refused is either stopped by the last-admin rule or, having lost the race, is no longer an admin to act.
+    const siteName = (await testDb.site.findUniqueOrThrow({ where: { id: DEFAULT_SITE_ID } })).name;
+    expect(refused.map((e) => e.message)).toEqual([expect.stringMatching(new RegExp(`^(${siteName} must keep at least one active admin|Managing this site's members needs an admin of the site\\.)$`))]);
+    expect(await testDb.siteMembership.count({ where: { siteId: DEFAULT_SITE_ID, role: "admin", user: { active: true } } })).toBe(1);
   });
 
   it("failed sign-ins fired in parallel are each counted", async () => {

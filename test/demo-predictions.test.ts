@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { resetDatabase, testDb } from "./support/db";
+import { mainScope, resetDatabase, siteScope, testDb } from "./support/db";
 import { loadDemoDataset } from "@/lib/db/demo-loader";
 import { readCoilPage } from "@/lib/db/coil-page";
 import { readCoilComparison, readFleetPredictionInputs } from "@/lib/db/prediction-history";
@@ -14,12 +14,14 @@ beforeAll(async () => {
   await loadDemoDataset(generateDemoDataset({ anchor: new Date(Date.UTC(2025, 4, 1)), passwordHashes }));
 }, 60_000); // generating and loading the whole demo club takes a few seconds, more on a busy machine
 
+/** Every demo coil's prediction table, each read as its own site reads it. */
 async function demoComparisons() {
-  const coils = await testDb.coil.findMany({ select: { tag: true }, orderBy: { tag: "asc" } });
+  const coils = await testDb.coil.findMany({ select: { tag: true, siteId: true }, orderBy: [{ siteId: "asc" }, { tag: "asc" }] });
   return Promise.all(
-    coils.map(async ({ tag }) => {
-      const records = (await readCoilPage(tag))!;
-      return { tag, comparison: await readCoilComparison(records.history) };
+    coils.map(async ({ tag, siteId }) => {
+      const scope = siteScope(siteId, null);
+      const records = (await readCoilPage(scope, tag))!;
+      return { tag, comparison: await readCoilComparison(scope, records.history) };
     }),
   );
 }
@@ -69,7 +71,8 @@ describe("the demo club's predictions", () => {
   });
 
   it("sums up every model's out-of-sample deviations for the fleet page", async () => {
-    const { summaries } = assessPredictionQuality(await readFleetPredictionInputs());
+    // The demo club's own site.
+    const { summaries } = assessPredictionQuality(await readFleetPredictionInputs(mainScope(null)));
     for (const model of ["geometryOnly", "calibrated", "runningFrequency"] as const) {
       expect(summaries[model]?.count, model).toBeGreaterThan(0);
       expect(summaries[model]!.lowerQuartile).toBeLessThanOrEqual(summaries[model]!.upperQuartile);

@@ -1,5 +1,5 @@
 import { beforeEach, describe, expect, it } from "vitest";
-import { countAllRows, makeUser, resetDatabase, testDb } from "./support/db";
+import { countAllRows, mainScope, makeUser, resetDatabase, testDb } from "./support/db";
 import { ALL_YES, makeCleanCoil } from "./fleet-fixtures";
 import { ClearanceRefusedError, signClearance } from "@/lib/db/clearances";
 import { clearanceDecisionSchema } from "@/lib/validation/clearance";
@@ -11,6 +11,7 @@ import { createLoan, LoanRefusedError } from "@/lib/db/loans";
 import { PLANNED_PART_DESCRIPTION, savePlannedCoil } from "@/lib/db/plans";
 import { planSaveSchema, readStoredPlan, type PlanVariant } from "@/lib/validation/plan";
 import { PLAN_VARIANT } from "./support/plan-fixtures";
+import { DEFAULT_SITE_ID } from "@/lib/db/site-scope";
 
 beforeEach(resetDatabase);
 
@@ -29,11 +30,12 @@ describe("saving a plan", () => {
     const worked = workedPlan([PLAN_VARIANT, { ...PLAN_VARIANT, label: "Tall", windingLengthM: "350 mm" }]);
     const plan = buildStoredPlan(worked.variants, worked.results, 1, policy, new Date());
     const save = planSaveSchema.parse({ tag: "pl-01", name: "Planned tall", builderName: "Ada", chosenVariant: "1" });
-    const coil = await savePlannedCoil(steward.id, save, worked.variants[1]!, plan);
+    const coil = await savePlannedCoil(mainScope(steward.id), save, worked.variants[1]!, plan);
 
     const stored = await testDb.coil.findUniqueOrThrow({ where: { id: coil.id }, include: { components: true, topLoads: true } });
     expect(stored.status).toBe("planned");
     expect(stored.tag).toBe("PL-01");
+    expect(stored.siteId).toBe(DEFAULT_SITE_ID);
     // 350 mm / (AWG 30 = 0.2546 mm × 1.08) = 1272.9 → 1272 turns (ASTM B258 diameter; close winding).
     expect(stored.turns).toBe(1272);
     expect(stored.wireGaugeAwg).toBe(30);
@@ -51,7 +53,8 @@ describe("saving a plan", () => {
     const again = planBuild(worked.variants[1]!.input, policy);
     expect(readBack?.variants[1]!.predicted.firstResonanceHz).toBeCloseTo(again.resonance.firstResonanceHz, 6);
     expect(readBack?.variants[1]!.predicted.peakClampedV).toBe(150);
-    expect(await testDb.auditEvent.count({ where: { entityId: coil.id, action: "create" } })).toBe(1);
+    const audit = await testDb.auditEvent.findMany({ where: { entityId: coil.id, action: "create" } });
+    expect(audit.map((e) => [e.siteId, e.actorId])).toEqual([[DEFAULT_SITE_ID, steward.id]]);
   });
 
   it("stores nothing when a write inside the transaction fails part-way", async () => {
@@ -62,7 +65,7 @@ describe("saving a plan", () => {
     // A switch type the database refuses: the coil row is written first, so only a rollback leaves nothing behind.
     const broken = { ...worked.variants[0]!, parts: { ...worked.variants[0]!.parts, switchType: "valve" } } as unknown as PlanVariant;
     const before = await countAllRows();
-    await expect(savePlannedCoil(steward.id, save, broken, plan)).rejects.toThrow();
+    await expect(savePlannedCoil(mainScope(steward.id), save, broken, plan)).rejects.toThrow();
     expect(await countAllRows()).toEqual(before);
   });
 
@@ -72,7 +75,7 @@ describe("saving a plan", () => {
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
     plan.variants[0]!.predicted.firstResonanceHz = Number.NaN;
     const before = await countAllRows();
-    await expect(savePlannedCoil(steward.id, planSaveSchema.parse({ tag: "PL-03", name: "NaN", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan)).rejects.toThrow();
+    await expect(savePlannedCoil(mainScope(steward.id), planSaveSchema.parse({ tag: "PL-03", name: "NaN", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan)).rejects.toThrow();
     expect(await countAllRows()).toEqual(before);
   });
 
@@ -81,9 +84,9 @@ describe("saving a plan", () => {
     const worked = workedPlan([PLAN_VARIANT]);
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
     const save = planSaveSchema.parse({ tag: "PL-04", name: "First", builderName: "Ada", chosenVariant: "0" });
-    await savePlannedCoil(steward.id, save, worked.variants[0]!, plan);
+    await savePlannedCoil(mainScope(steward.id), save, worked.variants[0]!, plan);
     const before = await countAllRows();
-    await expect(savePlannedCoil(steward.id, save, worked.variants[0]!, plan)).rejects.toBeInstanceOf(DuplicateTagError);
+    await expect(savePlannedCoil(mainScope(steward.id), save, worked.variants[0]!, plan)).rejects.toBeInstanceOf(DuplicateTagError);
     expect(await countAllRows()).toEqual(before);
   });
 });
@@ -110,14 +113,14 @@ describe("a planned coil is not in service", () => {
     const steward = await makeUser("s@club.test", "steward");
     const worked = workedPlan([PLAN_VARIANT]);
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
-    const coil = await savePlannedCoil(steward.id, planSaveSchema.parse({ tag: "PL-05", name: "Lend me", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan);
+    const coil = await savePlannedCoil(mainScope(steward.id), planSaveSchema.parse({ tag: "PL-05", name: "Lend me", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan);
     const expectedBackAt = new Date(Date.now() + 7 * 86_400_000);
-    const refusal = await createLoan(steward.id, { coilId: coil.id, borrower: "Fair", borrowerContact: "", event: "Open day", expectedBackAt }).catch((error: unknown) => error);
+    const refusal = await createLoan(mainScope(steward.id), { coilId: coil.id, borrower: "Fair", borrowerContact: "", event: "Open day", expectedBackAt }).catch((error: unknown) => error);
     expect(refusal).toBeInstanceOf(LoanRefusedError);
     expect((refusal as LoanRefusedError).reason).toBe("planned");
     expect(await testDb.loan.count()).toBe(0);
 
-    const active = await setCoilStatus(steward.id, coil.id, "active");
+    const active = await setCoilStatus(mainScope(steward.id), coil.id, "active");
     expect(active.status).toBe("active");
     // The plan stays with the coil once it is in service, so measurements keep being compared with it.
     expect(readStoredPlan(active.planJson)).not.toBeNull();
@@ -127,20 +130,20 @@ describe("a planned coil is not in service", () => {
     const steward = await makeUser("s@club.test", "steward");
     const now = new Date();
     const coil = await makeCleanCoil("PL-07", now);
-    await setCoilStatus(steward.id, coil.id, "planned");
+    await setCoilStatus(mainScope(steward.id), coil.id, "planned");
     const decision = clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "cleared", checklist: ALL_YES, maxSupplyVoltageV: "24 V", maxRunS: "12", conditions: "" });
-    await expect(signClearance(steward.id, decision, now)).rejects.toBeInstanceOf(ClearanceRefusedError);
+    await expect(signClearance(mainScope(steward.id), decision, now)).rejects.toBeInstanceOf(ClearanceRefusedError);
     expect(await testDb.clearance.count()).toBe(0);
-    await setCoilStatus(steward.id, coil.id, "active");
-    expect((await signClearance(steward.id, decision, now)).verdict).toBe("cleared");
+    await setCoilStatus(mainScope(steward.id), coil.id, "active");
+    expect((await signClearance(mainScope(steward.id), decision, now)).verdict).toBe("cleared");
   });
 
   it("keeps its plan through a JSON logbook export", async () => {
     const steward = await makeUser("s@club.test", "steward");
     const worked = workedPlan([PLAN_VARIANT]);
     const plan = buildStoredPlan(worked.variants, worked.results, 0, policy, new Date());
-    const coil = await savePlannedCoil(steward.id, planSaveSchema.parse({ tag: "PL-06", name: "Export", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan);
-    const document = await exportCoil(coil.tag);
+    const coil = await savePlannedCoil(mainScope(steward.id), planSaveSchema.parse({ tag: "PL-06", name: "Export", builderName: "Ada", chosenVariant: "0" }), worked.variants[0]!, plan);
+    const document = await exportCoil(mainScope(steward.id), coil.tag);
     expect(document?.coils[0]?.status).toBe("planned");
     expect(readStoredPlan(document?.coils[0]?.planJson)).toEqual(readStoredPlan(coil.planJson));
   });

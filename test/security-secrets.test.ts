@@ -12,7 +12,16 @@ const ROOT = path.resolve(__dirname, "..");
 const tracked = execFileSync("git", ["ls-files", "-z"], { cwd: ROOT, encoding: "utf8" }).split("\0").filter(Boolean);
 
 /** Demo data, published on purpose so anyone can try the demo club. */
-const DEMO_PASSWORDS = ["demo-admin-pass", "demo-steward-pass", "demo-member-pass", "demo-member-pass-2", "demo-member-pass-3"];
+const DEMO_PASSWORDS = [
+  "demo-admin-pass",
+  "demo-steward-pass",
+  "demo-member-pass",
+  "demo-member-pass-2",
+  "demo-member-pass-3",
+  "demo-school-steward-pass",
+  "demo-school-member-pass",
+  "demo-organisation-pass",
+];
 
 const SECRET_PATTERNS: { name: string; pattern: RegExp }[] = [
   { name: "a private key", pattern: /-----BEGIN [A-Z ]*PRIVATE KEY-----/ },

@@ -5,7 +5,7 @@
  * transactions expose the race that SQLite's single writer hides.
  */
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
-import { makeUser, resetDatabase, testDb } from "./support/db";
+import { addMembership, createSite, mainScope, makeUser, resetDatabase, siteScope, testDb } from "./support/db";
 import { makeBenchCoil } from "./support/bench-fixtures";
 import { closeWriters, openWriters, outcomes, type Writer } from "./support/writers";
 import { createSession } from "@/lib/db/sessions";
@@ -45,9 +45,9 @@ describe("a session submitted with an idempotency key", () => {
     const member = await makeUser("m@club.test", "member");
     const { coil } = await makeBenchCoil(member.id);
     const input = sessionSchema.parse(form(coil.id, { clientKey: KEY }));
-    const first = await createSession(member.id, input);
+    const first = await createSession(mainScope(member.id), input);
     const before = await rowsFor(coil.id);
-    const second = await createSession(member.id, input);
+    const second = await createSession(mainScope(member.id), input);
 
     expect(first.replayed).toBe(false);
     expect(second).toMatchObject({ id: first.id, coilTag: coil.tag, replayed: true });
@@ -66,7 +66,7 @@ describe("a session submitted with an idempotency key", () => {
     const input = sessionSchema.parse(form(coil.id, { clientKey: KEY }));
     const revisionBefore = (await rowsFor(coil.id)).revision;
 
-    const { stored, refused } = outcomes(await Promise.allSettled(writers.map((w) => w.sessions.createSession(member.id, input))));
+    const { stored, refused } = outcomes(await Promise.allSettled(writers.map((w) => w.sessions.createSession(mainScope(member.id), input))));
 
     expect(refused).toEqual([]);
     expect(new Set(stored.map((s) => s.id)).size).toBe(1);
@@ -83,8 +83,8 @@ describe("a session submitted with an idempotency key", () => {
     const member = await makeUser("m@club.test", "member");
     const { coil } = await makeBenchCoil(member.id);
     const input = sessionSchema.parse(form(coil.id));
-    const a = await createSession(member.id, input);
-    const b = await createSession(member.id, input);
+    const a = await createSession(mainScope(member.id), input);
+    const b = await createSession(mainScope(member.id), input);
     expect(a.id).not.toBe(b.id);
     const after = await rowsFor(coil.id);
     expect(after.sessions.map((s) => s.clientKey)).toEqual([null, null]);
@@ -97,11 +97,59 @@ describe("a session submitted with an idempotency key", () => {
     const other = await makeUser("o@club.test", "member");
     const { coil } = await makeBenchCoil(member.id);
     const input = sessionSchema.parse(form(coil.id, { clientKey: KEY }));
-    await createSession(member.id, input);
-    const refusal = createSession(other.id, input);
+    await createSession(mainScope(member.id), input);
+    const refusal = createSession(mainScope(other.id), input);
     await expect(refusal).rejects.toBeInstanceOf(RecordRefusedError);
-    await expect(createSession(other.id, input)).rejects.toMatchObject({ field: "clientKey" });
+    await expect(createSession(mainScope(other.id), input)).rejects.toMatchObject({ field: "clientKey" });
     expect((await rowsFor(coil.id)).sessions).toHaveLength(1);
+  });
+
+  it("refuses a key used at another site without showing that session, even to the member who logged it there", async () => {
+    const member = await makeUser("m@club.test", "member", "Mira Main");
+    const { coil } = await makeBenchCoil(member.id, "T-01");
+    const stored = await createSession(mainScope(member.id), sessionSchema.parse(form(coil.id, { clientKey: KEY })));
+    const north = await createSite("north");
+    const northMember = await makeUser("n@north.test", "member", "Nell North", north.id);
+    const { coil: northCoil } = await makeBenchCoil(northMember.id, "N-01", north.id);
+    await addMembership(member.id, north.id, "member");
+    const before = { sessions: await testDb.runSession.count(), samples: await testDb.heatSinkSample.count(), audits: await testDb.auditEvent.count() };
+
+    for (const actorId of [northMember.id, member.id]) {
+      const refusal = await createSession(siteScope(north.id, actorId), sessionSchema.parse(form(northCoil.id, { clientKey: KEY }))).catch((e: unknown) => e);
+      expect(refusal).toBeInstanceOf(RecordRefusedError);
+      expect(refusal).toMatchObject({ field: "clientKey" });
+      // Nothing of the first site's session comes back: not its id, coil or who logged it.
+      const said = JSON.stringify({ message: (refusal as Error).message, ...(refusal as object) });
+      for (const secret of [stored.id, coil.id, coil.tag, "Mira Main"]) expect(said).not.toContain(secret);
+    }
+    // Sent at its own site by the member who logged it, the same key is still a replay.
+    expect(await createSession(mainScope(member.id), sessionSchema.parse(form(coil.id, { clientKey: KEY })))).toMatchObject({ id: stored.id, replayed: true });
+    expect({ sessions: await testDb.runSession.count(), samples: await testDb.heatSinkSample.count(), audits: await testDb.auditEvent.count() }).toEqual(before);
+  });
+
+  it("sent at the same moment from two sites with one key: one session is stored, and only its own site is answered with it", async () => {
+    writers = await openWriters(4);
+    const member = await makeUser("m@club.test", "member");
+    const { coil } = await makeBenchCoil(member.id, "T-01");
+    const north = await createSite("north");
+    const northMember = await makeUser("n@north.test", "member", "Nell North", north.id);
+    const { coil: northCoil } = await makeBenchCoil(northMember.id, "T-01", north.id);
+    const sides = [
+      { scope: mainScope(member.id), input: sessionSchema.parse(form(coil.id, { clientKey: KEY })), coilId: coil.id },
+      { scope: siteScope(north.id, northMember.id), input: sessionSchema.parse(form(northCoil.id, { clientKey: KEY })), coilId: northCoil.id },
+    ];
+
+    const settled = await Promise.allSettled(writers.map((w, i) => w.sessions.createSession(sides[i % 2]!.scope, sides[i % 2]!.input)));
+
+    const [session, ...others] = await testDb.runSession.findMany({ where: { clientKey: KEY } });
+    expect(others).toEqual([]);
+    const winner = sides.find((side) => side.coilId === session!.coilId)!;
+    settled.forEach((result, i) => {
+      if (sides[i % 2] === winner) expect(result).toMatchObject({ status: "fulfilled", value: { id: session!.id } });
+      else expect(result).toMatchObject({ status: "rejected", reason: { field: "clientKey" } });
+    });
+    expect(await testDb.heatSinkSample.count()).toBe(SAMPLE_COUNT);
+    expect(await testDb.auditEvent.count({ where: { entity: "RunSession" } })).toBe(1);
   });
 
   it("reads the key as a UUID, case-insensitively, and refuses anything else by name", () => {

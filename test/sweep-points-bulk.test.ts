@@ -1,7 +1,8 @@
 /** recordSweep's bulk point insert (one JSON parameter per chunk, lib/db/sweeps.ts) stores every double exactly and in order. */
 import { beforeEach, expect, it } from "vitest";
-import { makeUser, resetDatabase, testDb } from "./support/db";
+import { mainScope, makeUser, resetDatabase, testDb } from "./support/db";
 import { recordSweep } from "@/lib/db/sweeps";
+import { DEFAULT_SITE_ID } from "@/lib/db/site-scope";
 import { createLineModel, simulateSweep } from "@/lib/calc/line-model";
 import { createSeededRandom } from "@/lib/calc/seeded-random";
 
@@ -10,7 +11,7 @@ beforeEach(resetDatabase);
 it("stores 45 000 points bit for bit, across chunks, in the order given", async () => {
   const member = await makeUser("m@club.test", "member");
   const coil = await testDb.coil.create({
-    data: { tag: "BK-01", name: "Bulk", builderName: "Tester", formDiameterM: 0.05, windingLengthM: 0.2, turns: 880, wireDiameterM: 0.000202 },
+    data: { siteId: DEFAULT_SITE_ID, tag: "BK-01", name: "Bulk", builderName: "Tester", formDiameterM: 0.05, windingLengthM: 0.2, turns: 880, wireDiameterM: 0.000202 },
   });
   const model = createLineModel({ firstSeriesResonance: 420_000, characteristicImpedance: 60_000, topCapacitance: 8e-12, dispersionExponent: 0.12, q: 90 });
   // Irrational-looking frequencies (not rounded) so any loss of precision in the JSON route would show.
@@ -20,7 +21,7 @@ it("stores 45 000 points bit for bit, across chunks, in the order given", async 
     amplitudeV: Math.min(p.amplitude, 19.9),
   }));
   const sweep = await recordSweep(
-    member.id,
+    mainScope(member.id),
     { coilId: coil.id, topLoadId: null, takenAt: new Date("2025-03-01T14:30:00Z"), seriesResistanceOhm: 22_000, sourceAmplitudeV: 20, amplitudeConvention: "peak_to_peak", environmentNotes: "", notes: "", points },
     "import",
   );

@@ -1,13 +1,19 @@
 import Link from "next/link";
-import { redirect } from "next/navigation";
-import { getCurrentUser } from "@/lib/auth/session";
+import { forbidden, redirect } from "next/navigation";
+import { AuthError, getCurrentUser } from "@/lib/auth/session";
 import { MainNav } from "@/app/ui/main-nav";
 import { SignOutButton } from "@/app/ui/sign-out-button";
 import { StackedTableLabels } from "@/app/ui/stacked-table-labels";
 import { ScrollableRegions } from "@/app/ui/scrollable-regions";
+import { SiteSwitcher } from "@/app/ui/site-switcher";
 
+/**
+ * Every signed-in page: the header names the current site always (every page shows that site's records only), with a
+ * switcher for people in several sites, and the footer's caution.
+ */
 export default async function AppLayout({ children }: { children: React.ReactNode }) {
-  const user = await getCurrentUser();
+  // An account whose last membership was removed while signed in reaches no site: the 403 page says so.
+  const user = await getCurrentUser().catch((error: unknown) => (error instanceof AuthError ? forbidden() : Promise.reject(error)));
   if (!user) redirect("/sign-in");
   return (
     <>
@@ -18,8 +24,13 @@ export default async function AppLayout({ children }: { children: React.ReactNod
         <Link href="/" className="brand">
           Coil<span>yard</span>
         </Link>
-        <MainNav showAdmin={user.role === "admin"} />
+        <MainNav showAdmin={user.role === "admin"} showDistrict={user.organisationAdmin} />
         <div className="user-menu">
+          {user.sites.length > 1 ? (
+            <SiteSwitcher current={user.site.slug} sites={user.sites.map(({ slug, name, role }) => ({ slug, name, role }))} />
+          ) : (
+            <span className="current-site">{user.site.name}</span>
+          )}
           <span>
             {user.name} · <span className="badge badge-neutral">{user.role}</span>
           </span>

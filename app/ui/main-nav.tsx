@@ -17,9 +17,10 @@ function isCurrent(pathname: string, href: string): boolean {
   return href === "/" ? pathname === "/" : pathname === href || pathname.startsWith(href + "/");
 }
 
-export function MainNav({ showAdmin }: { showAdmin: boolean }) {
+/** The areas of the current site; Admin for its admins, District (every site at a glance) for organisation admins. */
+export function MainNav({ showAdmin, showDistrict = false }: { showAdmin: boolean; showDistrict?: boolean }) {
   const pathname = usePathname();
-  const areas = showAdmin ? [...AREAS, { href: "/admin", label: "Admin" }] : AREAS;
+  const areas = [...AREAS, ...(showAdmin ? [{ href: "/admin", label: "Admin" }] : []), ...(showDistrict ? [{ href: "/district", label: "District" }] : [])];
   return (
     <nav className="main-nav" aria-label="Main">
       <ul>

@@ -1,4 +1,4 @@
-/** Checking a sign-in attempt: throttle, then password, then account state. */
+/** Checking a sign-in attempt: throttle, then password, then account state (active, and in at least one site). */
 import { findUserForSignIn, markSignedIn } from "../db/users";
 import { clearThrottle, getThrottle, recordThrottleFailure } from "../db/sign-in-throttle";
 import { activeFailures, delayBeforeAttemptMs, isLocked, recordFailure } from "./throttle-policy";
@@ -9,6 +9,7 @@ export type SignInOutcome =
   | { ok: false; message: string };
 
 const WRONG = "That e-mail address and password do not match an active account.";
+const NO_SITE = "Your account does not belong to any site yet. Ask an admin to add you to one.";
 
 const sleep = (ms: number) => new Promise<void>((resolve) => setTimeout(resolve, ms));
 
@@ -36,6 +37,8 @@ export async function attemptSignIn(
     return { ok: false, message: WRONG };
   }
   await clearThrottle(key);
+  // Roles are per site: an account in no site (and not an organisation admin) could reach no page.
+  if (!user.organisationAdmin && user.memberships.length === 0) return { ok: false, message: NO_SITE };
   await markSignedIn(user.id);
   return { ok: true, user: { id: user.id, email: user.email, name: user.name } };
 }

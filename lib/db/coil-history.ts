@@ -1,8 +1,10 @@
 /**
  * Everything lib/analysis needs to judge one coil or the whole fleet, read in a few queries:
  * coils, every part ever fitted, every session (without heat-sink samples) and every sweep summary.
+ * The fleet is the scope's site; every query is narrowed to it, so a coil of another site reads as no coil.
  */
 import { prisma } from "./client";
+import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 import { Prisma, type Coil, type Component, type RunSession, type Sweep, type TopLoad } from "./generated/client";
 import { HEALTH_WINDOW, selectHealthWindow } from "../analysis/health-window";
 import { findCurrentTopLoad } from "../analysis/current-top-load";
@@ -30,7 +32,7 @@ const sessionSelect = {
 
 /** Failures without a completed post-mortem: each holds the coil (lib/calc/coil-health.ts). */
 const openFailureSelect = { coilId: true, occurredAt: true, mode: true } as const;
-const openFailuresWhere = (coilId?: string | { in: string[] }) => ({ status: "open" as const, ...(coilId === undefined ? {} : { coilId }) });
+const openFailuresWhere = (scope: SiteScope, coilId?: string | { in: string[] }) => ({ status: "open" as const, ...recordOfSite(scope), ...(coilId === undefined ? {} : { coilId }) });
 const openFailureOrder = [{ occurredAt: "asc" as const }, { id: "asc" as const }];
 
 const sweepSelect = { id: true, coilId: true, takenAt: true, topLoadId: true, firstSeriesResonanceHz: true } as const;
@@ -51,14 +53,15 @@ function group<T extends { coilId: string }>(rows: T[]): Map<string, T[]> {
   return map;
 }
 
-export async function getCoilHistory(coilId: string) {
+export async function getCoilHistory(scope: SiteScope, coilId: string) {
+  const ofCoil = { coilId, ...recordOfSite(scope) };
   const [coil, components, sessions, sweeps, topLoads, openFailures] = await Promise.all([
-    prisma.coil.findUnique({ where: { id: coilId } }),
-    prisma.component.findMany({ where: { coilId }, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }),
-    prisma.runSession.findMany({ where: { coilId }, select: sessionSelect, orderBy: [{ startedAt: "asc" }, { id: "asc" }] }),
-    prisma.sweep.findMany({ where: { coilId }, select: sweepSelect, orderBy: [{ takenAt: "asc" }, { id: "asc" }] }),
-    prisma.topLoad.findMany({ where: { coilId }, orderBy: [{ createdAt: "asc" }, { id: "asc" }] }),
-    prisma.failure.findMany({ where: openFailuresWhere(coilId), select: openFailureSelect, orderBy: openFailureOrder }),
+    prisma.coil.findUnique({ where: { id: coilId, ...coilOfSite(scope) } }),
+    prisma.component.findMany({ where: ofCoil, orderBy: [{ installedAt: "asc" }, { id: "asc" }] }),
+    prisma.runSession.findMany({ where: ofCoil, select: sessionSelect, orderBy: [{ startedAt: "asc" }, { id: "asc" }] }),
+    prisma.sweep.findMany({ where: ofCoil, select: sweepSelect, orderBy: [{ takenAt: "asc" }, { id: "asc" }] }),
+    prisma.topLoad.findMany({ where: ofCoil, orderBy: [{ createdAt: "asc" }, { id: "asc" }] }),
+    prisma.failure.findMany({ where: openFailuresWhere(scope, coilId), select: openFailureSelect, orderBy: openFailureOrder }),
   ]);
   return coil ? { coil, components, sessions, sweeps, topLoads, openFailures } : null;
 }
@@ -82,28 +85,42 @@ function splitKnown({ components, topLoads, ...rest }: KnownCoilRecords & { crea
   return { coil: coil as Coil, components, topLoads };
 }
 
-export async function getCoilPageHistory(coilId: string, knownCoil?: KnownCoilRecords) {
+/**
+ * Null for no such coil at the scope's site. A known coil is the caller's read of it; one of another site is not
+ * found all the same, and every statement below joins the coil at the scope's site.
+ */
+export async function getCoilPageHistory(scope: SiteScope, coilId: string, knownCoil?: KnownCoilRecords) {
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
+  if (knownCoil && (knownCoil.id !== coilId || knownCoil.siteId !== scope.siteId)) return null;
   const known = knownCoil && splitKnown(knownCoil);
+  const site = scope.siteId;
   // Raw statements (lib/db/raw-read.ts says why): this is the coil page's main read.
   const [coils, components, windowRows, sweeps, topLoads, openFailures] = await Promise.all([
-    known ? [known.coil] : prisma.$queryRaw<Coil[]>`SELECT * FROM "Coil" WHERE id = ${coilId}`,
+    known ? [known.coil] : prisma.$queryRaw<Coil[]>`SELECT * FROM "Coil" WHERE id = ${coilId} AND "siteId" = ${site}`,
     known
       ? [...known.components].sort((a, b) => a.installedAt.getTime() - b.installedAt.getTime() || compareIds(a, b))
-      : prisma.$queryRaw<Component[]>`SELECT * FROM "Component" WHERE "coilId" = ${coilId} ORDER BY "installedAt", id`,
+      : prisma.$queryRaw<Component[]>`
+          SELECT p.* FROM "Component" p JOIN "Coil" ON "Coil".id = p."coilId" WHERE p."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
+          ORDER BY p."installedAt", p.id`,
     // Both ends of the (coilId, startedAt) index in one statement; a session in both halves comes back twice.
     prisma.$queryRaw<RawSessionRow[]>`
-      SELECT * FROM (SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s WHERE s."coilId" = ${coilId}
+      SELECT * FROM (SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s JOIN "Coil" ON "Coil".id = s."coilId"
+                     WHERE s."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
                      ORDER BY s."startedAt", s.id LIMIT ${baselineSessions}) AS baseline
       UNION ALL
-      SELECT * FROM (SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s WHERE s."coilId" = ${coilId}
+      SELECT * FROM (SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s JOIN "Coil" ON "Coil".id = s."coilId"
+                     WHERE s."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
                      ORDER BY s."startedAt" DESC, s.id DESC LIMIT ${recentSessions}) AS recent`,
-    prisma.$queryRaw<SweepRow[]>`SELECT ${Prisma.raw(SWEEP_COLUMNS)} FROM "Sweep" w WHERE w."coilId" = ${coilId} ORDER BY w."takenAt", w.id`,
+    prisma.$queryRaw<SweepRow[]>`
+      SELECT ${Prisma.raw(SWEEP_COLUMNS)} FROM "Sweep" w JOIN "Coil" ON "Coil".id = w."coilId" WHERE w."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
+      ORDER BY w."takenAt", w.id`,
     known
       ? [...known.topLoads].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || compareIds(a, b))
-      : prisma.$queryRaw<TopLoad[]>`SELECT * FROM "TopLoad" WHERE "coilId" = ${coilId} ORDER BY "createdAt", id`,
+      : prisma.$queryRaw<TopLoad[]>`
+          SELECT t.* FROM "TopLoad" t JOIN "Coil" ON "Coil".id = t."coilId" WHERE t."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
+          ORDER BY t."createdAt", t.id`,
     // Usually none: the query API's cost is paid on an index probe that finds nothing.
-    prisma.failure.findMany({ where: openFailuresWhere(coilId), select: openFailureSelect, orderBy: openFailureOrder }),
+    prisma.failure.findMany({ where: openFailuresWhere(scope, coilId), select: openFailureSelect, orderBy: openFailureOrder }),
   ]);
   const coil = coils[0];
   if (!coil) return null;
@@ -111,22 +128,23 @@ export async function getCoilPageHistory(coilId: string, knownCoil?: KnownCoilRe
   const sessions = [...byId.values()].sort((a, b) => a.startedAt.getTime() - b.startedAt.getTime() || compareIds(a, b));
   const topLoadId = findCurrentTopLoad(topLoads, sweeps, sessions)?.id ?? null;
   const [running] = await prisma.$queryRaw<SessionRow[]>`
-    SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s
-    WHERE s."coilId" = ${coilId} AND s."topLoadId" ${topLoadId === null ? Prisma.sql`IS NULL` : Prisma.sql`= ${topLoadId}`} AND s."runningFrequencyHz" IS NOT NULL
+    SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s JOIN "Coil" ON "Coil".id = s."coilId"
+    WHERE s."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND s."topLoadId" ${topLoadId === null ? Prisma.sql`IS NULL` : Prisma.sql`= ${topLoadId}`} AND s."runningFrequencyHz" IS NOT NULL
     ORDER BY s."startedAt" DESC, s.id DESC LIMIT 1`;
   const comparisonSessions = running && !byId.has(running.id) ? [running, ...sessions] : sessions;
   return { coil, components, sessions, comparisonSessions, sweeps, topLoads, openFailures };
 }
 
-/** The same for every coil, grouped by coil id (four queries in all). */
-export async function getFleetHistory(): Promise<CoilHistory[]> {
+/** The same for every coil of the scope's site, grouped by coil id (six queries in all). */
+export async function getFleetHistory(scope: SiteScope): Promise<CoilHistory[]> {
+  const ofSite = recordOfSite(scope);
   const [coils, components, sessions, sweeps, topLoads, openFailures] = await Promise.all([
-    prisma.coil.findMany({ orderBy: { tag: "asc" } }),
-    prisma.component.findMany({ orderBy: { installedAt: "asc" } }),
-    prisma.runSession.findMany({ select: sessionSelect, orderBy: { startedAt: "asc" } }),
-    prisma.sweep.findMany({ select: sweepSelect, orderBy: { takenAt: "asc" } }),
-    prisma.topLoad.findMany({ orderBy: { createdAt: "asc" } }),
-    prisma.failure.findMany({ where: openFailuresWhere(), select: openFailureSelect, orderBy: openFailureOrder }),
+    prisma.coil.findMany({ where: coilOfSite(scope), orderBy: { tag: "asc" } }),
+    prisma.component.findMany({ where: ofSite, orderBy: { installedAt: "asc" } }),
+    prisma.runSession.findMany({ where: ofSite, select: sessionSelect, orderBy: { startedAt: "asc" } }),
+    prisma.sweep.findMany({ where: ofSite, select: sweepSelect, orderBy: { takenAt: "asc" } }),
+    prisma.topLoad.findMany({ where: ofSite, orderBy: { createdAt: "asc" } }),
+    prisma.failure.findMany({ where: openFailuresWhere(scope), select: openFailureSelect, orderBy: openFailureOrder }),
   ]);
   const c = group(components);
   const s = group(sessions);
@@ -159,22 +177,25 @@ function toSessionRow(row: RawSessionRow): SessionRow {
 }
 
 /**
- * What the fleet dashboard needs for every coil (or the listed ones) without reading every session: each coil's
+ * What the fleet dashboard needs for every coil of the scope's site (or the listed ones among them; a listed coil of
+ * another site is left out) without reading every session: each coil's
  * sessions cut to the health window (lib/analysis/health-window.ts) and its running totals as SQL aggregates. Two
  * index seeks per coil find where its window starts, so the rows read stay ~63 a coil however long the logbooks grow.
  */
-export async function getFleetHealthHistory(coilIds?: readonly string[]): Promise<CoilHealthHistory[]> {
+export async function getFleetHealthHistory(scope: SiteScope, coilIds?: readonly string[]): Promise<CoilHealthHistory[]> {
   if (coilIds?.length === 0) return [];
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
-  const ofCoils = coilIds ? { coilId: { in: [...coilIds] } } : {};
-  const coilFilter = coilIds ? Prisma.sql`WHERE c.id IN (${Prisma.join(coilIds)})` : Prisma.empty;
+  const ofCoils = { ...recordOfSite(scope), ...(coilIds ? { coilId: { in: [...coilIds] } } : {}) };
+  const coilFilter = coilIds
+    ? Prisma.sql`WHERE c."siteId" = ${scope.siteId} AND c.id IN (${Prisma.join(coilIds)})`
+    : Prisma.sql`WHERE c."siteId" = ${scope.siteId}`;
   const [coils, components, sweeps, topLoads, totals, openFailures, rawSessions] = await Promise.all([
-    prisma.coil.findMany({ where: coilIds ? { id: { in: [...coilIds] } } : {}, orderBy: { tag: "asc" } }),
+    prisma.coil.findMany({ where: { ...coilOfSite(scope), ...(coilIds ? { id: { in: [...coilIds] } } : {}) }, orderBy: { tag: "asc" } }),
     prisma.component.findMany({ where: ofCoils, orderBy: { installedAt: "asc" } }),
     prisma.sweep.findMany({ where: ofCoils, select: sweepSelect, orderBy: { takenAt: "asc" } }),
     prisma.topLoad.findMany({ where: ofCoils, orderBy: { createdAt: "asc" } }),
     prisma.runSession.groupBy({ by: ["coilId"], where: ofCoils, _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
-    prisma.failure.findMany({ where: openFailuresWhere(coilIds ? { in: [...coilIds] } : undefined), select: openFailureSelect, orderBy: openFailureOrder }),
+    prisma.failure.findMany({ where: openFailuresWhere(scope, coilIds ? { in: [...coilIds] } : undefined), select: openFailureSelect, orderBy: openFailureOrder }),
     // Raw SQL because the window is per coil (a LIMIT/OFFSET per group), which Prisma's query API cannot say;
     // both halves walk the (coilId, startedAt) index. Ties on startedAt may add a row; selectHealthWindow trims.
     // Portable SQL (SQLite and PostgreSQL): quoted identifiers, and a coil with fewer sessions than the window

@@ -1,10 +1,12 @@
 /**
  * One coil's logbook as a single timeline, newest first: sessions, sweeps, failures, parts fitted
  * and removed, clearances and loans. Each kind is read newest-first up to the cap, then merged, so
- * the page costs a handful of small queries however long the coil's history is.
+ * the page costs a handful of small queries however long the coil's history is. Every statement joins the coil at
+ * the scope's site, so a coil of another site has an empty timeline and no counts, as one that does not exist.
  */
 import { prisma } from "./client";
 import { Prisma } from "./generated/client";
+import type { SiteScope } from "./site-scope";
 import type { TimelineFilter } from "../validation/timeline";
 
 export type TimelineKind = "session" | "sweep" | "failure" | "part-fitted" | "part-removed" | "clearance" | "loan-out" | "loan-back";
@@ -53,12 +55,12 @@ export interface TimelineEvent {
  * (19 ms at 250 000 sessions), nor six count queries (each a Prisma round trip). Portable SQL; counts come back
  * as bigint on PostgreSQL.
  */
-async function countRecords(coilId: string) {
+async function countRecords(scope: SiteScope, coilId: string) {
   const count = (table: string) => Prisma.raw(`(SELECT count(*) FROM "${table}" t WHERE t."coilId" = c.id)`);
   const [row] = await prisma.$queryRaw<Record<"sessions" | "sweeps" | "failures" | "components" | "clearances" | "loans", bigint | number>[]>`
     SELECT ${count("RunSession")} AS "sessions", ${count("Sweep")} AS "sweeps", ${count("Failure")} AS "failures",
            ${count("Component")} AS "components", ${count("Clearance")} AS "clearances", ${count("Loan")} AS "loans"
-    FROM "Coil" c WHERE c.id = ${coilId}`;
+    FROM "Coil" c WHERE c.id = ${coilId} AND c."siteId" = ${scope.siteId}`;
   if (!row) return null;
   return {
     sessions: Number(row.sessions),
@@ -97,8 +99,9 @@ function newestFirst<T extends { id: string }>(rows: readonly T[], at: (row: T) 
  * The coil's newest `limit` events, of the kinds `filter` keeps (null: every kind). Each kind is read newest first up to
  * `limit`, so a filtered timeline still shows up to `limit` of its kind.
  */
-export async function getCoilTimeline(coilId: string, limit = 25, known?: KnownTimelineRecords, filter: TimelineFilter | null = null) {
+export async function getCoilTimeline(scope: SiteScope, coilId: string, limit = 25, known?: KnownTimelineRecords, filter: TimelineFilter | null = null) {
   const take = limit;
+  const site = scope.siteId;
   const knownParts = known?.parts;
   const knownSweeps = known?.sweeps && known.topLoads ? { sweeps: known.sweeps, topLoadName: new Map(known.topLoads.map((t) => [t.id, t.name])) } : null;
   // Raw statements, each newest first on its (coilId, time) index with an id tie-break (lib/db/raw-read.ts says why).
@@ -106,33 +109,37 @@ export async function getCoilTimeline(coilId: string, limit = 25, known?: KnownT
     known?.sessionsIncludingNewest
       ? newestFirst(known.sessionsIncludingNewest, (s) => s.startedAt, take)
       : prisma.$queryRaw<SessionRow[]>`
-          SELECT id, "startedAt", "supplyVoltageV", "supplyCurrentA", "durationS", outcome FROM "RunSession"
-          WHERE "coilId" = ${coilId} ORDER BY "startedAt" DESC, id DESC LIMIT ${take}`,
+          SELECT r.id, r."startedAt", r."supplyVoltageV", r."supplyCurrentA", r."durationS", r.outcome FROM "RunSession" r JOIN "Coil" ON "Coil".id = r."coilId"
+          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."startedAt" DESC, r.id DESC LIMIT ${take}`,
     knownSweeps
       ? newestFirst(knownSweeps.sweeps, (s) => s.takenAt, take).map((s) => ({ ...s, topLoadName: s.topLoadId === null ? null : (knownSweeps.topLoadName.get(s.topLoadId) ?? null) }))
       : prisma.$queryRaw<(SweepRow & { topLoadName: string | null })[]>`
-          SELECT w.id, w."takenAt", w."firstSeriesResonanceHz", w."topLoadId", t.name AS "topLoadName" FROM "Sweep" w LEFT JOIN "TopLoad" t ON t.id = w."topLoadId"
-          WHERE w."coilId" = ${coilId} ORDER BY w."takenAt" DESC, w.id DESC LIMIT ${take}`,
+          SELECT w.id, w."takenAt", w."firstSeriesResonanceHz", w."topLoadId", t.name AS "topLoadName" FROM "Sweep" w
+          JOIN "Coil" ON "Coil".id = w."coilId" LEFT JOIN "TopLoad" t ON t.id = w."topLoadId"
+          WHERE w."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY w."takenAt" DESC, w.id DESC LIMIT ${take}`,
     prisma.$queryRaw<{ id: string; occurredAt: Date; mode: string; symptoms: string; status: string }[]>`
-      SELECT id, "occurredAt", mode, symptoms, status FROM "Failure" WHERE "coilId" = ${coilId} ORDER BY "occurredAt" DESC, id DESC LIMIT ${take}`,
+      SELECT r.id, r."occurredAt", r.mode, r.symptoms, r.status FROM "Failure" r JOIN "Coil" ON "Coil".id = r."coilId"
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."occurredAt" DESC, r.id DESC LIMIT ${take}`,
     knownParts
       ? newestFirst(knownParts, (c) => c.installedAt, take)
       : prisma.$queryRaw<PartRow[]>`
-          SELECT id, "installedAt", "removedAt", "partNumber", kind, "removalReason" FROM "Component" WHERE "coilId" = ${coilId}
-          ORDER BY "installedAt" DESC, id DESC LIMIT ${take}`,
+          SELECT r.id, r."installedAt", r."removedAt", r."partNumber", r.kind, r."removalReason" FROM "Component" r JOIN "Coil" ON "Coil".id = r."coilId"
+          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."installedAt" DESC, r.id DESC LIMIT ${take}`,
     knownParts
       ? newestFirst(knownParts, (c) => c.removedAt, take)
       : prisma.$queryRaw<PartRow[]>`
-          SELECT id, "installedAt", "removedAt", "partNumber", kind, "removalReason" FROM "Component" WHERE "coilId" = ${coilId} AND "removedAt" IS NOT NULL
-          ORDER BY "removedAt" DESC, id DESC LIMIT ${take}`,
+          SELECT r.id, r."installedAt", r."removedAt", r."partNumber", r.kind, r."removalReason" FROM "Component" r JOIN "Coil" ON "Coil".id = r."coilId"
+          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND r."removedAt" IS NOT NULL ORDER BY r."removedAt" DESC, r.id DESC LIMIT ${take}`,
     prisma.$queryRaw<{ id: string; decidedAt: Date; verdict: string; validUntil: Date; lapsedAt: Date | null }[]>`
-      SELECT id, "decidedAt", verdict, "validUntil", "lapsedAt" FROM "Clearance" WHERE "coilId" = ${coilId} ORDER BY "decidedAt" DESC, id DESC LIMIT ${take}`,
+      SELECT r.id, r."decidedAt", r.verdict, r."validUntil", r."lapsedAt" FROM "Clearance" r JOIN "Coil" ON "Coil".id = r."coilId"
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."decidedAt" DESC, r.id DESC LIMIT ${take}`,
     prisma.$queryRaw<{ id: string; outAt: Date; borrower: string; event: string }[]>`
-      SELECT id, "outAt", borrower, event FROM "Loan" WHERE "coilId" = ${coilId} ORDER BY "outAt" DESC, id DESC LIMIT ${take}`,
+      SELECT r.id, r."outAt", r.borrower, r.event FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."outAt" DESC, r.id DESC LIMIT ${take}`,
     prisma.$queryRaw<{ id: string; returnedAt: Date; borrower: string; returnCondition: string | null }[]>`
-      SELECT id, "returnedAt", borrower, "returnCondition" FROM "Loan" WHERE "coilId" = ${coilId} AND "returnedAt" IS NOT NULL
-      ORDER BY "returnedAt" DESC, id DESC LIMIT ${take}`,
-    countRecords(coilId),
+      SELECT r.id, r."returnedAt", r.borrower, r."returnCondition" FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND r."returnedAt" IS NOT NULL ORDER BY r."returnedAt" DESC, r.id DESC LIMIT ${take}`,
+    countRecords(scope, coilId),
   ]);
 
   const events: TimelineEvent[] = [

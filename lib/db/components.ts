@@ -4,12 +4,14 @@ import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import { recordLapseCausedByWrite } from "./clearances";
 import { serializableTransaction } from "./serializable";
+import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 import type { ComponentInput, ReplaceComponentInput } from "../validation/component";
 
 export class ComponentStateError extends Error {}
 
-export function getComponent(id: string) {
-  return prisma.component.findUnique({ where: { id }, include: { coil: { select: { id: true, tag: true, name: true } } } });
+/** A part of a coil of the scope's site, or null. */
+export function getComponent(scope: SiteScope, id: string) {
+  return prisma.component.findFirst({ where: { id, ...recordOfSite(scope) }, include: { coil: { select: { id: true, tag: true, name: true } } } });
 }
 
 function componentData(input: Omit<ComponentInput, "coilId">) {
@@ -36,14 +38,15 @@ function componentData(input: Omit<ComponentInput, "coilId">) {
   };
 }
 
-export async function addComponent(actorId: string, input: ComponentInput) {
+/** Fits a part to a coil of the scope's site; a coil of another site is refused as one that does not exist. */
+export async function addComponent(scope: SiteScope, input: ComponentInput) {
   return prisma.$transaction(async (tx) => {
-    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { tag: true } });
+    const coil = await tx.coil.findUnique({ where: { id: input.coilId, ...coilOfSite(scope) }, select: { tag: true } });
     if (!coil) throw new ComponentStateError("That coil no longer exists.");
     const component = await tx.component.create({ data: { coilId: input.coilId, ...componentData(input) } });
     await markCoilChanged(tx, input.coilId);
-    await recordLapseCausedByWrite(tx, input.coilId, actorId);
-    await recordAudit(tx, { actorId, action: "create", entity: "Component", entityId: component.id, summary: `${coil.tag}: fitted ${component.partNumber} (${component.kind})`, detail: input });
+    await recordLapseCausedByWrite(scope, tx, input.coilId);
+    await recordAudit(tx, { siteId: scope.siteId, actorId: scope.actorId, action: "create", entity: "Component", entityId: component.id, summary: `${coil.tag}: fitted ${component.partNumber} (${component.kind})`, detail: input });
     return { component, coilTag: coil.tag };
   });
 }
@@ -51,11 +54,12 @@ export async function addComponent(actorId: string, input: ComponentInput) {
 /**
  * Takes a part out and fits its successor in one transaction: the old row gets removedAt, the
  * reason and replacedBy, the new one is installed at the same moment, so no day has two or none.
+ * A part of another site's coil is refused as one that is not on the coil.
  */
-export async function replaceComponent(actorId: string, input: ReplaceComponentInput) {
+export async function replaceComponent(scope: SiteScope, input: ReplaceComponentInput) {
   const { oldComponentId, removalReason, ...next } = input;
   return serializableTransaction(async (tx) => {
-    const old = await tx.component.findUnique({ where: { id: oldComponentId }, include: { coil: { select: { tag: true } } } });
+    const old = await tx.component.findFirst({ where: { id: oldComponentId, ...recordOfSite(scope) }, include: { coil: { select: { tag: true } } } });
     if (!old || old.coilId !== next.coilId) throw new ComponentStateError("That part is not on this coil.");
     if (old.removedAt) throw new ComponentStateError(`${old.partNumber} was already removed on ${old.removedAt.toISOString().slice(0, 10)}.`);
     if (next.installedAt.getTime() < old.installedAt.getTime()) {
@@ -66,9 +70,10 @@ export async function replaceComponent(actorId: string, input: ReplaceComponentI
     const removed = await tx.component.updateMany({ where: { id: old.id, removedAt: null }, data: { removedAt: next.installedAt, removalReason, replacedById: fitted.id } });
     if (removed.count === 0) throw new ComponentStateError(`${old.partNumber} was replaced by someone else just now.`);
     await markCoilChanged(tx, old.coilId);
-    await recordLapseCausedByWrite(tx, old.coilId, actorId);
+    await recordLapseCausedByWrite(scope, tx, old.coilId);
     await recordAudit(tx, {
-      actorId,
+      siteId: scope.siteId,
+      actorId: scope.actorId,
       action: "update",
       entity: "Component",
       entityId: old.id,

@@ -11,27 +11,32 @@ import { createHash } from "node:crypto";
 import type { PrismaClient, Prisma } from "./generated/client";
 import { createPrismaClient } from "./client";
 import { databaseProvider } from "../config/database-url";
+import { DEFAULT_SITE_ID } from "./site-scope";
 
 type Row = Record<string, unknown>;
 type AnyDelegate = {
-  findMany(args: { where?: Row; orderBy: Row; take: number; select?: Row }): Promise<Row[]>;
+  findMany(args: { where?: Row; orderBy: Row[]; take: number; select?: Row }): Promise<Row[]>;
   createMany(args: { data: Row[] }): Promise<{ count: number }>;
-  count(): Promise<number>;
+  count(args?: { where: Row }): Promise<number>;
   update(args: { where: Row; data: Row }): Promise<Row>;
 };
 
 /**
- * Every table, parents before children. `deferred` columns point at rows of the same table (a part's replacement),
- * so they are written as null first and filled in once every row exists. `intId`: an autoincrement key, whose
- * PostgreSQL sequence must be moved past the copied ids.
+ * Every table, parents before children. `key`: the primary key's columns when not `id`. `deferred` columns point at
+ * rows of the same table (a part's replacement), so they are written as null first and filled in once every row
+ * exists. `intId`: an autoincrement key, whose PostgreSQL sequence must be moved past the copied ids.
+ * Sites come first: coils, memberships, lending policies, audit events and cross-site loans name their site, so
+ * each record keeps its owner in the copy.
  */
-export const COPY_ORDER: { model: Prisma.ModelName; key?: string; intId?: true; deferred?: string[] }[] = [
+export const COPY_ORDER: { model: Prisma.ModelName; key?: string[]; intId?: true; deferred?: string[] }[] = [
+  { model: "Site" },
   { model: "User" },
-  { model: "SignInThrottle", key: "key" },
+  { model: "SiteMembership", key: ["userId", "siteId"] },
+  { model: "SignInThrottle", key: ["key"] },
   { model: "ClearancePolicy" },
   { model: "Coil" },
   // A cache of each coil's health (coil-summary.ts), copied too so the new database starts warm.
-  { model: "CoilSummary", key: "coilId" },
+  { model: "CoilSummary", key: ["coilId"] },
   { model: "TopLoad" },
   { model: "Component", deferred: ["replacedById"] },
   { model: "Sweep" },
@@ -51,22 +56,36 @@ function delegate(client: PrismaClient | Prisma.TransactionClient, model: string
   return (client as unknown as Record<string, AnyDelegate>)[model.charAt(0).toLowerCase() + model.slice(1)]!;
 }
 
-function keyOf(model: string): string {
-  return COPY_ORDER.find((t) => t.model === model)?.key ?? "id";
+function keyOf(model: string): string[] {
+  return COPY_ORDER.find((t) => t.model === model)?.key ?? ["id"];
+}
+
+/** `where` for the rows after `last` in the order of `key` (a composite key compares column by column). */
+function rowsAfter(key: readonly string[], last: Row): Row {
+  return {
+    OR: key.map((column, i) => ({ ...Object.fromEntries(key.slice(0, i).map((equal) => [equal, last[equal]])), [column]: { gt: last[column] } })),
+  };
 }
 
 /** Reads a table in key order, a batch at a time (keyset pagination: no OFFSET scans on large tables). */
 async function* readTable(client: PrismaClient | Prisma.TransactionClient, model: string): AsyncGenerator<Row[]> {
   const key = keyOf(model);
-  let after: unknown = undefined;
+  let last: Row | undefined = undefined;
   for (;;) {
-    const rows = await delegate(client, model).findMany({ ...(after === undefined ? {} : { where: { [key]: { gt: after } } }), orderBy: { [key]: "asc" }, take: BATCH });
+    const rows = await delegate(client, model).findMany({ ...(last === undefined ? {} : { where: rowsAfter(key, last) }), orderBy: key.map((column) => ({ [column]: "asc" })), take: BATCH });
     if (rows.length === 0) return;
     yield rows;
-    after = rows.at(-1)![key];
+    last = rows.at(-1)!;
     if (rows.length < BATCH) return;
   }
 }
+
+/**
+ * A freshly migrated database is not quite empty: the sites migration creates the default site. The copy counts that
+ * one row as empty (nothing else can refer to it while every other table is empty) and replaces it with the
+ * source's sites, so the default site keeps the source's name and the copy stays row for row the same.
+ */
+const FRESH_DATABASE_ROWS: Partial<Record<Prisma.ModelName, Row>> = { Site: { id: DEFAULT_SITE_ID } };
 
 /** A row as canonical text: keys sorted, Dates as ISO instants, so the same stored values give the same text on both databases. */
 function canonicalRow(row: Row): string {
@@ -110,11 +129,13 @@ export async function copyDatabase(
   onProgress: (model: string, rows: number) => void = () => {},
 ): Promise<CopyReport> {
   for (const { model } of COPY_ORDER) {
-    const present = await delegate(target, model).count();
+    const fresh = FRESH_DATABASE_ROWS[model];
+    const present = await delegate(target, model).count(fresh ? { where: { NOT: fresh } } : undefined);
     if (present > 0) throw new CopyRefusedError(`The target database is not empty: ${model} has ${present} row(s). Copy into a freshly migrated, empty database.`);
   }
   await target.$transaction(
     async (tx) => {
+      for (const [model, fresh] of Object.entries(FRESH_DATABASE_ROWS)) await (delegate(tx, model) as unknown as { deleteMany(args: { where: Row }): Promise<unknown> }).deleteMany({ where: fresh });
       for (const { model, intId, deferred = [] } of COPY_ORDER) {
         let copied = 0;
         const later: Row[] = [];

@@ -1,14 +1,19 @@
 /**
  * Writes a generated demo dataset (prisma/demo/generate.ts) in one transaction: either the whole
- * demo club lands or nothing does. Also empties the database for `db:reset-demo`.
+ * demo network (its sites, people and their memberships, every site's logbook) lands or nothing does.
+ * Also empties the database for `db:reset-demo`.
  */
 import { prisma } from "./client";
 import { markCoilChanged } from "./coil-summary";
 import { fitsBySession } from "./session-fits";
 import type { Prisma } from "./generated/client";
+import { DEFAULT_SITE_ID } from "./site-scope";
 
 export interface DemoDataset {
+  /** The default site (DEFAULT_SITE_ID) is among them: it exists already and is renamed to the demo's first site. */
+  sites: Prisma.SiteCreateManyInput[];
   users: Prisma.UserCreateManyInput[];
+  memberships: Prisma.SiteMembershipCreateManyInput[];
   coils: Prisma.CoilCreateManyInput[];
   topLoads: Prisma.TopLoadCreateManyInput[];
   components: Prisma.ComponentCreateManyInput[];
@@ -41,7 +46,9 @@ async function inChunks<T>(rows: T[], write: (chunk: T[]) => Promise<unknown>) {
 export async function loadDemoDataset(data: DemoDataset): Promise<void> {
   await prisma.$transaction(
     async (tx) => {
+      for (const site of data.sites) await tx.site.upsert({ where: { id: site.id! }, create: site, update: site });
       await tx.user.createMany({ data: data.users });
+      await tx.siteMembership.createMany({ data: data.memberships });
       await tx.coil.createMany({ data: data.coils });
       await tx.topLoad.createMany({ data: data.topLoads });
       await tx.component.createMany({ data: data.components });
@@ -71,7 +78,10 @@ export async function loadDemoDataset(data: DemoDataset): Promise<void> {
   );
 }
 
-/** Empties every table (children first). Only for the demo reset. */
+/** The default site as the sites migration creates it (prisma/migrations/20261204090000_sites). */
+const DEFAULT_SITE = { id: DEFAULT_SITE_ID, slug: "main", name: "Main site" };
+
+/** Empties every table (children first), leaving only the default site. For the demo reset and the tests. */
 export async function emptyDatabase(): Promise<void> {
   await prisma.$transaction([
     prisma.auditEvent.deleteMany(),
@@ -91,7 +101,11 @@ export async function emptyDatabase(): Promise<void> {
     prisma.topLoad.deleteMany(),
     prisma.coil.deleteMany(),
     prisma.signInThrottle.deleteMany(),
+    prisma.siteMembership.deleteMany(),
     prisma.user.deleteMany(),
+    // Back to what a freshly migrated database holds: the one default site, as the migration named it.
+    prisma.site.deleteMany({ where: { id: { not: DEFAULT_SITE_ID } } }),
+    prisma.site.upsert({ where: { id: DEFAULT_SITE_ID }, create: DEFAULT_SITE, update: DEFAULT_SITE }),
   ]);
 }
 

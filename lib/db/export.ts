@@ -1,10 +1,12 @@
 /**
  * Reads coils with everything that hangs off them and writes them as the logbook file
  * (lib/validation/export.ts). Orders are fixed (by time, then a stable key) so two exports of the
- * same records are identical.
+ * same records are identical. Only the scope's site's coils are read; the file does not name a site, so an import
+ * puts the coils in the importing site (lib/db/import.ts).
  */
 import { prisma } from "./client";
 import type { Prisma } from "./generated/client";
+import { coilOfSite, type SiteScope } from "./site-scope";
 import { LOGBOOK_FORMAT, LOGBOOK_VERSION, type CoilDocument, type LogbookDocument } from "../validation/export";
 
 const email = { select: { email: true } } as const;
@@ -88,7 +90,8 @@ function toCoilDocument(coil: CoilWithEverything): CoilDocument {
       lapsedAt: isoOrNull(lapsedAt),
       createdAt: iso(createdAt),
     })),
-    loans: coil.loans.map(({ coilId: _c, lentById: _l, receivedById: _r, lentBy, receivedBy, outAt, expectedBackAt, returnedAt, createdAt, ...l }) => ({
+    // The borrowing site is this server's own reference and means nothing in another install or site.
+    loans: coil.loans.map(({ coilId: _c, lentById: _l, receivedById: _r, borrowerSiteId: _b, lentBy, receivedBy, outAt, expectedBackAt, returnedAt, createdAt, ...l }) => ({
       ...l,
       outAt: iso(outAt),
       expectedBackAt: iso(expectedBackAt),
@@ -104,14 +107,14 @@ function wrap(coils: CoilDocument[], now: Date): LogbookDocument {
   return { format: LOGBOOK_FORMAT, version: LOGBOOK_VERSION, exportedAt: now.toISOString(), coils };
 }
 
-/** One coil's logbook file, or null when no coil has that tag. */
-export async function exportCoil(tag: string, now = new Date()): Promise<LogbookDocument | null> {
-  const coil = await prisma.coil.findUnique({ where: { tag }, include: coilInclude });
+/** One coil's logbook file, or null when the scope's site has no coil with that tag. */
+export async function exportCoil(scope: SiteScope, tag: string, now = new Date()): Promise<LogbookDocument | null> {
+  const coil = await prisma.coil.findUnique({ where: { siteId_tag: { siteId: scope.siteId, tag } }, include: coilInclude });
   return coil ? wrap([toCoilDocument(coil)], now) : null;
 }
 
-/** Every coil's logbook in one file. */
-export async function exportFleet(now = new Date()): Promise<LogbookDocument> {
-  const coils = await prisma.coil.findMany({ orderBy: { tag: "asc" }, include: coilInclude });
+/** Every coil of the scope's site, its logbook in one file. */
+export async function exportFleet(scope: SiteScope, now = new Date()): Promise<LogbookDocument> {
+  const coils = await prisma.coil.findMany({ where: coilOfSite(scope), orderBy: { tag: "asc" }, include: coilInclude });
   return wrap(coils.map(toCoilDocument), now);
 }

@@ -6,6 +6,7 @@ import { prisma } from "./client";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import { DuplicateTagError } from "./coils";
+import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 import { storedPlanSchema, type PlanSaveInput, type PlanVariant, type StoredPlan } from "../validation/plan";
 
 /** Parts saved from a plan say so, since the coil's status alone is lost once it goes into service. */
@@ -24,18 +25,19 @@ function describeTopLoad(topLoad: NonNullable<PlanVariant["input"]["topLoad"]>):
 }
 
 /**
- * Creates the planned coil from the chosen variant. `plan` is validated again here, so nothing that the coil page could
- * not read back is ever stored.
+ * Creates the planned coil at the scope's site from the chosen variant (its tag unique within the site). `plan` is
+ * validated again here, so nothing that the coil page could not read back is ever stored.
  */
-export async function savePlannedCoil(actorId: string, save: PlanSaveInput, chosen: PlanVariant, plan: StoredPlan, now: Date = new Date()) {
+export async function savePlannedCoil(scope: SiteScope, save: PlanSaveInput, chosen: PlanVariant, plan: StoredPlan, now: Date = new Date()) {
   const stored = storedPlanSchema.parse(plan);
   const figures = stored.variants[stored.chosenVariant]!.predicted;
   const input = chosen.input;
   try {
     return await prisma.$transaction(async (tx) => {
-      if (await tx.coil.findUnique({ where: { tag: save.tag }, select: { id: true } })) throw new DuplicateTagError(save.tag);
+      if (await tx.coil.findUnique({ where: { siteId_tag: { siteId: scope.siteId, tag: save.tag } }, select: { id: true } })) throw new DuplicateTagError(save.tag);
       const coil = await tx.coil.create({
         data: {
+          siteId: scope.siteId,
           tag: save.tag,
           name: save.name,
           builderName: save.builderName,
@@ -49,7 +51,7 @@ export async function savePlannedCoil(actorId: string, save: PlanSaveInput, chos
           wireMaterial: input.wireMaterial,
           notes: "Saved from the planner.",
           planJson: JSON.stringify(stored),
-          createdById: actorId,
+          createdById: scope.actorId,
         },
       });
       if (input.topLoad) {
@@ -92,7 +94,8 @@ export async function savePlannedCoil(actorId: string, save: PlanSaveInput, chos
       }
       await markCoilChanged(tx, coil.id);
       await recordAudit(tx, {
-        actorId,
+        siteId: scope.siteId,
+        actorId: scope.actorId,
         action: "create",
         entity: "Coil",
         entityId: coil.id,
@@ -102,21 +105,22 @@ export async function savePlannedCoil(actorId: string, save: PlanSaveInput, chos
       return coil;
     });
   } catch (error) {
-    // Two stewards saving the same tag at once both pass the check above; the unique index refuses the second.
+    // Two stewards saving the same tag to one site at once both pass the check above; the (siteId, tag) index refuses the second.
     if ((error as { code?: unknown }).code === "P2002") throw new DuplicateTagError(save.tag);
     throw error;
   }
 }
 
-/** Coils and fitted parts members may start a plan from (a build, a transistor or heat sink already in the fleet). */
-export async function listPlanStartingPoints() {
+/** Coils and fitted parts members may start a plan from (a build, a transistor or heat sink already in the site's fleet). */
+export async function listPlanStartingPoints(scope: SiteScope) {
   const [coils, parts] = await Promise.all([
     prisma.coil.findMany({
+      where: coilOfSite(scope),
       orderBy: { tag: "asc" },
       select: { tag: true, name: true, topology: true, formDiameterM: true, windingLengthM: true, turns: true, wireDiameterM: true, wireGaugeAwg: true, wireMaterial: true },
     }),
     prisma.component.findMany({
-      where: { kind: { in: ["switch", "heat_sink"] } },
+      where: { kind: { in: ["switch", "heat_sink"] }, ...recordOfSite(scope) },
       orderBy: [{ partNumber: "asc" }, { installedAt: "desc" }],
       select: {
         kind: true,

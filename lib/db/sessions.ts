@@ -10,6 +10,7 @@ import { markCoilChanged } from "./coil-summary";
 import { RecordRefusedError } from "./record-refused";
 import type { SessionInput } from "../validation/session";
 import { fitSessionSamples } from "../analysis/session-fit";
+import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 
 export interface SessionListFilter {
   coilTag?: string;
@@ -26,11 +27,12 @@ const ORDER: Record<NonNullable<SessionListFilter["sort"]>, Prisma.RunSessionOrd
   duration: [{ durationS: "desc" }, { startedAt: "desc" }],
 };
 
-export async function listSessions(filter: SessionListFilter = {}, pageRequest: Partial<PageRequest> = {}) {
+/** The scope's site's sessions, a page at a time; the coil filter and the search look only inside that site. */
+export async function listSessions(scope: SiteScope, filter: SessionListFilter = {}, pageRequest: Partial<PageRequest> = {}) {
   const request = normalizePage(pageRequest);
   const where: Prisma.RunSessionWhereInput = {
     outcome: filter.outcome,
-    ...(filter.coilTag ? { coil: { tag: filter.coilTag } } : {}),
+    coil: { ...coilOfSite(scope), ...(filter.coilTag ? { tag: filter.coilTag } : {}) },
     ...(filter.q ? { OR: [{ notes: textContains(filter.q) }, { coil: { tag: textContains(filter.q) } }, { coil: { name: textContains(filter.q) } }] } : {}),
   };
   const [rows, total] = await Promise.all([
@@ -46,12 +48,16 @@ export async function listSessions(filter: SessionListFilter = {}, pageRequest: 
   return toPage(rows, total, request);
 }
 
-/** The form's default: the coil's current top load by the one rule (lib/analysis/current-top-load.ts). */
-export async function findLastTopLoadId(coilId: string): Promise<string | null> {
+/**
+ * The form's default: the coil's current top load by the one rule (lib/analysis/current-top-load.ts); null for a
+ * coil of another site, as for one without top loads.
+ */
+export async function findLastTopLoadId(scope: SiteScope, coilId: string): Promise<string | null> {
+  const ofCoil = { coilId, ...recordOfSite(scope) };
   const [session, sweep, topLoads] = await Promise.all([
-    prisma.runSession.findFirst({ where: { coilId, topLoadId: { not: null } }, orderBy: { startedAt: "desc" }, select: { startedAt: true, topLoadId: true } }),
-    prisma.sweep.findFirst({ where: { coilId }, orderBy: { takenAt: "desc" }, select: { takenAt: true, topLoadId: true } }),
-    prisma.topLoad.findMany({ where: { coilId }, orderBy: [{ createdAt: "asc" }, { id: "asc" }], select: { id: true, retiredAt: true } }),
+    prisma.runSession.findFirst({ where: { ...ofCoil, topLoadId: { not: null } }, orderBy: { startedAt: "desc" }, select: { startedAt: true, topLoadId: true } }),
+    prisma.sweep.findFirst({ where: ofCoil, orderBy: { takenAt: "desc" }, select: { takenAt: true, topLoadId: true } }),
+    prisma.topLoad.findMany({ where: ofCoil, orderBy: [{ createdAt: "asc" }, { id: "asc" }], select: { id: true, retiredAt: true } }),
   ]);
   return findCurrentTopLoadId(sweep ? [sweep] : [], session ? [session] : [], topLoads);
 }
@@ -66,28 +72,40 @@ export async function findLastTopLoadId(coilId: string): Promise<string | null> 
  * submits racing with one key, the unique index on RunSession.clientKey (or the isolation) refuses the
  * second's insert, its transaction rolls back whole (no samples, summary bump or audit event) and runs again,
  * and this time its look-up finds the winner's session. Without a key nothing is looked up, as before.
+ *
+ * The coil must be the scope's site's (another site's coil is refused as one that does not exist), the session is
+ * logged by scope.actorId, and only a session the same member logged at the same site is ever replayed.
  */
-export async function createSession(actorId: string, input: SessionInput): Promise<StoredSession> {
+export async function createSession(scope: SiteScope, input: SessionInput): Promise<StoredSession> {
   const { clientKey } = input;
-  if (!clientKey) return prisma.$transaction((tx) => insertSession(tx, actorId, input));
-  return serializableTransaction(async (tx) => (await findSessionByClientKey(tx, actorId, clientKey)) ?? insertSession(tx, actorId, input));
+  if (!clientKey) return prisma.$transaction((tx) => insertSession(tx, scope, input));
+  return serializableTransaction(async (tx) => (await findSessionByClientKey(tx, scope, clientKey)) ?? insertSession(tx, scope, input));
 }
 
 export type StoredSession = RunSession & { coilTag: string; replayed: boolean };
 
-/** The session stored under `clientKey`, as createSession returns it; refused when another member's submission used the key. */
-async function findSessionByClientKey(tx: Tx, actorId: string, clientKey: string): Promise<StoredSession | null> {
-  const session = await tx.runSession.findUnique({ where: { clientKey }, include: { coil: { select: { tag: true } } } });
-  if (!session) return null;
-  if (session.loggedById !== actorId) {
-    throw new RecordRefusedError("clientKey", "Submission key: it belongs to another member's session; send a new key.");
+/**
+ * The session stored under `clientKey` by the same member at the same site, as createSession returns it. A key used
+ * by anyone else, or at another site, is refused (the unique index would refuse the insert anyway) with the same
+ * words either way and without reading that session: only whether the key is taken is asked.
+ */
+async function findSessionByClientKey(tx: Tx, scope: SiteScope, clientKey: string): Promise<StoredSession | null> {
+  const session = await tx.runSession.findFirst({
+    where: { clientKey, loggedById: scope.actorId, ...recordOfSite(scope) },
+    include: { coil: { select: { tag: true } } },
+  });
+  if (session) {
+    const { coil, ...fields } = session;
+    return { ...fields, coilTag: coil.tag, replayed: true };
   }
-  const { coil, ...fields } = session;
-  return { ...fields, coilTag: coil.tag, replayed: true };
+  if ((await tx.runSession.count({ where: { clientKey } })) > 0) {
+    throw new RecordRefusedError("clientKey", "Submission key: it was already used for another submission; send a new key.");
+  }
+  return null;
 }
 
-async function insertSession(tx: Tx, actorId: string, input: SessionInput): Promise<StoredSession> {
-  const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
+async function insertSession(tx: Tx, scope: SiteScope, input: SessionInput): Promise<StoredSession> {
+  const coil = await tx.coil.findFirst({ where: { id: input.coilId, ...coilOfSite(scope) }, select: { id: true, tag: true, siteId: true } });
   if (!coil) throw new RecordRefusedError("coilId", "Coil: that coil does not exist.");
   if (input.topLoadId) {
     const topLoad = await tx.topLoad.findUnique({ where: { id: input.topLoadId }, select: { coilId: true } });
@@ -102,7 +120,7 @@ async function insertSession(tx: Tx, actorId: string, input: SessionInput): Prom
     data: {
       ...fields,
       topLoadId: fields.topLoadId ?? null,
-      loggedById: actorId,
+      loggedById: scope.actorId,
       loanId: loan?.id ?? null,
       // The warm-up fit goes in with its samples, so every view judges the session from the same steady state.
       ...fitSessionSamples(samples),
@@ -111,7 +129,8 @@ async function insertSession(tx: Tx, actorId: string, input: SessionInput): Prom
   });
   await markCoilChanged(tx, coil.id);
   await recordAudit(tx, {
-    actorId,
+    siteId: coil.siteId,
+    actorId: scope.actorId,
     action: "create",
     entity: "RunSession",
     entityId: session.id,
@@ -121,10 +140,13 @@ async function insertSession(tx: Tx, actorId: string, input: SessionInput): Prom
   return { ...session, coilTag: coil.tag, replayed: false };
 }
 
-/** One session with everything its page shows: the coil, its parts (for the parts fitted that day), samples and failures. */
-export function getSessionDetail(id: string) {
-  return prisma.runSession.findUnique({
-    where: { id },
+/**
+ * One session of the scope's site with everything its page shows: the coil, its parts (for the parts fitted that
+ * day), samples and failures; null when there is none there.
+ */
+export function getSessionDetail(scope: SiteScope, id: string) {
+  return prisma.runSession.findFirst({
+    where: { id, ...recordOfSite(scope) },
     include: {
       coil: { include: { components: { orderBy: { installedAt: "asc" } } } },
       topLoad: { select: { name: true } },

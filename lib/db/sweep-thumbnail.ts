@@ -4,6 +4,7 @@
  */
 import { prisma } from "./client";
 import { rawCount } from "./raw-read";
+import type { SiteScope } from "./site-scope";
 
 export interface SweepThumbnailRecords {
   id: string;
@@ -22,10 +23,13 @@ export interface SweepThumbnailRecords {
 export const THUMBNAIL_FULL_READ_MAX = 2_000;
 export const THUMBNAIL_BUCKETS = 400;
 
-export async function readSweepThumbnail(sweepId: string): Promise<SweepThumbnailRecords | null> {
+/** Null for no such sweep of a coil at the scope's site. */
+export async function readSweepThumbnail(scope: SiteScope, sweepId: string): Promise<SweepThumbnailRecords | null> {
   const [sweep] = await prisma.$queryRaw<(Omit<SweepThumbnailRecords, "points"> & { pointCount: number | bigint })[]>`
-    SELECT id, "takenAt", "seriesResistanceOhm", "sourceAmplitudeV", "pointCount" FROM "Sweep" WHERE id = ${sweepId}`;
+    SELECT w.id, w."takenAt", w."seriesResistanceOhm", w."sourceAmplitudeV", w."pointCount" FROM "Sweep" w JOIN "Coil" ON "Coil".id = w."coilId"
+    WHERE w.id = ${sweepId} AND "Coil"."siteId" = ${scope.siteId}`;
   if (!sweep) return null;
+  // The points below are read by the id of the sweep just found at the scope's site, so they can only be its own.
   const { pointCount, ...head } = sweep;
   const count = rawCount(pointCount);
   if (count <= THUMBNAIL_FULL_READ_MAX) {

@@ -11,14 +11,17 @@ import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
 import { formatQuantity } from "../units/format";
+import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 
+/** The scope's site's sweeps, a page at a time; the coil filter and the search look only inside that site. */
 export async function listSweeps(
+  scope: SiteScope,
   filter: { coilTag?: string; q?: string; sort?: "newest" | "oldest" | "frequency" } = {},
   pageRequest: Partial<PageRequest> = {},
 ) {
   const request = normalizePage(pageRequest);
   const where: Prisma.SweepWhereInput = {
-    ...(filter.coilTag ? { coil: { tag: filter.coilTag } } : {}),
+    coil: { ...coilOfSite(scope), ...(filter.coilTag ? { tag: filter.coilTag } : {}) },
     ...(filter.q ? { OR: sweepSearch(filter.q) } : {}),
   };
   const orderBy: Prisma.SweepOrderByWithRelationInput[] =
@@ -47,10 +50,10 @@ function sweepSearch(q: string): Prisma.SweepWhereInput[] {
   ];
 }
 
-/** A sweep with everything its page shows. Points come sorted by frequency. */
-export function getSweep(id: string) {
-  return prisma.sweep.findUnique({
-    where: { id },
+/** A sweep of the scope's site with everything its page shows, or null. Points come sorted by frequency. */
+export function getSweep(scope: SiteScope, id: string) {
+  return prisma.sweep.findFirst({
+    where: { id, ...recordOfSite(scope) },
     include: {
       coil: true,
       topLoad: true,
@@ -61,20 +64,20 @@ export function getSweep(id: string) {
   });
 }
 
-/** A coil and its top loads, for the sweep forms. */
-export function getCoilForSweepEntry(tag: string) {
+/** A coil of the scope's site and its top loads, for the sweep forms, or null. */
+export function getCoilForSweepEntry(scope: SiteScope, tag: string) {
   return prisma.coil.findUnique({
-    where: { tag },
+    where: { siteId_tag: { siteId: scope.siteId, tag } },
     select: { id: true, tag: true, name: true, topLoads: { orderBy: { createdAt: "asc" }, select: { id: true, name: true, shape: true, retiredAt: true } } },
   });
 }
 
 const CALIBRATION_TOP_LOAD = { select: { shape: true, diameterM: true, tubeDiameterM: true, heightM: true, measuredCapacitanceF: true } } as const;
 
-/** Every sweep of a coil with what its calibration needs, oldest first. */
-export function listCalibrationSweeps(coilId: string, db: Pick<Tx, "sweep"> = prisma) {
+/** Every sweep of a coil of the scope's site with what its calibration needs, oldest first (none for another site's coil). */
+export function listCalibrationSweeps(scope: SiteScope, coilId: string, db: Pick<Tx, "sweep"> = prisma) {
   return db.sweep.findMany({
-    where: { coilId },
+    where: { coilId, ...recordOfSite(scope) },
     orderBy: { takenAt: "asc" },
     select: { id: true, takenAt: true, firstSeriesResonanceHz: true, topLoad: CALIBRATION_TOP_LOAD },
   });
@@ -121,13 +124,14 @@ async function insertPointPairs(tx: Tx, sweepId: string, pairs: string): Promise
  * the coil's environment capacitance recalibrated over all its sweeps, and the audit entry — in one
  * transaction, so a refusal anywhere leaves nothing behind. Serializable, because the calibration reads all the
  * coil's sweeps: two imports of the same coil at once under READ COMMITTED would each miss the other's sweep.
+ * The coil must be the scope's site's: another site's coil is refused exactly as a coil that does not exist.
  */
-export async function recordSweep(actorId: string, input: SweepRecordInput, how: "hand" | "import" = "hand"): Promise<RecordedSweep> {
+export async function recordSweep(scope: SiteScope, input: SweepRecordInput, how: "hand" | "import" = "hand"): Promise<RecordedSweep> {
   const analysis = analyzeReadings(input);
   const firstSeries = analysis.seriesResonances[0]?.frequency ?? null;
   return serializableTransaction(
     async (tx) => {
-      const coil = await tx.coil.findUnique({ where: { id: input.coilId } });
+      const coil = await tx.coil.findFirst({ where: { id: input.coilId, ...coilOfSite(scope) } });
       if (!coil) throw new SweepRefusedError("coilId", "Coil: that coil does not exist.");
       if (input.topLoadId !== null) {
         const topLoad = await tx.topLoad.findUnique({ where: { id: input.topLoadId }, select: { coilId: true } });
@@ -135,7 +139,7 @@ export async function recordSweep(actorId: string, input: SweepRecordInput, how:
       }
       const { points, ...settings } = input;
       const sweep = await tx.sweep.create({
-        data: { ...settings, takenById: actorId, pointCount: points.length, firstSeriesResonanceHz: firstSeries },
+        data: { ...settings, takenById: scope.actorId, pointCount: points.length, firstSeriesResonanceHz: firstSeries },
       });
       for (let start = 0; start < points.length; start += POINTS_PER_INSERT) {
         const pairs = JSON.stringify(points.slice(start, start + POINTS_PER_INSERT).map((p) => [p.frequencyHz, p.amplitudeV]));
@@ -159,10 +163,11 @@ export async function recordSweep(actorId: string, input: SweepRecordInput, how:
           })),
         });
       }
-      const calibrationNote = await recalibrateCoil(tx, coil);
+      const calibrationNote = await recalibrateCoil(tx, scope, coil);
       await markCoilChanged(tx, coil.id);
       await recordAudit(tx, {
-        actorId,
+        siteId: coil.siteId,
+        actorId: scope.actorId,
         action: how === "import" ? "import" : "create",
         entity: "Sweep",
         entityId: sweep.id,
@@ -198,8 +203,12 @@ function analyzeReadings(input: SweepRecordInput): SweepAnalysis {
 }
 
 /** Recalibrate the coil's environment capacitance over all its sweeps; returns why not when it cannot. */
-async function recalibrateCoil(tx: Tx, coil: { id: string; formDiameterM: number; windingLengthM: number; turns: number; wireDiameterM: number }): Promise<string | null> {
-  const sweeps = await listCalibrationSweeps(coil.id, tx);
+async function recalibrateCoil(
+  tx: Tx,
+  scope: SiteScope,
+  coil: { id: string; formDiameterM: number; windingLengthM: number; turns: number; wireDiameterM: number },
+): Promise<string | null> {
+  const sweeps = await listCalibrationSweeps(scope, coil.id, tx);
   try {
     const result = calibrateCoilFromSweeps(coil, sweeps);
     if (!result) return "No sweep of this coil shows a series resonance yet, so its environment capacitance is not calibrated.";

@@ -1,4 +1,4 @@
-/** Account schemas, shared by the sign-in form, the admin screens and their server actions. */
+/** Account and membership schemas, shared by the sign-in form, the admin screens and their server actions. */
 import { z } from "zod";
 import { ROLES } from "../auth/roles";
 
@@ -37,4 +37,14 @@ export const updateAccessSchema = z.object({
   userId: z.string().min(1),
   role: roleSchema.optional(),
   active: z.enum(["true", "false"]).transform((v) => v === "true").optional(),
+});
+
+/** Adding an account that already exists (at another site) to the current site. */
+export const existingMemberSchema = z.object({ email: emailSchema, role: roleSchema });
+
+export const removeMemberSchema = z.object({ userId: z.string().min(1) });
+
+export const organisationAdminSchema = z.object({
+  userId: z.string().min(1),
+  organisationAdmin: z.enum(["true", "false"], { error: "Choose yes or no." }).transform((v) => v === "true"),
 });

@@ -1,5 +1,5 @@
 /**
- * Builds the demo club's whole logbook from the scenario (scenario.ts) with lib/calc's models and a
+ * Builds the demo network's sites, people and whole logbook (the club's, and the school's few coils) from the scenario (scenario.ts) with lib/calc's models and a
  * seeded random stream, so every install gets the same readings. Dates count from `anchor` (the day
  * the demo is loaded) so clearances and loans are current whenever it is loaded.
  * Pure: returns rows for lib/db/demo-loader.ts to write.
@@ -11,8 +11,8 @@ import { createSeededRandom, type SeededRandom } from "../../lib/calc/seeded-ran
 import { sessionMargins } from "../../lib/calc/session-margins";
 import { computeClearanceExpiry, DEFAULT_CLEARANCE_POLICY, evaluateClearance } from "../../lib/calc/clearance-policy";
 import type { DemoDataset } from "../../lib/db/demo-loader";
-import { DEMO_PEOPLE, type DemoPersonKey } from "./people";
-import { DEMO_COILS, DEMO_FAILURES, DEMO_LOANS, DEMO_STANDING_CLEARANCE, type DemoCoil, type DemoTopLoad } from "./scenario";
+import { DEMO_PEOPLE, DEMO_SITES, type DemoPersonKey, type DemoSiteKey } from "./people";
+import { DEMO_COILS, DEMO_FAILURES, DEMO_LOANS, DEMO_SCHOOL_CLEARANCE, DEMO_SCHOOL_COILS, DEMO_STANDING_CLEARANCE, type DemoCoil, type DemoTopLoad } from "./scenario";
 import { pick, round, synthesizeSweep, synthesizeWarmUp } from "./readings";
 
 const DAY_MS = 86_400_000;
@@ -42,6 +42,11 @@ const BENCH_SETTINGS = [
   { notes: "Workshop bench after the winter re-arrangement, scope cart beside it, humidity 35 %.", capacitanceShare: 0.015 },
 ] as const;
 
+const SITE_ID = Object.fromEntries(DEMO_SITES.map((site) => [site.key, site.id])) as Record<DemoSiteKey, string>;
+/** Who logs each site's sweeps and runs, and the steward who adds its coils and decides its clearances. */
+const LOGGERS: Record<DemoSiteKey, DemoPersonKey[]> = { club: ["member", "member2", "member3", "steward"], school: ["schoolMember", "member2", "schoolSteward"] };
+const STEWARD: Record<DemoSiteKey, DemoPersonKey> = { club: "steward", school: "schoolSteward" };
+
 interface SessionRecord {
   id: string;
   day: number;
@@ -64,10 +69,20 @@ export interface GenerateOptions {
 export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions): DemoDataset {
   const at = (day: number, hourUtc = 17, minute = 0) => new Date(anchor.getTime() + day * DAY_MS + hourUtc * 3_600_000 + minute * 60_000);
   const userId = (key: DemoPersonKey) => `user-${key}`;
-  const loggers: DemoPersonKey[] = ["member", "member2", "member3", "steward"];
 
   const data: DemoDataset = {
-    users: DEMO_PEOPLE.map((p) => ({ id: userId(p.key), email: p.email, name: p.name, role: p.role, passwordHash: passwordHashes[p.key], createdAt: at(-180, 9) })),
+    sites: DEMO_SITES.map((site) => ({ id: site.id, slug: site.slug, name: site.name, createdAt: at(-180, 8) })),
+    users: DEMO_PEOPLE.map((p) => ({
+      id: userId(p.key),
+      email: p.email,
+      name: p.name,
+      organisationAdmin: "organisationAdmin" in p && p.organisationAdmin,
+      passwordHash: passwordHashes[p.key],
+      createdAt: at(-180, 9),
+    })),
+    memberships: DEMO_PEOPLE.flatMap((p) =>
+      Object.entries(p.sites).map(([site, role]) => ({ userId: userId(p.key), siteId: SITE_ID[site as DemoSiteKey], role, createdAt: at(-180, 9) })),
+    ),
     coils: [],
     topLoads: [],
     components: [],
@@ -89,7 +104,9 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
   const sessionsByCoil = new Map<string, SessionRecord[]>();
   const sweepsByCoil = new Map<string, { takenAt: Date; firstHz: number }[]>();
 
-  for (const coil of DEMO_COILS) {
+  for (const coil of [...DEMO_COILS, ...DEMO_SCHOOL_COILS]) {
+    const site = coil.site ?? "club";
+    const loggers = LOGGERS[site];
     const coilRng = createSeededRandom(DEMO_SEED + hashTag(coil.tag));
     const wireDiameterM = awgDiameter(coil.wireGaugeAwg);
     const coilId = `coil-${coil.tag}`;
@@ -110,6 +127,7 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
 
     data.coils.push({
       id: coilId,
+      siteId: SITE_ID[site],
       tag: coil.tag,
       name: coil.name,
       builderName: coil.builderName,
@@ -126,7 +144,7 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
       primaryDiameterM: coil.primaryDiameterM,
       notes: coil.notes,
       createdAt: at(coil.createdDay, 10),
-      createdById: userId("steward"),
+      createdById: userId(STEWARD[site]),
     });
     coil.topLoads.forEach((tl, i) => {
       const next = coil.topLoads[i + 1];
@@ -197,7 +215,18 @@ export function generateDemoDataset({ anchor, passwordHashes }: GenerateOptions)
 
   addFailures(data, sessionsByCoil, at, userId);
   addClearancesAndLoans(data, sessionsByCoil, sweepsByCoil, at, userId);
-  data.audit.push({ at: at(0, 0), actorId: null, action: "import", entity: "Demo", entityId: "kettlewell", summary: `Demo club loaded: ${data.coils.length} coils, ${data.sessions.length} sessions, ${data.sweeps.length} sweeps` });
+  for (const site of DEMO_SITES) {
+    const coilIds = new Set(data.coils.filter((c) => c.siteId === site.id).map((c) => c.id));
+    data.audit.push({
+      at: at(0, 0),
+      siteId: site.id,
+      actorId: null,
+      action: "import",
+      entity: "Demo",
+      entityId: site.slug,
+      summary: `Demo loaded for ${site.name}: ${coilIds.size} coils, ${data.sessions.filter((s) => coilIds.has(s.coilId)).length} sessions, ${data.sweeps.filter((s) => coilIds.has(s.coilId)).length} sweeps`,
+    });
+  }
   return data;
 }
 
@@ -314,7 +343,7 @@ function addClearancesAndLoans(
   userId: (k: DemoPersonKey) => string,
 ) {
   const clear = (coilTag: string, day: number, id: string) => {
-    const coil = DEMO_COILS.find((c) => c.tag === coilTag)!;
+    const coil = [...DEMO_COILS, ...DEMO_SCHOOL_COILS].find((c) => c.tag === coilTag)!;
     const coilId = `coil-${coil.tag}`;
     const decidedAt = at(day, 11);
     const before = sessionsByCoil.get(coilId)!.filter((s) => s.startedAt < decidedAt);
@@ -347,7 +376,7 @@ function addClearancesAndLoans(
       id,
       coilId,
       policyId: "policy-1",
-      decidedById: userId("steward"),
+      decidedById: userId(STEWARD[coil.site ?? "club"]),
       decidedAt,
       validUntil: computeClearanceExpiry(decidedAt, DEFAULT_CLEARANCE_POLICY),
       verdict: "cleared",
@@ -385,6 +414,7 @@ function addClearancesAndLoans(
     }
   });
   clear(DEMO_STANDING_CLEARANCE.coilTag, DEMO_STANDING_CLEARANCE.clearedDay, "clearance-standing");
+  clear(DEMO_SCHOOL_CLEARANCE.coilTag, DEMO_SCHOOL_CLEARANCE.clearedDay, "clearance-school-standing");
 }
 
 function topLoadSpec(tl: DemoTopLoad): TopLoadSpec | null {

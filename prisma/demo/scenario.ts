@@ -3,7 +3,7 @@
  * for the demo; the readings are generated from these settings by prisma/demo/generate.ts using
  * lib/calc's models and seeded noise. Day numbers count back from the day the demo is loaded (0).
  */
-import type { DemoPersonKey } from "./people";
+import type { DemoPersonKey, DemoSiteKey } from "./people";
 
 export type Topology = "single_switch" | "push_pull" | "half_bridge" | "full_bridge";
 
@@ -31,6 +31,8 @@ export interface DemoSwitch {
 }
 
 export interface DemoCoil {
+  /** The site that keeps the coil; the club's unless said. */
+  site?: DemoSiteKey;
   tag: string;
   name: string;
   builderName: string;
@@ -269,6 +271,66 @@ export const DEMO_COILS: DemoCoil[] = [
   },
 ];
 
+/**
+ * Fenwick Street School's coils: a classroom demonstrator and a science-fair build, each with its sweeps and sessions,
+ * logged by the school's own people. Coil tags are unique per site, so the school numbers its own.
+ */
+export const DEMO_SCHOOL_COILS: DemoCoil[] = [
+  {
+    site: "school",
+    tag: "FS-01",
+    name: "Classroom Spark",
+    builderName: "Year 10 electronics group",
+    status: "active",
+    topology: "single_switch",
+    formDiameterM: 0.05,
+    windingLengthM: 0.2,
+    wireGaugeAwg: 34,
+    turns: 1150,
+    primaryTurns: 3,
+    primaryDiameterM: 0.055,
+    notes: "Built by the Year 10 group in the autumn term; clamped from the start.",
+    createdDay: -100,
+    trueEnvironmentCapacitanceF: 3.0e-12,
+    topLoads: [{ key: "ball", name: "80 mm ball", shape: "sphere", diameterM: 0.08, fromDay: -100 }],
+    switch: { ...COMMON_BJT, partNumber: "KX-M200", switchType: "mosfet", voltageRatingV: 200, continuousCurrentA: 18, peakCurrentA: 70, powerRating25CW: 125, maxJunctionTempC: 175, thermalResistanceJcKPerW: 1.2 },
+    switchCount: 1,
+    sink: { partNumber: "HS-EXT-60", thermalResistanceKPerW: 2.4, massKg: 0.08 },
+    hasFan: false,
+    clampFromDay: -100,
+    supplyVoltages: [12, 18, 18],
+    currentPerVolt: 0.06,
+    switchLossFraction: 0.2,
+    sessions: { count: 12, fromDay: -95, toDay: -5 },
+  },
+  {
+    site: "school",
+    tag: "FS-02",
+    name: "Science Fair Tower",
+    builderName: "Marguerite Osei",
+    status: "active",
+    topology: "push_pull",
+    formDiameterM: 0.063,
+    windingLengthM: 0.24,
+    wireGaugeAwg: 30,
+    turns: 880,
+    primaryTurns: 4,
+    primaryDiameterM: 0.085,
+    notes: "The science fair's centrepiece; runs only with a teacher at the switch.",
+    createdDay: -90,
+    trueEnvironmentCapacitanceF: 4.0e-12,
+    topLoads: [{ key: "torus", name: "Ducting toroid", shape: "toroid", diameterM: 0.15, tubeDiameterM: 0.04, fromDay: -90 }],
+    switch: { ...COMMON_BJT, partNumber: "KX-M200", switchType: "mosfet", voltageRatingV: 200, continuousCurrentA: 18, peakCurrentA: 70, powerRating25CW: 125, maxJunctionTempC: 175, thermalResistanceJcKPerW: 1.2 },
+    switchCount: 2,
+    sink: { partNumber: "HS-EXT-150F", thermalResistanceKPerW: 0.9, massKg: 0.26 },
+    hasFan: true,
+    supplyVoltages: [24, 24, 28],
+    currentPerVolt: 0.1,
+    switchLossFraction: 0.16,
+    sessions: { count: 10, fromDay: -85, toDay: -9 },
+  },
+];
+
 /** Two failures with completed post-mortems. */
 export const DEMO_FAILURES = [
   {
@@ -302,3 +364,6 @@ export const DEMO_LOANS = [
 
 /** KM-02 holds a current clearance and is in the workshop. */
 export const DEMO_STANDING_CLEARANCE = { coilTag: "KM-02", clearedDay: -5 };
+
+/** The school's classroom coil holds a current clearance too, decided by the school's steward. */
+export const DEMO_SCHOOL_CLEARANCE = { coilTag: "FS-01", clearedDay: -3 };

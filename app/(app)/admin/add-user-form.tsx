@@ -4,14 +4,15 @@ import { useActionState } from "react";
 import { addUser } from "./actions";
 import { FieldError, FormStatus } from "@/app/ui/form-status";
 
-export function AddUserForm() {
+/** Creates a new account as a member of the current site. */
+export function AddUserForm({ siteName }: { siteName: string }) {
   const [state, action, pending] = useActionState(addUser, null);
   const invalid = (field: string) => (state && !state.ok && state.fieldErrors[field] ? true : undefined);
   // React resets a form after its action runs; a refused form shows what was typed again.
   const typed = (field: string) => (state && !state.ok ? state.values?.[field] : undefined);
   return (
     <form action={action} className="stack" aria-labelledby="add-user-heading" noValidate>
-      <h2 id="add-user-heading">Add a user</h2>
+      <h2 id="add-user-heading">Create a new account at {siteName}</h2>
       <FormStatus id="add-user-result" state={state} />
       <div className="field">
         <label htmlFor="new-name">Name</label>
@@ -24,11 +25,11 @@ export function AddUserForm() {
         <FieldError id="new-email-error" state={state} field="email" />
       </div>
       <div className="field">
-        <label htmlFor="new-role">Role</label>
+        <label htmlFor="new-role">Role at {siteName}</label>
         <select id="new-role" name="role" defaultValue={typed("role") ?? "member"} aria-describedby="new-role-error">
           <option value="member">Member — logs sweeps, sessions and failures</option>
           <option value="steward">Steward — also manages coils, clearances and loans</option>
-          <option value="admin">Admin — also manages users and the policy</option>
+          <option value="admin">Admin — also manages this site&apos;s members and policy</option>
         </select>
         <FieldError id="new-role-error" state={state} field="role" />
       </div>

@@ -1,14 +1,15 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
-import { listUsers } from "@/lib/db/users";
+import { listSiteMembers } from "@/lib/db/users";
 import { listAuditEntities, listAuditEvents } from "@/lib/db/audit";
 import { formatDateTime, formatQuantitiesInText } from "@/lib/units/format";
 import { auditQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { FilterForm } from "@/app/ui/list-filters";
 import { COIL_TAG_EXAMPLE } from "@/lib/validation/coil";
 import { AddUserForm } from "./add-user-form";
-import { AccessForm } from "./access-form";
+import { AddMemberForm } from "./add-member-form";
+import { AccessForm, RemoveMemberForm } from "./access-form";
 
 export const metadata: Metadata = { title: "Admin" };
 
@@ -16,23 +17,35 @@ export const metadata: Metadata = { title: "Admin" };
 const dayStart = (day: string | undefined) => (day ? new Date(`${day}T00:00:00`) : undefined);
 const dayEnd = (day: string | undefined) => (day ? new Date(`${day}T23:59:59.999`) : undefined);
 
+/** The current site's members and audit trail: what an admin of the site manages (an organisation admin, any site's). */
 export default async function AdminPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser("admin");
+  const user = await pageUser("admin");
   const query = auditQuerySchema.parse(await searchParams);
   const filtered = Boolean(query.who || query.entity || query.q || query.from || query.to);
   const [users, entities, events] = await Promise.all([
-    listUsers(),
-    listAuditEntities(),
-    listAuditEvents({ actorId: query.who, entity: query.entity, q: query.q, from: dayStart(query.from), to: dayEnd(query.to), take: filtered ? 200 : 30 }),
+    listSiteMembers(user.scope),
+    listAuditEntities(user.scope),
+    listAuditEvents(user.scope, { actorId: query.who, entity: query.entity, q: query.q, from: dayStart(query.from), to: dayEnd(query.to), take: filtered ? 200 : 30 }),
   ]);
+  const site = user.site.name;
   return (
     <>
-      <h1>Admin</h1>
+      <h1>Admin: {site}</h1>
       <p>
         <Link href="/admin/policy">Lending policy and its versions</Link>
+        {user.organisationAdmin && (
+          <>
+            {" · "}
+            <Link href="/admin/sites">Sites and organisation admins</Link>
+          </>
+        )}
       </p>
       <section aria-labelledby="users-heading">
-        <h2 id="users-heading">Users</h2>
+        <h2 id="users-heading">Members of {site}</h2>
+        <p className="hint">
+          Roles are per site: someone may be a steward here and a member elsewhere. Removing a member from {site} leaves their account and other sites as
+          they are.
+        </p>
         <div className="table-wrap">
           <table>
             <thead>
@@ -40,17 +53,24 @@ export default async function AdminPage({ searchParams }: { searchParams: Promis
                 <th scope="col">Name</th>
                 <th scope="col">E-mail</th>
                 <th scope="col">Last sign-in</th>
-                <th scope="col">Role and state</th>
+                <th scope="col">Role here and state</th>
+                <th scope="col">Membership</th>
               </tr>
             </thead>
             <tbody>
               {users.map((u) => (
                 <tr key={u.id}>
-                  <td>{u.name}</td>
+                  <td>
+                    {u.name}
+                    {u.organisationAdmin && <> <span className="badge badge-neutral">organisation admin</span></>}
+                  </td>
                   <td>{u.email}</td>
                   <td>{formatDateTime(u.lastSignInAt)}</td>
                   <td>
-                    <AccessForm userId={u.id} name={u.name} role={u.role} active={u.active} />
+                    <AccessForm userId={u.id} name={u.name} role={u.role} active={u.active} siteName={site} canChangeActive={user.organisationAdmin || u.otherSites === 0} />
+                  </td>
+                  <td>
+                    <RemoveMemberForm userId={u.id} name={u.name} siteName={site} />
                   </td>
                 </tr>
               ))}
@@ -58,9 +78,10 @@ export default async function AdminPage({ searchParams }: { searchParams: Promis
           </table>
         </div>
       </section>
-      <AddUserForm />
+      <AddMemberForm siteName={site} />
+      <AddUserForm siteName={site} />
       <section aria-labelledby="audit-heading">
-        <h2 id="audit-heading">Recent changes</h2>
+        <h2 id="audit-heading">Recent changes at {site}</h2>
         <FilterForm label="Filter the audit log">
           <div className="field">
             <label htmlFor="audit-who">Who</label>

@@ -19,7 +19,7 @@ export async function createCoilAction(_previous: ActionResult<null> | null, for
     const parsed = coilSchema.safeParse(formObject(form));
     if (!parsed.success) return invalid(parsed.error, "The coil was not added: some fields need attention.", echoForm(form));
     try {
-      await createCoil(user.id, parsed.data);
+      await createCoil(user.scope, parsed.data);
     } catch (error) {
       if (error instanceof DuplicateTagError) return refused(error.message, { tag: [`Tag: ${error.message}.`] }, echoForm(form));
       throw error;
@@ -37,7 +37,7 @@ export async function updateCoilAction(_previous: ActionResult<null> | null, for
     const parsed = coilUpdateSchema.safeParse(formObject(form));
     if (!parsed.success) return invalid(parsed.error, "Nothing was saved: some fields need attention.", echoForm(form));
     try {
-      const coil = await updateCoil(user.id, parsed.data);
+      const coil = await updateCoil(user.scope, parsed.data);
       revalidatePath(`/coils/${coil.tag}`);
       revalidatePath("/coils");
       return { ok: true, data: null, message: coil.tag };
@@ -71,7 +71,7 @@ export async function importLogbookAction(_previous: ActionResult<ImportSummary>
       return refused(`Nothing was imported. Fix these fields in the file: ${lines.join("; ")}`, { file: lines }, values);
     }
     try {
-      const summary = await importLogbook(user.id, parsed.data, { asTag: options.data.asTag });
+      const summary = await importLogbook(user.scope, parsed.data, { asTag: options.data.asTag });
       revalidatePath("/coils");
       const people = summary.unknownPeople.length ? ` ${formatCount(summary.unknownPeople.length, "person", "people")} in the file ${summary.unknownPeople.length === 1 ? "is" : "are"} not on this install; their names were left blank.` : "";
       return { ok: true, data: summary, message: `Imported ${summary.coils.map((c) => `${c.tag} (${formatCount(c.records, "record")})`).join(", ")}.${people}` };

@@ -14,7 +14,7 @@ export const metadata: Metadata = { title: "Coils" };
 export default async function CoilsPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
   const user = await pageUser();
   const query = coilListQuerySchema.parse(await searchParams);
-  const result = await listCoils({ q: query.q, status: query.status, sort: query.sort }, { page: query.page });
+  const result = await listCoils(user.scope, { q: query.q, status: query.status, sort: query.sort }, { page: query.page });
   return (
     <>
       <div className="page-head">

@@ -18,7 +18,7 @@ export async function logSession(_previous: ActionResult<null> | null, form: For
     const parsed = sessionSchema.safeParse(values);
     if (!parsed.success) return invalid(parsed.error, "The session was not saved: some fields need attention.", values);
     try {
-      const session = await createSession(user.id, parsed.data);
+      const session = await createSession(user.scope, parsed.data);
       revalidatePath("/sessions");
       revalidatePath(`/coils/${session.coilTag}`);
       return { ok: true, data: session.id };

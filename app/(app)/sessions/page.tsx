@@ -12,11 +12,11 @@ import { OUTCOME_LABEL } from "@/app/ui/labels";
 export const metadata: Metadata = { title: "Run sessions" };
 
 export default async function SessionsPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser();
+  const user = await pageUser();
   const query = sessionListQuerySchema.parse(await searchParams);
   const [result, coils] = await Promise.all([
-    listSessions({ coilTag: query.coil, outcome: query.outcome, sort: query.sort, q: query.q }, { page: query.page }),
-    listCoilChoices(),
+    listSessions(user.scope, { coilTag: query.coil, outcome: query.outcome, sort: query.sort, q: query.q }, { page: query.page }),
+    listCoilChoices(user.scope),
   ]);
   return (
     <>

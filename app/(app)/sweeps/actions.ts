@@ -12,7 +12,7 @@ export async function recordTypedSweep(input: unknown): Promise<ActionResult<{ i
     const parsed = sweepEntrySchema.safeParse(input);
     if (!parsed.success) return invalid(parsed.error, "Some fields or readings need attention; nothing was saved.");
     try {
-      const sweep = await recordSweep(user.id, recordInputFromEntry(parsed.data), "hand");
+      const sweep = await recordSweep(user.scope, recordInputFromEntry(parsed.data), "hand");
       revalidatePath("/sweeps");
       return { ok: true, data: { id: sweep.id }, message: "Sweep saved." };
     } catch (error) {

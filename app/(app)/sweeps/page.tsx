@@ -11,9 +11,9 @@ import { FilterForm, CoilFilter } from "@/app/ui/list-filters";
 export const metadata: Metadata = { title: "Sweeps" };
 
 export default async function SweepsPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser();
+  const user = await pageUser();
   const query = sweepListQuerySchema.parse(await searchParams);
-  const [result, coils] = await Promise.all([listSweeps({ coilTag: query.coil, q: query.q, sort: query.sort }, { page: query.page }), listCoilChoices()]);
+  const [result, coils] = await Promise.all([listSweeps(user.scope, { coilTag: query.coil, q: query.q, sort: query.sort }, { page: query.page }), listCoilChoices(user.scope)]);
   return (
     <>
       <div className="page-head">

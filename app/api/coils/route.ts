@@ -8,10 +8,10 @@ import { coilSchema } from "@/lib/validation/coil";
 import { fieldErrorsOf } from "@/lib/validation/action-result";
 
 export async function GET(request: Request) {
-  return guardRoute("member", async () => {
+  return guardRoute("member", async (user) => {
     const url = new URL(request.url);
     const page = Number(url.searchParams.get("page") ?? "1") || 1;
-    const result = await listCoils({ q: url.searchParams.get("q") ?? undefined }, { page, pageSize: 100 });
+    const result = await listCoils(user.scope, { q: url.searchParams.get("q") ?? undefined }, { page, pageSize: 100 });
     return Response.json({ ok: true, data: result });
   });
 }
@@ -29,7 +29,7 @@ export async function POST(request: Request) {
       return Response.json({ ok: false, message: "Some fields need attention.", fieldErrors: fieldErrorsOf(parsed.error) }, { status: 422 });
     }
     try {
-      const coil = await createCoil(user.id, parsed.data);
+      const coil = await createCoil(user.scope, parsed.data);
       return Response.json({ ok: true, data: coil }, { status: 201 });
     } catch (error) {
       if (error instanceof DuplicateTagError) {

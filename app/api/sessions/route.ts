@@ -35,7 +35,7 @@ export async function POST(request: Request): Promise<Response> {
       return Response.json({ ok: false, message: `${first} Nothing was saved.`, fieldErrors }, { status: 422 });
     }
     try {
-      const session = await createSession(user.id, parsed.data);
+      const session = await createSession(user.scope, parsed.data);
       revalidatePath("/sessions");
       revalidatePath(`/coils/${session.coilTag}`);
       // A replay of a stored submission (same clientKey) answers 200 with the stored session, not a second one.

@@ -3,7 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { guardAction } from "@/lib/auth/guard";
-import { setCoilStatus } from "@/lib/db/coils";
+import { CoilNotFoundError, setCoilStatus } from "@/lib/db/coils";
 import { addComponent, ComponentStateError, replaceComponent } from "@/lib/db/components";
 import { addTopLoad, retireTopLoad, TopLoadStateError } from "@/lib/db/top-loads";
 import { coilStatusChangeSchema } from "@/lib/validation/coil";
@@ -17,9 +17,14 @@ export async function changeCoilStatus(_previous: ActionResult<null> | null, for
   return guardAction("steward", async (user) => {
     const parsed = coilStatusChangeSchema.safeParse({ coilId: form.get("coilId"), status: form.get("status") });
     if (!parsed.success) return invalid(parsed.error);
-    const coil = await setCoilStatus(user.id, parsed.data.coilId, parsed.data.status);
-    revalidatePath(`/coils/${coil.tag}`);
-    return { ok: true, data: null, message: `Status set to ${coil.status}.` };
+    try {
+      const coil = await setCoilStatus(user.scope, parsed.data.coilId, parsed.data.status);
+      revalidatePath(`/coils/${coil.tag}`);
+      return { ok: true, data: null, message: `Status set to ${coil.status}.` };
+    } catch (error) {
+      if (error instanceof CoilNotFoundError) return refused("That coil no longer exists.");
+      throw error;
+    }
   });
 }
 
@@ -28,7 +33,7 @@ export async function addTopLoadAction(_previous: ActionResult<null> | null, for
     const parsed = topLoadSchema.safeParse(fields(form));
     if (!parsed.success) return invalid(parsed.error, "The top load was not added: some fields need attention.", echoForm(form));
     try {
-      const { coilTag } = await addTopLoad(user.id, parsed.data);
+      const { coilTag } = await addTopLoad(user.scope, parsed.data);
       revalidatePath(`/coils/${coilTag}`);
       return { ok: true, data: null, message: coilTag };
     } catch (error) {
@@ -45,7 +50,7 @@ export async function retireTopLoadAction(_previous: ActionResult<null> | null, 
     const parsed = retireTopLoadSchema.safeParse(fields(form));
     if (!parsed.success) return invalid(parsed.error);
     try {
-      const { topLoad, coilTag } = await retireTopLoad(user.id, parsed.data.topLoadId);
+      const { topLoad, coilTag } = await retireTopLoad(user.scope, parsed.data.topLoadId);
       revalidatePath(`/coils/${coilTag}`);
       return { ok: true, data: null, message: `Retired “${topLoad.name}”.` };
     } catch (error) {
@@ -60,7 +65,7 @@ export async function addComponentAction(_previous: ActionResult<null> | null, f
     const parsed = componentSchema.safeParse(fields(form));
     if (!parsed.success) return invalid(parsed.error, "The part was not added: some fields need attention.", echoForm(form));
     try {
-      const { coilTag } = await addComponent(user.id, parsed.data);
+      const { coilTag } = await addComponent(user.scope, parsed.data);
       revalidatePath(`/coils/${coilTag}`);
       return { ok: true, data: null, message: coilTag };
     } catch (error) {
@@ -77,7 +82,7 @@ export async function replaceComponentAction(_previous: ActionResult<null> | nul
     const parsed = replaceComponentSchema.safeParse(fields(form));
     if (!parsed.success) return invalid(parsed.error, "Nothing was changed: some fields need attention.", echoForm(form));
     try {
-      const { coilTag } = await replaceComponent(user.id, parsed.data);
+      const { coilTag } = await replaceComponent(user.scope, parsed.data);
       revalidatePath(`/coils/${coilTag}`);
       return { ok: true, data: null, message: coilTag };
     } catch (error) {

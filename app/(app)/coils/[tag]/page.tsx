@@ -42,19 +42,39 @@ function assess(history: CoilPageRecords["history"], rules: ClearancePolicyRules
   };
 }
 
+/**
+ * A label's link names the coil's site (label/page.tsx). Opened while working at another site, the current site's coil
+ * of the same tag is not shown in its place: a member of the label's site is told to switch, anyone else sees not found.
+ */
+function LabelOfAnotherSite({ tag, labelSite, currentSite }: { tag: string; labelSite: string; currentSite: string }) {
+  return (
+    <>
+      <h1>{tag}</h1>
+      <p className="notice warn" role="status">
+        This link is for coil {tag} of {labelSite}, but you are working at {currentSite}. Switch to {labelSite} with the site switcher, then open the link again.
+      </p>
+    </>
+  );
+}
+
 export default async function CoilPage({ params, searchParams }: Props) {
   const user = await pageUser();
   const tag = decodeURIComponent((await params).tag);
   const query = await searchParams;
+  if (typeof query.site === "string" && query.site !== user.site.slug) {
+    const labelSite = user.sites.find((site) => site.slug === query.site);
+    if (!labelSite) notFound();
+    return <LabelOfAnotherSite tag={tag} labelSite={labelSite.name} currentSite={user.site.name} />;
+  }
   const timelineFilter = timelineFilterSchema.parse(query.log);
-  const records = await readCoilPage(tag, undefined, timelineFilter);
+  const records = await readCoilPage(user.scope, tag, undefined, timelineFilter);
   if (!records) notFound();
   const { coil, history, timeline, policy } = records;
   const latestSweepId = history.sweeps.at(-1)?.id;
   const [comparison, standing, latestSweep] = await Promise.all([
-    readCoilComparison(history),
-    readCoilStanding(coil.id, coil.components),
-    latestSweepId ? readSweepThumbnail(latestSweepId) : null,
+    readCoilComparison(user.scope, history),
+    readCoilStanding(user.scope, coil.id, coil.components),
+    latestSweepId ? readSweepThumbnail(user.scope, latestSweepId) : null,
   ]);
   const { health, reasons, latest, trend } = assess(history, policy.rules);
   const sweepThumbnail: SweepThumbnail | null = latestSweep

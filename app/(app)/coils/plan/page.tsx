@@ -11,7 +11,7 @@ export const metadata: Metadata = { title: "Plan a build" };
 
 export default async function PlanPage() {
   const user = await pageUser("member");
-  const [starts, policy] = await Promise.all([listPlanStartingPoints(), getCurrentPolicy()]);
+  const [starts, policy] = await Promise.all([listPlanStartingPoints(user.scope), getCurrentPolicy(user.scope)]);
   return (
     <>
       <div className="page-head">

@@ -16,8 +16,8 @@ const MODEL_LABEL: Record<PredictionModel, string> = {
 const signed = (x: number) => `${x >= 0 ? "+" : ""}${formatPercent(x, 1)}`;
 
 export default async function PredictionQualityPage() {
-  await pageUser();
-  const { summaries } = assessPredictionQuality(await readFleetPredictionInputs());
+  const user = await pageUser();
+  const { summaries } = assessPredictionQuality(await readFleetPredictionInputs(user.scope));
   return (
     <>
       <h1>How far the predictions have landed</h1>

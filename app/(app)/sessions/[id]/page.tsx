@@ -18,8 +18,8 @@ type Props = { params: Promise<{ id: string }> };
 export const metadata: Metadata = { title: "Run session" };
 
 export default async function SessionPage({ params }: Props) {
-  await pageUser("member");
-  const [session, policy] = await Promise.all([getSessionDetail((await params).id), getCurrentPolicy()]);
+  const user = await pageUser("member");
+  const [session, policy] = await Promise.all([getSessionDetail(user.scope, (await params).id), getCurrentPolicy(user.scope)]);
   if (!session) notFound();
   // Judged by the current lending policy and the warm-up fit stored with the session, as every other view judges it.
   const analysis = analyzeRunSession(session.coil, session, session.coil.components, session.samples, { policy: policy.rules });

@@ -12,17 +12,17 @@ export const metadata: Metadata = { title: "Log a session" };
 type Props = { searchParams: Promise<{ coil?: string | string[] }> };
 
 export default async function NewSessionPage({ searchParams }: Props) {
-  await pageUser("member");
+  const user = await pageUser("member");
   const raw = (await searchParams).coil;
   const tag = (Array.isArray(raw) ? raw[0] : raw)?.trim().toUpperCase();
-  const coil = tag ? await getCoilByTag(tag) : null;
+  const coil = tag ? await getCoilByTag(user.scope, tag) : null;
 
   if (!coil) {
-    const coils = await listCoilChoices();
+    const coils = await listCoilChoices(user.scope);
     return <CoilPicker title="Log a session" unknownTag={tag} coils={coils.filter((c) => c.status !== "retired")} />;
   }
 
-  const lastTopLoadId = await findLastTopLoadId(coil.id);
+  const lastTopLoadId = await findLastTopLoadId(user.scope, coil.id);
   const topLoads = coil.topLoads.filter((t) => !t.retiredAt || t.id === lastTopLoadId);
   return (
     <>

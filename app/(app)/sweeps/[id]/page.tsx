@@ -21,12 +21,12 @@ type Props = { params: Promise<{ id: string }>; searchParams: Promise<Record<str
 export const metadata: Metadata = { title: "Sweep" };
 
 export default async function SweepPage({ params, searchParams }: Props) {
-  await pageUser();
+  const user = await pageUser();
   const { id } = await params;
-  const sweep = await getSweep(id);
+  const sweep = await getSweep(user.scope, id);
   if (!sweep) notFound();
   const query = Object.fromEntries(Object.entries(await searchParams).map(([k, v]) => [k, [v].flat()[0] ?? ""]));
-  const [calibrationSweeps, policy] = await Promise.all([listCalibrationSweeps(sweep.coilId), getCurrentPolicy()]);
+  const [calibrationSweeps, policy] = await Promise.all([listCalibrationSweeps(user.scope, sweep.coilId), getCurrentPolicy(user.scope)]);
 
   const curve = impedanceCurve(sweep);
   const comparison = compareWithPrediction(sweep.coil, sweep.topLoad, sweep, calibrationSweeps);

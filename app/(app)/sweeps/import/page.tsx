@@ -10,18 +10,18 @@ import { SweepImportForm } from "./sweep-import-form";
 export const metadata: Metadata = { title: "Import a sweep" };
 
 export default async function ImportSweepPage({ searchParams }: { searchParams: Promise<{ coil?: string | string[] }> }) {
-  await pageUser("member");
+  const user = await pageUser("member");
   const tag = [(await searchParams).coil].flat()[0];
   if (!tag) {
     return (
       <>
         <h1>Import a sweep</h1>
         <p className="lede">Which coil was swept?</p>
-        <CoilPicker coils={await listCoilChoices()} action="/sweeps/import" />
+        <CoilPicker coils={await listCoilChoices(user.scope)} action="/sweeps/import" />
       </>
     );
   }
-  const coil = await getCoilForSweepEntry(tag);
+  const coil = await getCoilForSweepEntry(user.scope, tag);
   if (!coil) notFound();
   return (
     <>

@@ -10,18 +10,18 @@ import { SweepEntryForm } from "./sweep-entry-form";
 export const metadata: Metadata = { title: "New sweep" };
 
 export default async function NewSweepPage({ searchParams }: { searchParams: Promise<{ coil?: string | string[] }> }) {
-  await pageUser("member");
+  const user = await pageUser("member");
   const tag = [(await searchParams).coil].flat()[0];
   if (!tag) {
     return (
       <>
         <h1>New sweep</h1>
         <p className="lede">Which coil was swept?</p>
-        <CoilPicker coils={await listCoilChoices()} action="/sweeps/new" />
+        <CoilPicker coils={await listCoilChoices(user.scope)} action="/sweeps/new" />
       </>
     );
   }
-  const coil = await getCoilForSweepEntry(tag);
+  const coil = await getCoilForSweepEntry(user.scope, tag);
   if (!coil) notFound();
   return (
     <>

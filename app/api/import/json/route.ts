@@ -26,7 +26,7 @@ export async function POST(request: Request) {
       );
     }
     try {
-      const summary = await importLogbook(user.id, parsed.data, { asTag: options.data.asTag });
+      const summary = await importLogbook(user.scope, parsed.data, { asTag: options.data.asTag });
       return Response.json({ ok: true, data: summary }, { status: 201 });
     } catch (error) {
       if (error instanceof ImportConflictError) return Response.json({ ok: false, message: error.message, fieldErrors: { asTag: [error.message] } }, { status: 409 });

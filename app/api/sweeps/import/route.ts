@@ -24,7 +24,7 @@ export async function POST(request: Request): Promise<Response> {
       return Response.json({ ok: false, message: `${first} Nothing was saved.`, fieldErrors }, { status: 422 });
     }
     try {
-      const sweep = await recordSweep(user.id, recordInputFromImport(parsed.data), "import");
+      const sweep = await recordSweep(user.scope, recordInputFromImport(parsed.data), "import");
       revalidatePath("/sweeps");
       return Response.json({ ok: true, data: { id: sweep.id } }, { status: 201 });
     } catch (error) {

@@ -13,8 +13,8 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 }
 
 export default async function EditCoilPage({ params }: Props) {
-  await pageUser("steward");
-  const coil = await getCoilByTag(decodeURIComponent((await params).tag));
+  const user = await pageUser("steward");
+  const coil = await getCoilByTag(user.scope, decodeURIComponent((await params).tag));
   if (!coil) notFound();
   const values = {
     name: coil.name,

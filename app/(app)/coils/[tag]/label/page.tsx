@@ -16,21 +16,25 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: `Label ${decodeURIComponent((await params).tag)}` };
 }
 
-/** The coil's page on the host this page was asked for, so a label printed in the lab opens on the lab's network. */
-async function coilUrl(tag: string): Promise<string> {
+/**
+ * The coil's page on the host this page was asked for, so a label printed in the lab opens on the lab's network. Tags
+ * are unique only within a site, so the link names the site too: the coil page will not show another site's coil
+ * of the same tag to someone scanning while working at that other site.
+ */
+async function coilUrl(tag: string, siteSlug: string): Promise<string> {
   const h = await headers();
   const host = h.get("x-forwarded-host") ?? h.get("host") ?? "localhost:3000";
   const proto = h.get("x-forwarded-proto") ?? "http";
-  return `${proto}://${host}/coils/${encodeURIComponent(tag)}`;
+  return `${proto}://${host}/coils/${encodeURIComponent(tag)}?site=${encodeURIComponent(siteSlug)}`;
 }
 
 export default async function CoilLabelPage({ params }: Props) {
-  await pageUser();
-  const coil = await getCoilByTag(decodeURIComponent((await params).tag));
+  const user = await pageUser();
+  const coil = await getCoilByTag(user.scope, decodeURIComponent((await params).tag));
   if (!coil) notFound();
-  const url = await coilUrl(coil.tag);
+  const url = await coilUrl(coil.tag, user.site.slug);
   const svg = await QRCode.toString(url, { type: "svg", errorCorrectionLevel: "M", margin: 1 });
-  const sweeps = await listSweeps({ coilTag: coil.tag }, { pageSize: 1 });
+  const sweeps = await listSweeps(user.scope, { coilTag: coil.tag }, { pageSize: 1 });
   const resonance = sweeps.rows[0]?.firstSeriesResonanceHz ?? null;
   const switches = coil.components.filter((c) => c.kind === "switch" && !c.removedAt).map((c) => c.partNumber);
   return (
@@ -45,7 +49,9 @@ export default async function CoilLabelPage({ params }: Props) {
         <div className="coil-label-text">
           <p className="coil-label-tag">{coil.tag}</p>
           <p className="coil-label-name">{coil.name}</p>
-          <p>Built by {coil.builderName}</p>
+          <p>
+            Built by {coil.builderName} · {user.site.name}
+          </p>
           <p>
             {TOPOLOGY_LABEL[coil.topology]}
             {switches.length ? ` · ${switches.join(", ")}` : ""}

@@ -19,11 +19,11 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 const MARGIN_TITLE = { voltage: "Voltage headroom", current: "Current headroom", thermal: "Thermal headroom" } as const;
 
 export default async function TrendsPage({ params }: Props) {
-  await pageUser();
+  const user = await pageUser();
   const tag = decodeURIComponent((await params).tag);
-  const coil = await getCoilByTag(tag);
+  const coil = await getCoilByTag(user.scope, tag);
   if (!coil) notFound();
-  const [history, policy] = await Promise.all([getCoilHistory(coil.id), getCurrentPolicy()]);
+  const [history, policy] = await Promise.all([getCoilHistory(user.scope, coil.id), getCurrentPolicy(user.scope)]);
   if (!history) notFound();
   const now = new Date();
   // Every session for the charts; the health from the one coil judgement, as the dashboard and the coil page have it.

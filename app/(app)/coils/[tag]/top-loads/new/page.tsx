@@ -9,8 +9,8 @@ type Props = { params: Promise<{ tag: string }> };
 export const metadata: Metadata = { title: "Add a top load" };
 
 export default async function NewTopLoadPage({ params }: Props) {
-  await pageUser("steward");
-  const coil = await getCoilByTag(decodeURIComponent((await params).tag));
+  const user = await pageUser("steward");
+  const coil = await getCoilByTag(user.scope, decodeURIComponent((await params).tag));
   if (!coil) notFound();
   return (
     <>

@@ -12,9 +12,9 @@ type Props = { params: Promise<{ tag: string; id: string }> };
 export const metadata: Metadata = { title: "Replace a part" };
 
 export default async function ReplacePartPage({ params }: Props) {
-  await pageUser("steward");
+  const user = await pageUser("steward");
   const { tag, id } = await params;
-  const part = await getComponent(id);
+  const part = await getComponent(user.scope, id);
   if (!part || part.coil.tag !== decodeURIComponent(tag)) notFound();
   const label = `${part.partNumber} (${COMPONENT_KIND_LABEL[part.kind]})`;
   return (
