@@ -3,6 +3,7 @@ import { testDb } from "./support/db";
 import { TEST_SWITCH } from "./support/bench-fixtures";
 import { DEFAULT_LENDING_CHECKLIST } from "@/lib/calc/lending-checklist";
 import { fitSessionSamples } from "@/lib/analysis/session-fit";
+import { DEFAULT_SITE_ID } from "@/lib/db/site-scope";
 
 const DAY = 86_400_000;
 
@@ -14,9 +15,9 @@ export const CLEAN_WARM_UP = Array.from({ length: 21 }, (_, i) => ({ elapsedS: 3
 
 export const ALL_YES: Record<string, boolean> = Object.fromEntries(DEFAULT_LENDING_CHECKLIST.map((i) => [i.id, true]));
 
-export async function makeCleanCoil(tag: string, now: Date, createdById?: string) {
+export async function makeCleanCoil(tag: string, now: Date, createdById?: string, siteId: string = DEFAULT_SITE_ID) {
   const coil = await testDb.coil.create({
-    data: { tag, name: `Coil ${tag}`, builderName: "Test", formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002, createdById },
+    data: { siteId, tag, name: `Coil ${tag}`, builderName: "Test", formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002, createdById },
   });
   const topLoad = await testDb.topLoad.create({ data: { coilId: coil.id, name: "Small toroid", shape: "toroid", diameterM: 0.1, tubeDiameterM: 0.025 } });
   const built = new Date(now.getTime() - 30 * DAY);

@@ -1,5 +1,6 @@
 /** A small coil with a switch, a heat sink and a top load, for the session and failure tests. */
 import { testDb } from "./db";
+import { DEFAULT_SITE_ID } from "../../lib/db/site-scope";
 
 /** The switch every test coil is fitted with: an MJE13009-like BJT's ratings (test data, not a datasheet check). */
 export const TEST_SWITCH = {
@@ -15,9 +16,9 @@ export const TEST_SWITCH = {
   caseToSinkKPerW: 0.5,
 } as const;
 
-export async function makeBenchCoil(actorId: string, tag = "T-01") {
+export async function makeBenchCoil(actorId: string, tag = "T-01", siteId: string = DEFAULT_SITE_ID) {
   const coil = await testDb.coil.create({
-    data: { tag, name: "Test coil", builderName: "Tester", formDiameterM: 0.075, windingLengthM: 0.3, turns: 900, wireDiameterM: 0.00032, createdById: actorId },
+    data: { siteId, tag, name: "Test coil", builderName: "Tester", formDiameterM: 0.075, windingLengthM: 0.3, turns: 900, wireDiameterM: 0.00032, createdById: actorId },
   });
   const installedAt = new Date("2025-06-01T12:00:00Z");
   const sw = await testDb.component.create({
