@@ -1,5 +1,5 @@
 -- Sites: every coil (and through it everything recorded about it), lending policy and audit event belongs to
--- one site; users hold a role per site. An existing single-club database moves whole into one default site,
+-- one site, and users hold a role per site. An existing single-club database moves whole into one default site,
 -- "site-main": every user keeps their role there, admins become organisation admins, the existing lending
 -- policy versions become the organisation's default, and the audit trail belongs to the site.
 
