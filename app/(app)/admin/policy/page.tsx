@@ -102,7 +102,7 @@ export default async function PolicyPage() {
       <div className="table-wrap">
         <table>
           <caption>
-            {versions.length} version{versions.length === 1 ? "" : "s"} of the organisation&apos;s and {site}&apos;s policy, newest first
+            {versions.length} version{versions.length === 1 ? "" : "s"}, newest first
           </caption>
           <thead>
             <tr>
