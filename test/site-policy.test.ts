@@ -53,6 +53,9 @@ describe("a site's own policy only tightens the organisation's default", () => {
     const effective = await getCurrentPolicy(north);
     expect(effective.version).toBe(saved.version);
     expect(effective.id).toBe(saved.id);
+    // Read raw (one statement for both rows): the same types as the query API's.
+    expect(effective.createdAt).toEqual(saved.createdAt);
+    expect(effective.organisationDefault).toEqual(defaultV);
     expect(effective.rules).toMatchObject({ minVoltageHeadroom: 0.6, validityDays: 30, ituRegion: base.ituRegion, minCurrentHeadroom: base.minCurrentHeadroom });
     expect(effective.rules.requiredChecklist.map((i) => i.id)).toEqual([...base.requiredChecklist.map((i) => i.id), siteItem.id]);
     // The default site is untouched by North's tightening.
