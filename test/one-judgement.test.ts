@@ -34,7 +34,7 @@ const pick = (m: { headroom: number | null; status: string }) => ({ headroom: m.
 
 async function logRisingRun(actorId: string, coilId: string, topLoadId: string, now: Date) {
   return createSession(
-    actorId,
+    mainScope(actorId),
     sessionSchema.parse({
       coilId,
       topLoadId,
@@ -113,8 +113,8 @@ describe("one session shows one set of margins everywhere", () => {
     const before = judgeCoil((await readCoilPage(MAIN, "OJ-2"))!.history, (await getCurrentPolicy(MAIN)).rules, now).latest!;
     expect(before.analysis.sinkProjection?.basis).toBe("worst-case");
 
-    expect(await backfillSessionFits(2)).toBe(5);
-    expect(await backfillSessionFits()).toBe(0);
+    expect(await backfillSessionFits(MAIN, 2)).toBe(5);
+    expect(await backfillSessionFits(MAIN)).toBe(0);
     const rows = await testDb.runSession.findMany({ where: { coilId: coil.id } });
     expect(rows.every((r) => r.sinkFitSampleCount === 21 && r.sinkSteadyStateC !== null)).toBe(true);
     const after = judgeCoil((await readCoilPage(MAIN, "OJ-2"))!.history, (await getCurrentPolicy(MAIN)).rules, now).latest!;
