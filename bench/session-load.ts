@@ -210,7 +210,8 @@ export async function benchSessionLoad(): Promise<void> {
         groups,
         (i) => fetch(`${base(first + i)}/api/sessions`, { method: "POST", headers: { "content-type": "application/json", cookie }, body: JSON.stringify(sessionBody(first + i)) }),
         async (response) => {
-          const answer = (await response.json()) as { ok: boolean; data?: { id: string } };
+          // A 5xx may come back as an HTML error page: it acknowledges nothing either way.
+          const answer = (await response.json().catch(() => ({ ok: false }))) as { ok: boolean; data?: { id: string } };
           if (response.status === 201 && answer.ok && answer.data) acknowledged.push(answer.data.id);
         },
       );
