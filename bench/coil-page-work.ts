@@ -13,6 +13,7 @@ export function computeCoilPageFigures(history: CoilPageRecords["history"], rule
 }
 
 export async function readBusyCoilPage(tag: string) {
+  // ISSUE 12 SLOT: readCoilPage(scope, tag) and readCoilComparison(scope, history) (bench/app-calls.ts benchScope).
   const records = await readCoilPage(tag);
   if (!records) throw new Error(`No coil ${tag} in the fixture`);
   return records;

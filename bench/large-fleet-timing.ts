@@ -1,4 +1,4 @@
-/** Median-of-N timing after warm-up, shared by the large-fleet benchmarks. `prepare` runs before each round, untimed. */
+/** Timing helpers shared by the benchmarks: median-of-N after warm-up, page-vs-floor pairs, and batched alternation. */
 export async function medianMs(
   run: () => unknown,
   { warmUp = 2, rounds = 7, prepare }: { warmUp?: number; rounds?: number; prepare?: () => unknown } = {},
@@ -52,4 +52,40 @@ export async function pairedMs(
     ratios.push(ms / floorMs);
   }
   return { ms: median(runs), floorMs: median(floors), ratio: median(ratios) };
+}
+
+/** One way of doing a workload's call: the code measured, or its floor. */
+export interface Contender {
+  name: string;
+  call: () => unknown;
+}
+
+/**
+ * Per-call time of each contender for calls too short to time one by one: batches of `batch` calls, the contenders
+ * taking turns within each round and the order rotating round by round, so that whatever else the shared machine does
+ * weighs on all alike. Returns each one's median per-call ms and its median per-round ratio to the LAST contender
+ * (the floor).
+ */
+export async function alternateBatches(
+  contenders: Contender[],
+  { batch, rounds = 15, warmUp = batch * 2 }: { batch: number; rounds?: number; warmUp?: number },
+): Promise<{ name: string; ms: number; ratio: number }[]> {
+  for (const c of contenders) for (let i = 0; i < warmUp; i++) await c.call();
+  const perCall = contenders.map(() => [] as number[]);
+  const ratios = contenders.map(() => [] as number[]);
+  for (let round = 0; round < rounds; round++) {
+    const times: number[] = new Array(contenders.length);
+    for (let k = 0; k < contenders.length; k++) {
+      const index = (k + round) % contenders.length;
+      const started = performance.now();
+      for (let i = 0; i < batch; i++) await contenders[index]!.call();
+      times[index] = (performance.now() - started) / batch;
+    }
+    const floor = times[contenders.length - 1]!;
+    times.forEach((t, index) => {
+      perCall[index]!.push(t);
+      ratios[index]!.push(t / floor);
+    });
+  }
+  return contenders.map((c, index) => ({ name: c.name, ms: median(perCall[index]!), ratio: median(ratios[index]!) }));
 }

@@ -13,6 +13,7 @@ import { execFileSync } from "node:child_process";
 import { existsSync, mkdirSync, rmSync } from "node:fs";
 import path from "node:path";
 import Database from "better-sqlite3";
+import { DEFAULT_SITE_ID } from "../lib/db/site-scope";
 
 export const LARGE_FLEET = { coils: 500, sessionsPerCoil: 500, samplesPerSession: 10, sweepsPerCoil: 10, pointsPerSweep: 400 } as const;
 export const LARGE_DB_PATH = path.resolve("data/bench/large.db");
@@ -81,10 +82,12 @@ function insertFleet(db: Database.Database): void {
   const now = Date.now();
   const iso = (ms: number) => new Date(ms).toISOString().replace("Z", "+00:00");
   const t0 = iso(now - 400 * DAY_MS);
-  db.prepare(`INSERT INTO "User" (id, email, name, passwordHash, role, active, createdAt, updatedAt) VALUES ('bench-user', 'bench@example.org', 'Bench Loader', 'x', 'steward', 1, ?, ?)`).run(t0, t0);
+  db.prepare(`INSERT INTO "User" (id, email, name, passwordHash, active, createdAt, updatedAt) VALUES ('bench-user', 'bench@example.org', 'Bench Loader', 'x', 1, ?, ?)`).run(t0, t0);
+  // A steward of the single-club site (migration 20261204090000_sites), where every coil of the fixture belongs.
+  db.prepare(`INSERT INTO "SiteMembership" (userId, siteId, role, createdAt) VALUES ('bench-user', ?, 'steward', ?)`).run(DEFAULT_SITE_ID, t0);
   const coil = db.prepare(
-    `INSERT INTO "Coil" (id, tag, name, builderName, status, topology, formDiameterM, windingLengthM, turns, wireDiameterM, wireMaterial, notes, createdAt, updatedAt)
-     VALUES (?, ?, ?, 'District lab', 'active', 'single_switch', 0.075, 0.3, 1000, 0.0003, 'copper', '', ?, ?)`,
+    `INSERT INTO "Coil" (id, siteId, tag, name, builderName, status, topology, formDiameterM, windingLengthM, turns, wireDiameterM, wireMaterial, notes, createdAt, updatedAt)
+     VALUES (?, '${DEFAULT_SITE_ID}', ?, ?, 'District lab', 'active', 'single_switch', 0.075, 0.3, 1000, 0.0003, 'copper', '', ?, ?)`,
   );
   const topLoad = db.prepare(`INSERT INTO "TopLoad" (id, coilId, name, shape, diameterM, tubeDiameterM, notes, createdAt) VALUES (?, ?, 'Spun toroid', 'toroid', 0.2, 0.05, '', ?)`);
   const part = db.prepare(

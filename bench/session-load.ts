@@ -1,21 +1,29 @@
 /**
- * `npm run bench -- --load` (after `npm run build`): a small, bounded load generator for session logging.
+ * `npm run bench -- --load` (after `npm run build`): a small, bounded load generator for session logging and pages.
  * Starts the built app (`next start`) on loopback against a fresh demo database, signs in as the demo member,
  * POSTs a fixed number of sessions to /api/sessions with a few requests in flight, and prints throughput,
  * p50/p99 latency and the count of 5xx answers; then checks every acknowledged session is in the database.
  * Node's own fetch is the client (no load-testing package is installed).
+ *
+ * Each figure is measured against the floor issue 13 sets for it: a trivial route handler (app/api/bench-floor,
+ * enabled only by COILYARD_BENCH_FLOOR=1, which this benchmark sets) under the same load, in alternating blocks
+ * (floor, work, floor, work…) so the machine's other work weighs on both alike. The figure compared is the server's
+ * CPU time per request: the user + system time of the server's whole process group (/proc/<pid>/stat) over a block,
+ * divided by its requests, so the load generator's own work (in this process) is not counted. Then the dashboard
+ * and a coil page of the demo club the same way.
  *
  * With BENCH_POSTGRES_URL (an expendable PostgreSQL database: its schema is dropped and rebuilt) the same load
  * goes to two app instances sharing that database, alternating request by request, as a load balancer with
  * nothing sticky would send it; the acknowledged writes are then looked up in PostgreSQL.
  */
 import { execFileSync, spawn } from "node:child_process";
-import { mkdirSync, rmSync } from "node:fs";
+import { mkdirSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
-import { randomBytes } from "node:crypto";
+import { randomBytes, randomUUID } from "node:crypto";
 import Database from "better-sqlite3";
 import pg from "pg";
 import { localMinute, signInByHand } from "../e2e/support/http-client";
+import { recordFigure } from "./figures";
 
 const PORT = Number(process.env.BENCH_PORT ?? 3106);
 const BASE = `http://127.0.0.1:${PORT}`;
@@ -24,6 +32,13 @@ const POSTGRES_URL = process.env.BENCH_POSTGRES_URL;
 const BASES = POSTGRES_URL ? [BASE, `http://127.0.0.1:${PORT + 1}`] : [BASE];
 const REQUESTS = Number(process.env.BENCH_SESSION_POSTS ?? 500);
 const IN_FLIGHT = 8;
+/** Requests per block: the POSTs go in BLOCKS blocks, each after a block of the trivial route. */
+const BLOCKS = 5;
+// 100 a block: the server's CPU is counted in 10 ms ticks, so a block of the trivial route must take a good many of them.
+const PAGE_REQUESTS = Number(process.env.BENCH_PAGE_REQUESTS ?? 400);
+const FLOOR_PATH = "/api/bench-floor";
+/** A demo coil with sessions, sweeps, parts and a top load (prisma/demo). */
+const PAGE_COIL = "KM-01";
 const DB_PATH = path.resolve("data/bench/load.db");
 const MEMBER = { email: "member@kettlewell.example", password: "demo-member-pass" };
 const COIL_IDS = ["coil-KM-01", "coil-KM-02", "coil-KM-04", "coil-KM-05", "coil-KM-06"];
@@ -72,43 +87,106 @@ async function waitForServer(base: string, deadlineMs: number): Promise<void> {
   throw new Error(`next start did not answer on ${base} in time (run \`npm run build\` first)`);
 }
 
-async function postSessions(cookie: string) {
+/** Clock ticks per second of /proc's CPU times (USER_HZ: 100 on Linux builds). */
+const TICKS_PER_SECOND = 100; // getconf CLK_TCK
+
+/** User + system CPU ms so far of every process in the given process groups (the `next start` trees). */
+export function groupCpuMs(groups: number[]): number {
+  let ticks = 0;
+  for (const entry of readdirSync("/proc")) {
+    if (!/^\d+$/.test(entry)) continue;
+    let stat: string;
+    try {
+      stat = readFileSync(`/proc/${entry}/stat`, "utf8");
+    } catch {
+      continue; // ended meanwhile
+    }
+    // Fields after the command name (which may hold spaces, inside parentheses): state ppid pgrp … utime(14) stime(15).
+    const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+    if (groups.includes(Number(fields[2]))) ticks += Number(fields[11]) + Number(fields[12]);
+  }
+  return (ticks * 1000) / TICKS_PER_SECOND;
+}
+
+interface Block {
+  requests: number;
+  seconds: number;
+  latencies: number[];
+  statuses: Map<number, number>;
+  /** Server CPU ms per request over the block. */
+  cpuMs: number;
+}
+
+/** `count` requests, IN_FLIGHT at a time; `send(i)` makes the i-th and returns its response. */
+export async function runBlock(count: number, groups: number[], send: (i: number) => Promise<Response>, onAnswer?: (response: Response, i: number) => Promise<void>): Promise<Block> {
   const latencies: number[] = [];
-  const acknowledged: string[] = [];
   const statuses = new Map<number, number>();
   let next = 0;
   const worker = async () => {
-    while (next < REQUESTS) {
+    while (next < count) {
       const i = next++;
-      const body = {
-        coilId: COIL_IDS[i % COIL_IDS.length],
-        startedAt: localMinute(i + 60),
-        supplyVoltageV: "24 V",
-        supplyCurrentA: (1 + (i % 7) * 0.05).toFixed(2),
-        durationS: "10 min",
-        ambientTempC: 21,
-        heatSinkEndC: 34,
-        notes: `load bench ${i}`,
-        samples: "0, 21\n300, 30\n600, 34",
-      };
       const started = performance.now();
-      const base = BASES[i % BASES.length]!;
-      const response = await fetch(`${base}/api/sessions`, { method: "POST", headers: { "content-type": "application/json", cookie }, body: JSON.stringify(body) });
-      const answer = (await response.json()) as { ok: boolean; data?: { id: string } };
+      const response = await send(i);
+      if (onAnswer) await onAnswer(response, i);
+      else await response.arrayBuffer();
       latencies.push(performance.now() - started);
       statuses.set(response.status, (statuses.get(response.status) ?? 0) + 1);
-      if (response.status === 201 && answer.ok && answer.data) acknowledged.push(answer.data.id);
     }
   };
+  const cpuBefore = groupCpuMs(groups);
   const started = performance.now();
   await Promise.all(Array.from({ length: IN_FLIGHT }, worker));
-  return { seconds: (performance.now() - started) / 1000, latencies: latencies.sort((a, b) => a - b), acknowledged, statuses };
+  const seconds = (performance.now() - started) / 1000;
+  return { requests: count, seconds, latencies: latencies.sort((a, b) => a - b), statuses, cpuMs: (groupCpuMs(groups) - cpuBefore) / count };
+}
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
+const quantile = (sorted: number[], q: number) => sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]!;
+
+/** Work and floor blocks in alternation (floor first); each figure is the median over the pairs. */
+export async function alternateWithFloor(pairs: number, work: () => Promise<Block>, floor: () => Promise<Block>) {
+  const works: Block[] = [];
+  const floors: Block[] = [];
+  for (let i = 0; i < pairs; i++) {
+    floors.push(await floor());
+    works.push(await work());
+  }
+  const all = (blocks: Block[]) => blocks.flatMap((b) => b.latencies).sort((a, b) => a - b);
+  const statuses = new Map<number, number>();
+  for (const b of works) for (const [status, n] of b.statuses) statuses.set(status, (statuses.get(status) ?? 0) + n);
+  return {
+    cpuMs: median(works.map((b) => b.cpuMs)),
+    floorCpuMs: median(floors.map((b) => b.cpuMs)),
+    cpuRatio: median(works.map((b, i) => b.cpuMs / floors[i]!.cpuMs)),
+    throughput: works.reduce((n, b) => n + b.requests, 0) / works.reduce((s, b) => s + b.seconds, 0),
+    floorThroughput: floors.reduce((n, b) => n + b.requests, 0) / floors.reduce((s, b) => s + b.seconds, 0),
+    p50: quantile(all(works), 0.5),
+    p99: quantile(all(works), 0.99),
+    floorP50: quantile(all(floors), 0.5),
+    statuses,
+  };
+}
+
+function sessionBody(i: number) {
+  return {
+    coilId: COIL_IDS[i % COIL_IDS.length],
+    startedAt: localMinute(i + 60),
+    supplyVoltageV: "24 V",
+    supplyCurrentA: (1 + (i % 7) * 0.05).toFixed(2),
+    durationS: "10 min",
+    ambientTempC: 21,
+    heatSinkEndC: 34,
+    notes: `load bench ${i}`,
+    samples: "0, 21\n300, 30\n600, 34",
+    // The log form and the offline queue always send a submission key (app/(app)/sessions/new/offline-queue.ts).
+    clientKey: randomUUID(),
+  };
 }
 
 export async function benchSessionLoad(): Promise<void> {
   const env: NodeJS.ProcessEnv = POSTGRES_URL
-    ? { ...process.env, DATABASE_URL: POSTGRES_URL, NEXTAUTH_SECRET: randomBytes(32).toString("base64url"), NEXT_TELEMETRY_DISABLED: "1" }
-    : { ...process.env, DATABASE_URL: `file:${DB_PATH}`, NEXTAUTH_URL: `http://localhost:${PORT}`, NEXT_TELEMETRY_DISABLED: "1", COILYARD_DATA_DIR: path.dirname(DB_PATH) };
+    ? { ...process.env, DATABASE_URL: POSTGRES_URL, NEXTAUTH_SECRET: randomBytes(32).toString("base64url"), NEXT_TELEMETRY_DISABLED: "1", COILYARD_BENCH_FLOOR: "1" }
+    : { ...process.env, DATABASE_URL: `file:${DB_PATH}`, COILYARD_BENCH_FLOOR: "1", NEXTAUTH_URL: `http://localhost:${PORT}`, NEXT_TELEMETRY_DISABLED: "1", COILYARD_DATA_DIR: path.dirname(DB_PATH) };
   if (POSTGRES_URL) await freshPostgresDatabase(env);
   else freshDemoDatabase(env);
   const servers = BASES.map((base) =>
@@ -117,15 +195,54 @@ export async function benchSessionLoad(): Promise<void> {
   try {
     for (const base of BASES) await waitForServer(base, Date.now() + 60_000);
     const cookie = await signInByHand(BASE, MEMBER.email, MEMBER.password);
-    const { seconds, latencies, acknowledged, statuses } = await postSessions(cookie);
-    const at = (q: number) => latencies[Math.min(latencies.length - 1, Math.floor(q * latencies.length))]!;
-    const serverErrors = [...statuses].filter(([status]) => status >= 500).reduce((n, [, count]) => n + count, 0);
+    const groups = servers.map((server) => server.pid!).filter(Boolean);
+    const base = (i: number) => BASES[i % BASES.length]!;
+    const floorBlock = (count: number) => () => runBlock(count, groups, (i) => fetch(`${base(i)}${FLOOR_PATH}`));
+    if ((await fetch(`${BASE}${FLOOR_PATH}`)).status !== 200) throw new Error(`${FLOOR_PATH} did not answer 200: was the build made from this code?`);
+
+    const acknowledged: string[] = [];
+    let offset = 0;
+    const postBlock = async () => {
+      const first = offset;
+      offset += REQUESTS / BLOCKS;
+      return runBlock(
+        REQUESTS / BLOCKS,
+        groups,
+        (i) => fetch(`${base(first + i)}/api/sessions`, { method: "POST", headers: { "content-type": "application/json", cookie }, body: JSON.stringify(sessionBody(first + i)) }),
+        async (response) => {
+          // A 5xx may come back as an HTML error page: it acknowledges nothing either way.
+          const answer = (await response.json().catch(() => ({ ok: false }))) as { ok: boolean; data?: { id: string } };
+          if (response.status === 201 && answer.ok && answer.data) acknowledged.push(answer.data.id);
+        },
+      );
+    };
+    const posts = await alternateWithFloor(BLOCKS, postBlock, floorBlock(REQUESTS / BLOCKS));
+    const serverErrors = [...posts.statuses].filter(([status]) => status >= 500).reduce((n, [, count]) => n + count, 0);
     const found = await countStored(acknowledged);
     const where = POSTGRES_URL ? `two next start instances (${BASES.join(", ")}) on one PostgreSQL database` : `next start on ${BASE} (SQLite)`;
-    console.log(`\nSession logging under load: ${REQUESTS} POST /api/sessions, ${IN_FLIGHT} in flight, ${where}`);
-    console.log(`  throughput ${(REQUESTS / seconds).toFixed(0)} req/s   p50 ${at(0.5).toFixed(1)} ms   p99 ${at(0.99).toFixed(1)} ms   5xx ${serverErrors}   statuses ${JSON.stringify(Object.fromEntries(statuses))}`);
+    console.log(`\nSession logging under load: ${REQUESTS} POST /api/sessions, ${IN_FLIGHT} in flight, ${where}, in ${BLOCKS} blocks alternating with ${FLOOR_PATH}`);
+    console.log(`  throughput ${posts.throughput.toFixed(0)} req/s   p50 ${posts.p50.toFixed(1)} ms   p99 ${posts.p99.toFixed(1)} ms   5xx ${serverErrors}   statuses ${JSON.stringify(Object.fromEntries(posts.statuses))}`);
+    console.log(`  server CPU ${posts.cpuMs.toFixed(2)} ms/request; trivial route ${posts.floorCpuMs.toFixed(2)} ms/request (${posts.floorThroughput.toFixed(0)} req/s, p50 ${posts.floorP50.toFixed(1)} ms)   ×${posts.cpuRatio.toFixed(1)}`);
     console.log(`  acknowledged ${acknowledged.length}, found in the database ${found}${found === acknowledged.length ? " (all)" : " — MISSING WRITES"}`);
+    const writes = `${serverErrors} × 5xx, ${found}/${acknowledged.length} acknowledged writes found`;
+    recordFigure({ key: "postSessionsCpu", value: posts.cpuMs, floor: posts.floorCpuMs, ratio: posts.cpuRatio, note: writes });
+    recordFigure({ key: "postSessionsLatency", value: posts.p50, floor: posts.floorP50, note: `p99 ${posts.p99.toFixed(0)} ms` });
     if (serverErrors > 0 || found !== acknowledged.length) process.exitCode = 1;
+
+    const pageRounds = 4;
+    for (const [key, name, pagePath] of [
+      ["dashboardCpu", "dashboard", "/"],
+      ["coilPageCpu", `coil page ${PAGE_COIL}`, `/coils/${PAGE_COIL}`],
+    ] as const) {
+      const pageBlock = () => runBlock(PAGE_REQUESTS / pageRounds, groups, (i) => fetch(`${base(i)}${pagePath}`, { headers: { cookie }, redirect: "manual" }));
+      const page = await alternateWithFloor(pageRounds, pageBlock, floorBlock(PAGE_REQUESTS / pageRounds));
+      const notOk = [...page.statuses].filter(([status]) => status !== 200).reduce((n, [, count]) => n + count, 0);
+      console.log(
+        `  ${name} (GET ${pagePath}, ${PAGE_REQUESTS} requests, ${IN_FLIGHT} in flight): ${page.throughput.toFixed(0)} req/s, p50 ${page.p50.toFixed(1)} ms, server CPU ${page.cpuMs.toFixed(2)} ms/request; trivial route ${page.floorCpuMs.toFixed(2)} ms   ×${page.cpuRatio.toFixed(1)}${notOk ? `   ${notOk} answers not 200: ${JSON.stringify(Object.fromEntries(page.statuses))}` : ""}`,
+      );
+      recordFigure({ key, value: page.cpuMs, floor: page.floorCpuMs, ratio: page.cpuRatio, note: `${page.throughput.toFixed(0)} req/s vs ${page.floorThroughput.toFixed(0)}` });
+      if (notOk) process.exitCode = 1;
+    }
   } finally {
     for (const server of servers) if (server.pid) process.kill(-server.pid, "SIGTERM");
   }

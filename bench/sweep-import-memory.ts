@@ -73,6 +73,7 @@ export async function benchSweepImport(): Promise<void> {
   if (!parsed.success) throw new Error(parsed.error.message);
   body = null;
   step("route: JSON.parse + sweepImportSchema");
+  // ISSUE 12 SLOT: recordSweep(benchScope(user.id), …) once lib/db takes a SiteScope (bench/app-calls.ts).
   const recorded = await recordSweep(user.id, recordInputFromImport(parsed.data), "import");
   step("lib/db/sweeps recordSweep (analysis + insert)");
 

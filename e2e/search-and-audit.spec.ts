@@ -1,6 +1,7 @@
 import { expect, test } from "@playwright/test";
 import Database from "better-sqlite3";
 import { signInAs } from "./support/accounts";
+import { DEFAULT_SITE_ID } from "../lib/db/site-scope";
 
 const port = Number(process.env.E2E_PORT ?? 3100);
 
@@ -35,10 +36,12 @@ test("the sweeps and sessions lists search on the server by coil", async ({ page
 });
 
 test("the admin audit log filters by who, what and when, and shows figures with SI prefixes", async ({ page }) => {
-  // An entry written as older versions wrote sweep summaries (a bare figure in hertz), straight into the e2e database.
+  // An entry written as older versions wrote sweep summaries (a bare figure in hertz), straight into the e2e database,
+  // at the demo club's site (the default site): the log shows the current site's events only.
   const db = new Database(`data/e2e-${port}/e2e.db`);
   try {
-    db.prepare("INSERT INTO AuditEvent (at, actorId, action, entity, entityId, summary) VALUES (?, NULL, 'create', 'Sweep', 'e2e-sweep', ?)").run(
+    db.prepare("INSERT INTO AuditEvent (siteId, at, actorId, action, entity, entityId, summary) VALUES (?, ?, NULL, 'create', 'Sweep', 'e2e-sweep', ?)").run(
+      DEFAULT_SITE_ID,
       new Date().toISOString().replace("Z", "+00:00"),
       "Recorded a 120-point sweep of KM-01, first series resonance 330962 Hz",
     );

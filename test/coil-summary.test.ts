@@ -7,12 +7,12 @@ import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import ts from "typescript";
 import { beforeEach, describe, expect, it } from "vitest";
-import { makeUser, resetDatabase, testDb } from "./support/db";
+import { mainScope, makeOrganisationAdmin, makeUser, resetDatabase, testDb } from "./support/db";
 import { ALL_YES, CLEAN_WARM_UP, makeCleanCoil } from "./fleet-fixtures";
 import { fitSessionSamples } from "@/lib/analysis/session-fit";
 import { getFleetOverview } from "@/lib/db/fleet";
 import { computeFiguresFor, storeCoilFigures } from "@/lib/db/coil-summary";
-import { getCurrentPolicy, savePolicyVersion } from "@/lib/db/policy";
+import { getCurrentPolicy, saveDefaultPolicyVersion } from "@/lib/db/policy";
 import { createSession } from "@/lib/db/sessions";
 import { createCoil, setCoilStatus, updateCoil } from "@/lib/db/coils";
 import { addComponent, replaceComponent } from "@/lib/db/components";
@@ -39,9 +39,12 @@ const DAY = 86_400_000;
 
 beforeEach(resetDatabase);
 
+/** Reads at the default site, as a single-club install makes them. */
+const MAIN = mainScope(null);
+
 async function fromScratch(now: Date) {
   await testDb.coilSummary.deleteMany();
-  return getFleetOverview(now);
+  return getFleetOverview(MAIN, now);
 }
 
 const revisionOf = async (coilId: string) => (await testDb.coilSummary.findUnique({ where: { coilId } }))?.revision ?? 0;
@@ -103,34 +106,34 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
       [
         "log a session",
         async () => {
-          const s = await createSession(steward.id, sessionSchema.parse({ coilId: coil.id, topLoadId: topLoad.id, startedAt: at(2), supplyVoltageV: "30 V", supplyCurrentA: "4 A", durationS: "12 min", ambientTempC: "22", heatSinkEndC: "48", runningFrequencyHz: "298 kHz", peakSwitchVoltageV: "160 V", dutyCycle: "0.5" }));
+          const s = await createSession(mainScope(steward.id), sessionSchema.parse({ coilId: coil.id, topLoadId: topLoad.id, startedAt: at(2), supplyVoltageV: "30 V", supplyCurrentA: "4 A", durationS: "12 min", ambientTempC: "22", heatSinkEndC: "48", runningFrequencyHz: "298 kHz", peakSwitchVoltageV: "160 V", dutyCycle: "0.5" }));
           lastSessionId = s.id;
         },
       ],
-      ["record a failure", () => createFailure(steward.id, failureSchema.parse({ coilId: coil.id, sessionId: lastSessionId, componentId: sw.id, mode: "over_current", occurredAt: at(1.9), symptoms: "Switch ran hot and went short." }))],
+      ["record a failure", () => createFailure(mainScope(steward.id), failureSchema.parse({ coilId: coil.id, sessionId: lastSessionId, componentId: sw.id, mode: "over_current", occurredAt: at(1.9), symptoms: "Switch ran hot and went short." }))],
       [
         "complete its post-mortem with a replacement part",
         async () => {
           const failure = await testDb.failure.findFirstOrThrow({ where: { coilId: coil.id } });
-          await completePostMortem(steward.id, postMortemSchema.parse({ failureId: failure.id, rootCause: "Current ran past the rating.", correctiveAction: "Fit a bigger switch.", replacement: { partNumber: "MJE13009G", installedAt: at(1.5), voltageRatingV: "700 V", peakCurrentA: "30", maxJunctionTempC: "150" } }));
+          await completePostMortem(mainScope(steward.id), postMortemSchema.parse({ failureId: failure.id, rootCause: "Current ran past the rating.", correctiveAction: "Fit a bigger switch.", replacement: { partNumber: "MJE13009G", installedAt: at(1.5), voltageRatingV: "700 V", peakCurrentA: "30", maxJunctionTempC: "150" } }));
         },
       ],
-      ["fit a part", () => addComponent(steward.id, componentSchema.parse({ coilId: coil.id, kind: "fan", partNumber: "FAN-80", installedAt: at(1.2) }))],
+      ["fit a part", () => addComponent(mainScope(steward.id), componentSchema.parse({ coilId: coil.id, kind: "fan", partNumber: "FAN-80", installedAt: at(1.2) }))],
       [
         "replace a part",
         async () => {
           const sink = await testDb.component.findFirstOrThrow({ where: { coilId: coil.id, kind: "heat_sink", removedAt: null } });
-          await replaceComponent(steward.id, replaceComponentSchema.parse({ oldComponentId: sink.id, removalReason: "bigger sink", coilId: coil.id, kind: "heat_sink", partNumber: "HS-2", sinkThermalResistanceKPerW: "0.8", installedAt: at(1) }));
+          await replaceComponent(mainScope(steward.id), replaceComponentSchema.parse({ oldComponentId: sink.id, removalReason: "bigger sink", coilId: coil.id, kind: "heat_sink", partNumber: "HS-2", sinkThermalResistanceKPerW: "0.8", installedAt: at(1) }));
         },
       ],
-      ["add a top load", () => addTopLoad(steward.id, topLoadSchema.parse({ coilId: coil.id, name: "Bigger toroid", shape: "toroid", diameterM: "15 cm", tubeDiameterM: "4 cm" }))],
-      ["retire a top load", async () => retireTopLoad(steward.id, (await testDb.topLoad.findFirstOrThrow({ where: { coilId: coil.id, name: "Bigger toroid" } })).id)],
-      ["edit the build", async () => updateCoil(steward.id, coilUpdateSchema.parse({ coilId: coil.id, version: (await testDb.coil.findUniqueOrThrow({ where: { id: coil.id } })).version, name: "Coil SU-01", builderName: "Test", formDiameterM: "5 cm", windingLengthM: "20 cm", wireDiameterM: "0.2 mm", turns: "900 turns", measuredInductanceH: "4 mH" }))],
-      ["set its status", () => setCoilStatus(steward.id, coil.id, "repair")],
+      ["add a top load", () => addTopLoad(mainScope(steward.id), topLoadSchema.parse({ coilId: coil.id, name: "Bigger toroid", shape: "toroid", diameterM: "15 cm", tubeDiameterM: "4 cm" }))],
+      ["retire a top load", async () => retireTopLoad(mainScope(steward.id), (await testDb.topLoad.findFirstOrThrow({ where: { coilId: coil.id, name: "Bigger toroid" } })).id)],
+      ["edit the build", async () => updateCoil(mainScope(steward.id), coilUpdateSchema.parse({ coilId: coil.id, version: (await testDb.coil.findUniqueOrThrow({ where: { id: coil.id } })).version, name: "Coil SU-01", builderName: "Test", formDiameterM: "5 cm", windingLengthM: "20 cm", wireDiameterM: "0.2 mm", turns: "900 turns", measuredInductanceH: "4 mH" }))],
+      ["set its status", () => setCoilStatus(mainScope(steward.id), coil.id, "repair")],
       [
         "record a sweep",
         () =>
-          recordSweep(steward.id, {
+          recordSweep(mainScope(steward.id), {
             coilId: coil.id,
             topLoadId: topLoad.id,
             takenAt: new Date(now.getTime() - 0.5 * DAY),
@@ -148,28 +151,28 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
       [
         "return a loan with the sessions run while away",
         async () => {
-          await signClearance(steward.id, clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "refused", checklist: ALL_YES }), now);
+          await signClearance(mainScope(steward.id), clearanceDecisionSchema.parse({ coilId: coil.id, verdict: "refused", checklist: ALL_YES }), now);
           const clearance = await testDb.clearance.findFirstOrThrow({ where: { coilId: coil.id } });
           // A loan straight in the table: lending needs a passing clearance, which this coil's logbook no longer gives.
           const loan = await testDb.loan.create({ data: { coilId: coil.id, clearanceId: clearance.id, borrower: "Library", event: "Open day", outAt: new Date(now.getTime() - 3 * DAY), expectedBackAt: now } });
-          await returnLoan(steward.id, { loanId: loan.id, returnedAt: new Date(now.getTime() - 0.1 * DAY), returnCondition: "Good", returnNotes: "", sessionIds: [lastSessionId] }, now);
+          await returnLoan(mainScope(steward.id), { loanId: loan.id, returnedAt: new Date(now.getTime() - 0.1 * DAY), returnCondition: "Good", returnNotes: "", sessionIds: [lastSessionId] }, now);
         },
       ],
     ];
 
-    await getFleetOverview(now);
+    await getFleetOverview(MAIN, now);
     for (const [what, write] of writes) {
       const before = await revisionOf(coil.id);
       const otherRow = await testDb.coilSummary.findUniqueOrThrow({ where: { coilId: other.id } });
       await write();
       expect(await revisionOf(coil.id), what).toBeGreaterThan(before);
-      const warm = await getFleetOverview(now);
+      const warm = await getFleetOverview(MAIN, now);
       // The untouched coil was read, not recomputed.
       expect(await testDb.coilSummary.findUniqueOrThrow({ where: { coilId: other.id } }), what).toEqual(otherRow);
       expect(warm, what).toEqual(await fromScratch(now));
     }
     // The writes did change what the dashboard shows, so a forgotten mark would have shown up above.
-    const [row] = await getFleetOverview(now);
+    const [row] = await getFleetOverview(MAIN, now);
     expect(row).toMatchObject({ tag: "SU-01", sessionCount: 6, openFailures: 0, status: "repair" });
   });
 
@@ -177,39 +180,39 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
     const steward = await makeUser("s@club.test", "steward");
     const now = new Date();
     await makeCleanCoil("SU-10", now, steward.id);
-    const created = await createCoil(steward.id, coilSchema.parse({ tag: "SU-11", name: "New", builderName: "Ada", formDiameterM: "75 mm", windingLengthM: "8 in", wireDiameterM: "AWG 28", turns: "600 turns" }));
+    const created = await createCoil(mainScope(steward.id), coilSchema.parse({ tag: "SU-11", name: "New", builderName: "Ada", formDiameterM: "75 mm", windingLengthM: "8 in", wireDiameterM: "AWG 28", turns: "600 turns" }));
     expect(await revisionOf(created.id)).toBeGreaterThan(0);
-    await getFleetOverview(now);
-    const doc = logbookDocumentSchema.parse(JSON.parse(JSON.stringify(await exportCoil("SU-10"))));
-    const { coils } = await importLogbook(steward.id, doc, { asTag: "SU-12" });
-    const copy = await testDb.coil.findUniqueOrThrow({ where: { tag: coils[0]!.tag } });
+    await getFleetOverview(MAIN, now);
+    const doc = logbookDocumentSchema.parse(JSON.parse(JSON.stringify(await exportCoil(MAIN, "SU-10"))));
+    const { coils } = await importLogbook(mainScope(steward.id), doc, { asTag: "SU-12" });
+    const copy = await testDb.coil.findFirstOrThrow({ where: { tag: coils[0]!.tag } });
     expect(await revisionOf(copy.id)).toBeGreaterThan(0);
-    const warm = await getFleetOverview(now);
+    const warm = await getFleetOverview(MAIN, now);
     expect(warm.map((r) => r.tag)).toEqual(["SU-10", "SU-11", "SU-12"]);
     expect(warm).toEqual(await fromScratch(now));
   });
 
   it("after a policy change, judging every coil by the new thresholds", async () => {
-    const admin = await makeUser("a@club.test", "admin");
+    const admin = await makeOrganisationAdmin("a@club.test");
     const now = new Date();
     await makeCleanCoil("SU-20", now);
-    await getCurrentPolicy();
-    const before = await getFleetOverview(now);
+    await getCurrentPolicy(MAIN);
+    const before = await getFleetOverview(MAIN, now);
     expect(before[0]!.health).not.toBe("hold");
     // Demand more voltage headroom than the coil has (its latest is 1 − 100 V / 400 V = 75 %).
-    await savePolicyVersion(admin.id, { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.8 }, "stricter");
-    const warm = await getFleetOverview(now);
+    await saveDefaultPolicyVersion(mainScope(admin.id), { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.8 }, "stricter");
+    const warm = await getFleetOverview(MAIN, now);
     expect(warm[0]!.health).toBe("hold");
     expect(warm).toEqual(await fromScratch(now));
   });
 
   it("stores each coil's recent headrooms per margin with the policy's thresholds, and recomputes a row stored without them", async () => {
-    const admin = await makeUser("a@club.test", "admin");
+    const admin = await makeOrganisationAdmin("a@club.test");
     const now = new Date();
     const coil = await makeCleanCoil("SU-30", now);
-    const page = (await readCoilPage("SU-30"))!;
+    const page = (await readCoilPage(MAIN, "SU-30"))!;
     const judged = judgeCoil(page.history, page.policy.rules, now);
-    const [row] = await getFleetOverview(now);
+    const [row] = await getFleetOverview(MAIN, now);
     // The trend is the judgement's own sessions, oldest first (the same figures the health verdict read).
     expect(judged.analyzed.length).toBeGreaterThan(1);
     expect(row!.headroomTrend.voltage.headrooms).toEqual(judged.analyzed.slice(-HEADROOM_TREND_SESSIONS).map((a) => a.analysis.margins.voltage.headroom));
@@ -217,11 +220,11 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
     expect(row!.headroomTrend.current.threshold).toBe(DEFAULT_CLEARANCE_POLICY.minCurrentHeadroom);
     // A row written before the column existed (the migration leaves it NULL) is not trusted: it is recomputed and stored.
     await testDb.coilSummary.update({ where: { coilId: coil.id }, data: { headroomTrendJson: null } });
-    expect((await getFleetOverview(now))[0]!.headroomTrend).toEqual(row!.headroomTrend);
+    expect((await getFleetOverview(MAIN, now))[0]!.headroomTrend).toEqual(row!.headroomTrend);
     expect((await testDb.coilSummary.findUniqueOrThrow({ where: { coilId: coil.id } })).headroomTrendJson).not.toBeNull();
     // A new policy version redraws the limit line.
-    await savePolicyVersion(admin.id, { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.5 }, "stricter");
-    expect((await getFleetOverview(now))[0]!.headroomTrend.voltage.threshold).toBe(0.5);
+    await saveDefaultPolicyVersion(mainScope(admin.id), { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.5 }, "stricter");
+    expect((await getFleetOverview(MAIN, now))[0]!.headroomTrend.voltage.threshold).toBe(0.5);
   });
 
   it("after the clock passes a summary's validUntil, and not before", async () => {
@@ -247,19 +250,19 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
         },
       });
     }
-    const first = await getFleetOverview(now);
+    const first = await getFleetOverview(MAIN, now);
     const stored = await testDb.coilSummary.findUniqueOrThrow({ where: { coilId: coil.id } });
     expect(stored.validUntil).not.toBeNull();
     const validUntil = stored.validUntil!;
     expect(validUntil.getTime()).toBeGreaterThan(now.getTime());
 
     const justBefore = new Date(validUntil.getTime() - 1);
-    const warmBefore = await getFleetOverview(justBefore);
+    const warmBefore = await getFleetOverview(MAIN, justBefore);
     expect((await testDb.coilSummary.findUniqueOrThrow({ where: { coilId: coil.id } })).computedAt).toEqual(stored.computedAt); // read, not recomputed
     expect(warmBefore.map((r) => r.reasons)).toEqual(first.map((r) => r.reasons));
 
     const after = new Date(validUntil.getTime() + 60_000);
-    const warmAfter = await getFleetOverview(after);
+    const warmAfter = await getFleetOverview(MAIN, after);
     const scratchAfter = await fromScratch(after);
     expect(warmAfter).toEqual(scratchAfter);
     // Time alone changed the verdict's words, so a summary trusted past validUntil would have been wrong.
@@ -271,24 +274,24 @@ describe("the dashboard from summaries equals the from-scratch computation", () 
     const now = new Date();
     const coil = await makeCleanCoil("SU-40", now);
     const topLoad = await testDb.topLoad.findFirstOrThrow({ where: { coilId: coil.id } });
-    await getFleetOverview(now);
-    const policy = await getCurrentPolicy();
+    await getFleetOverview(MAIN, now);
+    const policy = await getCurrentPolicy(MAIN);
 
     // The dashboard's order: revision read, then the logbook, then the computation…
     const revision = await revisionOf(coil.id);
     await testDb.coilSummary.update({ where: { coilId: coil.id }, data: { computedRevision: null } });
-    const computed = await computeFiguresFor([coil.id], new Map([[coil.id, revision]]), policy, now);
+    const computed = await computeFiguresFor(MAIN, [coil.id], new Map([[coil.id, revision]]), policy, now);
     // …while a session is logged before the result is stored.
-    await createSession(member.id, sessionSchema.parse({ coilId: coil.id, topLoadId: topLoad.id, startedAt: toLocalDateTimeValue(new Date(now.getTime() - DAY)), supplyVoltageV: "24 V", supplyCurrentA: "2 A", durationS: "10 min", ambientTempC: "22", heatSinkEndC: "35" }));
-    expect(await storeCoilFigures(computed, policy.version, now)).toEqual([]);
+    await createSession(mainScope(member.id), sessionSchema.parse({ coilId: coil.id, topLoadId: topLoad.id, startedAt: toLocalDateTimeValue(new Date(now.getTime() - DAY)), supplyVoltageV: "24 V", supplyCurrentA: "2 A", durationS: "10 min", ambientTempC: "22", heatSinkEndC: "35" }));
+    expect(await storeCoilFigures(MAIN, computed, policy.version, now)).toEqual([]);
     const row = await testDb.coilSummary.findUniqueOrThrow({ where: { coilId: coil.id } });
     expect(row.computedRevision).not.toBe(row.revision);
 
-    const warm = await getFleetOverview(now);
+    const warm = await getFleetOverview(MAIN, now);
     expect(warm[0]!.sessionCount).toBe(6);
     expect(warm).toEqual(await fromScratch(now));
     // Without a racing write the same store goes through (so the refusal above was the race, not the store).
-    const again = await computeFiguresFor([coil.id], new Map([[coil.id, await revisionOf(coil.id)]]), policy, now);
-    expect(await storeCoilFigures(again, policy.version, now)).toEqual([coil.id]);
+    const again = await computeFiguresFor(MAIN, [coil.id], new Map([[coil.id, await revisionOf(coil.id)]]), policy, now);
+    expect(await storeCoilFigures(MAIN, again, policy.version, now)).toEqual([coil.id]);
   });
 });

@@ -1,6 +1,6 @@
 /** The dashboard's windowed read (lib/db/coil-history getFleetHealthHistory) against the full logbook it replaces. */
 import { beforeEach, describe, expect, it } from "vitest";
-import { resetDatabase, testDb } from "./support/db";
+import { mainScope, resetDatabase, testDb } from "./support/db";
 import { makeCleanCoil } from "./fleet-fixtures";
 import { getCoilHistory, getCoilPageHistory, getFleetHealthHistory, getFleetHistory } from "@/lib/db/coil-history";
 import { getCoilTimeline } from "@/lib/db/coil-timeline";
@@ -29,11 +29,14 @@ async function addSessions(coilId: string, count: number) {
 describe("getFleetHealthHistory", () => {
   beforeEach(resetDatabase);
 
+/** Reads at the default site, as a single-club install makes them. */
+const MAIN = mainScope(null);
+
   it("reads the baseline and recent window of a long logbook, with totals over every session", async () => {
     const long = await makeCleanCoil("HW-01", now);
     await addSessions(long.id, 150);
     const short = await makeCleanCoil("HW-02", now);
-    const [full, windowed] = await Promise.all([getFleetHistory(), getFleetHealthHistory()]);
+    const [full, windowed] = await Promise.all([getFleetHistory(MAIN), getFleetHealthHistory(MAIN)]);
     for (const coil of full) {
       const read = windowed.find((w) => w.coil.id === coil.coil.id)!;
       expect(read.sessions.map((s) => s.id)).toEqual(selectHealthWindow(coil.sessions).map((s) => s.id));
@@ -48,18 +51,18 @@ describe("getFleetHealthHistory", () => {
   });
 
   it("gives a coil without sessions no totals, and the dashboard still lists it", async () => {
-    await testDb.coil.create({ data: { tag: "HW-03", name: "Fresh build", builderName: "Test", formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002 } });
-    const [read] = await getFleetHealthHistory();
+    await testDb.coil.create({ data: { siteId: MAIN.siteId, tag: "HW-03", name: "Fresh build", builderName: "Test", formDiameterM: 0.05, windingLengthM: 0.2, turns: 900, wireDiameterM: 0.0002 } });
+    const [read] = await getFleetHealthHistory(MAIN);
     expect(read!.sessions).toEqual([]);
     expect(read!.totals).toEqual({ sessionCount: 0, totalDurationS: 0, lastSessionAt: null });
-    const [row] = await getFleetOverview(now);
+    const [row] = await getFleetOverview(MAIN, now);
     expect(row).toMatchObject({ tag: "HW-03", sessionCount: 0, hoursRun: 0, lastSessionAt: null, health: "not enough data" });
   });
 
   it("gives the coil page the same window and prediction table as its whole logbook, and the timeline every count", async () => {
     const long = await makeCleanCoil("HW-04", now);
     await addSessions(long.id, 150); // no running frequency: the table's session is one of makeCleanCoil's, older than the window
-    const [full, page, timeline] = await Promise.all([getCoilHistory(long.id), getCoilPageHistory(long.id), getCoilTimeline(long.id)]);
+    const [full, page, timeline] = await Promise.all([getCoilHistory(MAIN, long.id), getCoilPageHistory(MAIN, long.id), getCoilTimeline(MAIN, long.id)]);
     expect(page!.sessions.map((s) => s.id)).toEqual(selectHealthWindow(full!.sessions).map((s) => s.id));
     const compared = compareCoil(page!.coil, page!.topLoads, page!.sweeps, page!.comparisonSessions);
     expect(compared.rows.find((r) => r.quantity === "runningFrequency")!.measured).toBe(300_000);
@@ -72,11 +75,11 @@ describe("getFleetHealthHistory", () => {
     await addSessions(coil.id, 20);
     const part = await testDb.component.findFirstOrThrow({ where: { coilId: coil.id } });
     await testDb.component.update({ where: { id: part.id }, data: { removedAt: now, removalReason: "worn" } });
-    const known = (await getCoilByTag("HW-05"))!;
-    const [read, handed] = await Promise.all([getCoilPageHistory(coil.id), getCoilPageHistory(coil.id, known)]);
+    const known = (await getCoilByTag(MAIN, "HW-05"))!;
+    const [read, handed] = await Promise.all([getCoilPageHistory(MAIN, coil.id), getCoilPageHistory(MAIN, coil.id, known)]);
     expect(handed).toEqual(read);
     expect(handed!.coil).not.toHaveProperty("components");
-    const [timelineRead, timelineHanded] = await Promise.all([getCoilTimeline(coil.id), getCoilTimeline(coil.id, 25, { parts: known.components })]);
+    const [timelineRead, timelineHanded] = await Promise.all([getCoilTimeline(MAIN, coil.id), getCoilTimeline(MAIN, coil.id, 25, { parts: known.components })]);
     expect(timelineHanded).toEqual(timelineRead);
     expect(timelineHanded.events.filter((e) => e.kind === "part-removed")).toHaveLength(1);
   });

@@ -5,10 +5,10 @@
  * samples are still rising, so the thermal margin is judged where it was heading.
  */
 import { beforeEach, describe, expect, it } from "vitest";
-import { makeUser, resetDatabase, testDb } from "./support/db";
+import { mainScope, makeOrganisationAdmin, makeUser, resetDatabase, testDb } from "./support/db";
 import { makeCleanCoil } from "./fleet-fixtures";
 import { getFleetOverview } from "@/lib/db/fleet";
-import { getCurrentPolicy, savePolicyVersion } from "@/lib/db/policy";
+import { getCurrentPolicy, saveDefaultPolicyVersion } from "@/lib/db/policy";
 import { createSession, getSessionDetail } from "@/lib/db/sessions";
 import { readCoilPage } from "@/lib/db/coil-page";
 import { evaluateCoilForClearance } from "@/lib/db/clearances";
@@ -22,6 +22,9 @@ import { sessionSchema, toLocalDateTimeValue } from "@/lib/validation/session";
 
 beforeEach(resetDatabase);
 
+/** Reads at the default site, as a single-club install makes them. */
+const MAIN = mainScope(null);
+
 const DAY = 86_400_000;
 /** 22 °C + 68 K·(1 − e^(−t/240 s)) every 15 s for 4¼ min, read to 0.1 K: about one time constant, still rising. */
 const RISING = [22, 26.1, 30, 33.6, 37, 40.3, 43.3, 46.1, 48.8, 51.3, 53.6, 55.8, 57.9, 59.8, 61.7, 63.4, 65, 66.5];
@@ -31,7 +34,7 @@ const pick = (m: { headroom: number | null; status: string }) => ({ headroom: m.
 
 async function logRisingRun(actorId: string, coilId: string, topLoadId: string, now: Date) {
   return createSession(
-    actorId,
+    mainScope(actorId),
     sessionSchema.parse({
       coilId,
       topLoadId,
@@ -52,31 +55,31 @@ async function logRisingRun(actorId: string, coilId: string, topLoadId: string, 
 
 describe("one session shows one set of margins everywhere", () => {
   it("agrees on the dashboard, the coil page, the session page and the clearance check under a stricter policy", async () => {
-    const admin = await makeUser("admin@club.test", "admin");
+    const admin = await makeOrganisationAdmin("admin@club.test");
     const member = await makeUser("member@club.test", "member");
     const now = new Date();
     const coil = await makeCleanCoil("OJ-1", now);
     const topLoad = await testDb.topLoad.findFirstOrThrow({ where: { coilId: coil.id } });
     // A non-default policy through its write path: stricter margins and a larger junction margin.
-    await savePolicyVersion(admin.id, { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.7, minCurrentHeadroom: 0.3, minThermalHeadroom: 0.35, minJunctionMarginK: 30 }, "stricter");
-    const policy = await getCurrentPolicy();
+    await saveDefaultPolicyVersion(mainScope(admin.id), { ...DEFAULT_CLEARANCE_POLICY, minVoltageHeadroom: 0.7, minCurrentHeadroom: 0.3, minThermalHeadroom: 0.35, minJunctionMarginK: 30 }, "stricter");
+    const policy = await getCurrentPolicy(MAIN);
     expect(policy.rules.minThermalHeadroom).toBe(0.35);
     const session = await logRisingRun(member.id, coil.id, topLoad.id, now);
 
     // Dashboard: the stored summary (computed on the first read, then read back as stored).
-    await getFleetOverview(now);
-    const dashboard = (await getFleetOverview(now)).find((row) => row.tag === "OJ-1")!;
+    await getFleetOverview(MAIN, now);
+    const dashboard = (await getFleetOverview(MAIN, now)).find((row) => row.tag === "OJ-1")!;
     const stored = await testDb.coilSummary.findUniqueOrThrow({ where: { coilId: coil.id } });
     expect(stored.computedRevision).toBe(stored.revision);
     // Coil page: its records and the one coil judgement.
-    const page = (await readCoilPage("OJ-1"))!;
+    const page = (await readCoilPage(MAIN, "OJ-1"))!;
     const coilPage = judgeCoil(page.history, page.policy.rules, now).latest!;
     expect(coilPage.session.id).toBe(session.id);
     // Session page: the detail with its samples, judged by the current policy.
-    const detail = (await getSessionDetail(session.id))!;
+    const detail = (await getSessionDetail(MAIN, session.id))!;
     const sessionPage = analyzeRunSession(detail.coil, detail, detail.coil.components, detail.samples, { policy: policy.rules });
     // Clearance: the hardest recent session at the current setup; the rising run is the hardest thermally.
-    const clearance = (await evaluateCoilForClearance(coil.id, {}, now))!;
+    const clearance = (await evaluateCoilForClearance(MAIN, coil.id, {}, now))!;
     expect(clearance.hardestSessionIds.thermal).toBe(session.id);
 
     for (const kind of ["voltage", "current", "thermal"] as const) {
@@ -107,14 +110,14 @@ describe("one session shows one set of margins everywhere", () => {
     const coil = await makeCleanCoil("OJ-2", now);
     // As an existing database has them after the migration: samples, but no stored fit.
     await testDb.runSession.updateMany({ where: { coilId: coil.id }, data: { sinkFitSampleCount: null, sinkFitJson: null, sinkSteadyStateC: null } });
-    const before = judgeCoil((await readCoilPage("OJ-2"))!.history, (await getCurrentPolicy()).rules, now).latest!;
+    const before = judgeCoil((await readCoilPage(MAIN, "OJ-2"))!.history, (await getCurrentPolicy(MAIN)).rules, now).latest!;
     expect(before.analysis.sinkProjection?.basis).toBe("worst-case");
 
-    expect(await backfillSessionFits(2)).toBe(5);
-    expect(await backfillSessionFits()).toBe(0);
+    expect(await backfillSessionFits(MAIN, 2)).toBe(5);
+    expect(await backfillSessionFits(MAIN)).toBe(0);
     const rows = await testDb.runSession.findMany({ where: { coilId: coil.id } });
     expect(rows.every((r) => r.sinkFitSampleCount === 21 && r.sinkSteadyStateC !== null)).toBe(true);
-    const after = judgeCoil((await readCoilPage("OJ-2"))!.history, (await getCurrentPolicy()).rules, now).latest!;
+    const after = judgeCoil((await readCoilPage(MAIN, "OJ-2"))!.history, (await getCurrentPolicy(MAIN)).rules, now).latest!;
     expect(after.analysis.sinkProjection?.basis).toBe("fit-upper-bound");
     expect(after.analysis.margins.thermal.status).toBe("ok");
     const audit = await testDb.auditEvent.findMany({ where: { entity: "RunSession", summary: { contains: "warm-up fit" } } });

@@ -17,9 +17,9 @@ export const metadata: Metadata = { title: "Fleet" };
 const HEALTH_TONE: Record<string, string> = { fine: "fine", watch: "watch", hold: "hold", "not enough data": "neutral" };
 
 export default async function FleetPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser();
+  const user = await pageUser();
   const query = fleetQuerySchema.parse(await searchParams);
-  const all = await getFleetOverview();
+  const all = await getFleetOverview(user.scope);
   const rows = selectFleetRows(all, query);
   const out = all.filter((r) => r.activeLoan);
   const overdue = out.filter((r) => r.activeLoan!.overdue);

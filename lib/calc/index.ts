@@ -59,5 +59,6 @@ export * from "./coil-health";
 export * from "./failure-analysis";
 export * from "./clearance-policy";
 export * from "./lending-checklist";
+export * from "./policy-tightening";
 export * from "./clearance-lapse";
 export * from "./reliability";

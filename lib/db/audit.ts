@@ -1,10 +1,12 @@
 /**
  * The audit trail: who created or changed what, and when. Mutations call recordAudit inside the
- * same transaction as the change, so the trail can never disagree with the data.
+ * same transaction as the change, so the trail can never disagree with the data. Each event names the site whose
+ * record changed; the log is read one site at a time (organisation-wide events, siteId null, are not a site's).
  */
 import { prisma, type Tx } from "./client";
 import type { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
+import type { SiteScope } from "./site-scope";
 
 export interface AuditEntry {
   /** The site whose record changed; null for organisation-wide events (sign-in, sites, the default policy). */
@@ -45,8 +47,10 @@ export interface AuditFilter {
   skip?: number;
 }
 
-export async function listAuditEvents(options: AuditFilter = {}) {
+/** The scope's site's events, newest first. */
+export async function listAuditEvents(scope: SiteScope, options: AuditFilter = {}) {
   const where: Prisma.AuditEventWhereInput = {
+    siteId: scope.siteId,
     entity: options.entity,
     entityId: options.entityId,
     ...(options.actorId ? { actorId: options.actorId === "system" ? null : options.actorId } : {}),
@@ -62,8 +66,8 @@ export async function listAuditEvents(options: AuditFilter = {}) {
   });
 }
 
-/** The kinds of record the log holds, for the "what" filter. */
-export async function listAuditEntities(): Promise<string[]> {
-  const rows = await prisma.auditEvent.findMany({ distinct: ["entity"], select: { entity: true }, orderBy: { entity: "asc" } });
+/** The kinds of record the scope's site's log holds, for the "what" filter. */
+export async function listAuditEntities(scope: SiteScope): Promise<string[]> {
+  const rows = await prisma.auditEvent.findMany({ where: { siteId: scope.siteId }, distinct: ["entity"], select: { entity: true }, orderBy: { entity: "asc" } });
   return rows.map((r) => r.entity);
 }

@@ -4,6 +4,10 @@
  * new decision. The only later write is the lapse record (lapsedAt/lapseReason), made once: by the failure or part
  * change that causes it, in that write's transaction, or (for an expiry) when the decision page first sees it.
  * No view depends on that record: each works the state out on read (describeClearanceState).
+ *
+ * Every read is narrowed to the scope's site through the coil; a decision of another site is not found. The one
+ * exception is the clearance sheet (getClearanceSheet): a site that borrowed the coil (Loan.borrowerSiteId) may read
+ * the sheet of the clearance the loan went out under, and nothing else of the lending site.
  */
 import { prisma, type Tx } from "./client";
 import { recordAudit } from "./audit";
@@ -11,10 +15,11 @@ import { serializableTransaction } from "./serializable";
 import { getCurrentPolicy } from "./policy";
 import { computeClearanceExpiry, evaluateClearance, type ClearanceEvaluation, type ClearanceRuleResult } from "../calc/clearance-policy";
 import { buildClearanceFacts, findPartReplacements, type ClearanceHistory } from "../analysis/clearance-facts";
-import { describeClearanceState, type ClearanceState } from "../analysis/clearance-state";
+import { describeClearanceState, type ClearanceDecisionRecord, type ClearanceState } from "../analysis/clearance-state";
 import type { ClearanceDecisionInput } from "../validation/clearance";
 import type { HealthStatus } from "../calc/coil-health";
 import { getCoilFigures } from "./coil-summary";
+import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 
 export class ClearanceRefusedError extends Error {
   constructor(
@@ -48,26 +53,27 @@ export function describeClearRefusal(failed: readonly ClearanceRuleResult[]): st
   return `Not signed: ${failing}${unticked > 0 ? ` and ${boxes}` : ""}, so the coil cannot be cleared; record a refusal instead.`;
 }
 
-/** The coil's full history as buildClearanceFacts reads it. */
-export async function loadClearanceHistory(coilId: string): Promise<ClearanceHistory | null> {
+/** The coil's full history as buildClearanceFacts reads it; null for no such coil at the scope's site. */
+export async function loadClearanceHistory(scope: SiteScope, coilId: string): Promise<ClearanceHistory | null> {
+  const ofCoil = { coilId, ...recordOfSite(scope) };
   const [coil, components, sessions, sweeps, failures] = await Promise.all([
-    prisma.coil.findUnique({ where: { id: coilId } }),
-    prisma.component.findMany({ where: { coilId }, orderBy: { installedAt: "asc" } }),
-    prisma.runSession.findMany({ where: { coilId }, orderBy: { startedAt: "asc" }, omit: { notes: true, createdAt: true } }),
-    prisma.sweep.findMany({ where: { coilId }, orderBy: { takenAt: "asc" }, select: { id: true, takenAt: true, topLoadId: true, firstSeriesResonanceHz: true } }),
-    prisma.failure.findMany({ where: { coilId }, select: { occurredAt: true, status: true, mode: true } }),
+    prisma.coil.findUnique({ where: { id: coilId, ...coilOfSite(scope) } }),
+    prisma.component.findMany({ where: ofCoil, orderBy: { installedAt: "asc" } }),
+    prisma.runSession.findMany({ where: ofCoil, orderBy: { startedAt: "asc" }, omit: { notes: true, createdAt: true } }),
+    prisma.sweep.findMany({ where: ofCoil, orderBy: { takenAt: "asc" }, select: { id: true, takenAt: true, topLoadId: true, firstSeriesResonanceHz: true } }),
+    prisma.failure.findMany({ where: ofCoil, select: { occurredAt: true, status: true, mode: true } }),
   ]);
   if (!coil) return null;
   const latest = sessions.at(-1);
   const latestSessionSamples = latest
-    ? await prisma.heatSinkSample.findMany({ where: { sessionId: latest.id }, orderBy: { elapsedS: "asc" }, select: { elapsedS: true, temperatureC: true } })
+    ? await prisma.heatSinkSample.findMany({ where: { sessionId: latest.id, session: recordOfSite(scope) }, orderBy: { elapsedS: "asc" }, select: { elapsedS: true, temperatureC: true } })
     : [];
   return { coil, components, sessions, sweeps, failures, latestSessionSamples };
 }
 
-/** The policy, the facts and the evaluation for the signing page (or for the server's re-check). */
-export async function evaluateCoilForClearance(coilId: string, checklist: Readonly<Record<string, boolean>>, now: Date) {
-  const [policy, history] = await Promise.all([getCurrentPolicy(), loadClearanceHistory(coilId)]);
+/** The site's effective policy, the facts and the evaluation for the signing page (or for the server's re-check). */
+export async function evaluateCoilForClearance(scope: SiteScope, coilId: string, checklist: Readonly<Record<string, boolean>>, now: Date) {
+  const [policy, history] = await Promise.all([getCurrentPolicy(scope), loadClearanceHistory(scope, coilId)]);
   if (!history) return null;
   const built = buildClearanceFacts(history, checklist, policy.rules);
   const evaluation: ClearanceEvaluation = evaluateClearance({ policy: policy.rules, facts: built.facts, now });
@@ -78,12 +84,12 @@ export async function evaluateCoilForClearance(coilId: string, checklist: Readon
  * Signs a decision. The rules are evaluated here again from the stored history and the submitted
  * checklist; "cleared" is refused while any rule fails. A refusal may always be recorded, with its reasons.
  */
-export async function signClearance(actorId: string, input: ClearanceDecisionInput, now: Date = new Date()) {
-  const evaluated = await evaluateCoilForClearance(input.coilId, input.checklist, now);
+export async function signClearance(scope: SiteScope, input: ClearanceDecisionInput, now: Date = new Date()) {
+  const evaluated = await evaluateCoilForClearance(scope, input.coilId, input.checklist, now);
   if (!evaluated) throw new ClearanceRefusedError("That coil does not exist.");
   const { policy, evaluation } = evaluated;
   // A planned coil is not yet in service: it is never cleared, whatever its records say.
-  if (input.verdict === "cleared" && (await prisma.coil.findUnique({ where: { id: input.coilId }, select: { status: true } }))?.status === "planned") {
+  if (input.verdict === "cleared" && (await prisma.coil.findUnique({ where: { id: input.coilId, ...coilOfSite(scope) }, select: { status: true } }))?.status === "planned") {
     throw new ClearanceRefusedError("Cannot clear: the coil is only planned. Set it to active once it is built; a refusal may still be recorded.");
   }
   if (input.verdict === "cleared" && evaluation.verdict !== "pass") {
@@ -92,12 +98,14 @@ export async function signClearance(actorId: string, input: ClearanceDecisionInp
   }
   const checklistRecord = policy.rules.requiredChecklist.map((item) => ({ ...item, answer: input.checklist[item.id] === true }));
   return prisma.$transaction(async (tx) => {
-    const coil = await tx.coil.findUniqueOrThrow({ where: { id: input.coilId }, select: { tag: true } });
+    const coil = await tx.coil.findUnique({ where: { id: input.coilId, ...coilOfSite(scope) }, select: { tag: true, siteId: true } });
+    if (!coil) throw new ClearanceRefusedError("That coil does not exist.");
     const clearance = await tx.clearance.create({
       data: {
         coilId: input.coilId,
+        // The row carrying the effective version (lib/db/policy.ts says why one number identifies it).
         policyId: policy.id,
-        decidedById: actorId,
+        decidedById: scope.actorId,
         decidedAt: now,
         validUntil: computeClearanceExpiry(now, policy.rules),
         verdict: input.verdict,
@@ -109,7 +117,8 @@ export async function signClearance(actorId: string, input: ClearanceDecisionInp
       },
     });
     await recordAudit(tx, {
-      actorId,
+      siteId: coil.siteId,
+      actorId: scope.actorId,
       action: "create",
       entity: "Clearance",
       entityId: clearance.id,
@@ -127,11 +136,15 @@ export interface StoredChecklistAnswer {
   answer: boolean;
 }
 
-export async function getClearance(id: string) {
-  const row = await prisma.clearance.findUnique({
-    where: { id },
-    include: { coil: { select: { id: true, tag: true, name: true, builderName: true, topology: true } }, decidedBy: { select: { name: true } }, policy: { select: { version: true } } },
-  });
+const clearanceInclude = {
+  coil: { select: { id: true, siteId: true, tag: true, name: true, builderName: true, topology: true, site: { select: { name: true } } } },
+  decidedBy: { select: { name: true } },
+  policy: { select: { version: true } },
+} as const;
+
+/** A decision of the scope's site's coils; null otherwise. */
+export async function getClearance(scope: SiteScope, id: string) {
+  const row = await prisma.clearance.findUnique({ where: { id, ...recordOfSite(scope) }, include: clearanceInclude });
   if (!row) return null;
   return {
     ...row,
@@ -140,9 +153,9 @@ export async function getClearance(id: string) {
   };
 }
 
-export function listClearances(filter: { coilId?: string } = {}, take = 100) {
+export function listClearances(scope: SiteScope, filter: { coilId?: string } = {}, take = 100) {
   return prisma.clearance.findMany({
-    where: { coilId: filter.coilId },
+    where: { coilId: filter.coilId, ...recordOfSite(scope) },
     orderBy: [{ decidedAt: "desc" }, { id: "desc" }],
     take,
     include: { coil: { select: { tag: true, name: true } }, decidedBy: { select: { name: true } }, policy: { select: { version: true } } },
@@ -150,19 +163,24 @@ export function listClearances(filter: { coilId?: string } = {}, take = 100) {
 }
 
 /** Where a coil stands for lending now: its latest decision read against failures and part replacements since. */
-export async function getCoilClearanceState(coilId: string, now: Date = new Date()): Promise<ClearanceState> {
+export async function getCoilClearanceState(scope: SiteScope, coilId: string, now: Date = new Date()): Promise<ClearanceState> {
+  const ofCoil = { coilId, ...recordOfSite(scope) };
   const [latest, failures, components] = await Promise.all([
-    prisma.clearance.findFirst({ where: { coilId }, orderBy: { decidedAt: "desc" }, select: { id: true, decidedAt: true, validUntil: true, verdict: true } }),
-    prisma.failure.findMany({ where: { coilId }, select: { occurredAt: true, mode: true } }),
-    prisma.component.findMany({ where: { coilId }, select: { id: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
+    prisma.clearance.findFirst({ where: ofCoil, orderBy: [{ decidedAt: "desc" }, { id: "desc" }], select: { id: true, decidedAt: true, validUntil: true, verdict: true } }),
+    prisma.failure.findMany({ where: ofCoil, select: { occurredAt: true, mode: true } }),
+    prisma.component.findMany({ where: ofCoil, select: { id: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
   ]);
   return describeClearanceState(latest, failures, findPartReplacements(components), now);
 }
 
-/** The state of one given clearance (which may not be the coil's latest). */
-export async function getClearanceStateById(clearanceId: string, now: Date = new Date()): Promise<ClearanceState | null> {
-  const c = await prisma.clearance.findUnique({ where: { id: clearanceId }, select: { id: true, coilId: true, decidedAt: true, validUntil: true, verdict: true } });
-  if (!c) return null;
+/** The state of one given clearance of the scope's site (which may not be the coil's latest). */
+export async function getClearanceStateById(scope: SiteScope, clearanceId: string, now: Date = new Date()): Promise<ClearanceState | null> {
+  const c = await prisma.clearance.findUnique({ where: { id: clearanceId, ...recordOfSite(scope) }, select: { id: true, coilId: true, decidedAt: true, validUntil: true, verdict: true } });
+  return c ? describeStateOf(c, now) : null;
+}
+
+/** A decision's state from its coil's failures and part changes (the caller has found the decision in its reach). */
+async function describeStateOf(c: ClearanceDecisionRecord & { coilId: string }, now: Date): Promise<ClearanceState> {
   const [failures, components] = await Promise.all([
     prisma.failure.findMany({ where: { coilId: c.coilId }, select: { occurredAt: true, mode: true } }),
     prisma.component.findMany({ where: { coilId: c.coilId }, select: { id: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
@@ -171,12 +189,38 @@ export async function getClearanceStateById(clearanceId: string, now: Date = new
 }
 
 /**
+ * The clearance sheet: the decision, where it stands now and the coil's health verdict, for the site that owns the
+ * coil or a site that borrowed it under this very decision (a loan with borrowerSiteId = the scope's site and this
+ * clearance). `viewer` says which; null for any other site. The borrowing site reads only what the sheet prints.
+ */
+export async function getClearanceSheet(scope: SiteScope, id: string, now: Date = new Date()) {
+  const row = await prisma.clearance.findFirst({
+    where: { id, OR: [recordOfSite(scope), { loans: { some: { borrowerSiteId: scope.siteId } } }] },
+    include: clearanceInclude,
+  });
+  if (!row) return null;
+  const viewer: "lending-site" | "borrowing-site" = row.coil.siteId === scope.siteId ? "lending-site" : "borrowing-site";
+  // The coil is judged as its own site judges it, under that site's policy.
+  const lending: SiteScope = { siteId: row.coil.siteId, actorId: scope.actorId };
+  const [state, health] = await Promise.all([describeStateOf(row, now), getCoilHealthForClearance(lending, row.coilId, now)]);
+  return {
+    ...row,
+    rules: JSON.parse(row.ruleResultsJson) as ClearanceRuleResult[],
+    checklist: JSON.parse(row.checklistJson) as StoredChecklistAnswer[],
+    state,
+    health,
+    viewer,
+  };
+}
+
+/**
  * Records a detected lapse once (lapsedAt/lapseReason) with an audit entry, in one transaction. The
  * conditional update makes a second detection a no-op, so the first record is never overwritten.
  */
-export async function recordClearanceLapse(clearanceId: string, state: ClearanceState): Promise<boolean> {
+export async function recordClearanceLapse(scope: SiteScope, clearanceId: string, state: ClearanceState): Promise<boolean> {
   if (!isLapse(state)) return false;
-  return serializableTransaction((tx) => writeLapse(tx, clearanceId, state, null));
+  // No actor: the lapse happened (a failure, a part, the date); whoever opened the page only noticed it.
+  return serializableTransaction((tx) => writeLapse(tx, { siteId: scope.siteId, actorId: null }, clearanceId, state));
 }
 
 /**
@@ -184,9 +228,9 @@ export async function recordClearanceLapse(clearanceId: string, state: Clearance
  * coil's latest clearance, so no view waits for someone to open the decision page before the lapse is stored.
  * An expiry moves with the clock alone: every view works it out on read (describeClearanceState).
  */
-export async function recordLapseCausedByWrite(tx: Tx, coilId: string, actorId: string | null, now: Date = new Date()): Promise<boolean> {
+export async function recordLapseCausedByWrite(scope: SiteScope, tx: Tx, coilId: string, now: Date = new Date()): Promise<boolean> {
   const latest = await tx.clearance.findFirst({
-    where: { coilId },
+    where: { coilId, ...recordOfSite(scope) },
     orderBy: [{ decidedAt: "desc" }, { id: "desc" }],
     select: { id: true, decidedAt: true, validUntil: true, verdict: true, lapsedAt: true },
   });
@@ -197,18 +241,22 @@ export async function recordLapseCausedByWrite(tx: Tx, coilId: string, actorId: 
   ]);
   const state = describeClearanceState(latest, failures, findPartReplacements(components), now);
   if (state.kind !== "lapsed-failure" && state.kind !== "lapsed-part") return false;
-  return writeLapse(tx, latest.id, state, actorId);
+  return writeLapse(tx, scope, latest.id, state);
 }
 
 function isLapse(state: ClearanceState): boolean {
   return (state.kind === "expired" || state.kind === "lapsed-failure" || state.kind === "lapsed-part") && state.endedAt !== null;
 }
 
-async function writeLapse(tx: Tx, clearanceId: string, state: ClearanceState, actorId: string | null): Promise<boolean> {
+/** Writes the lapse of a decision of the scope's site (a decision of another site is left alone). */
+async function writeLapse(tx: Tx, scope: SiteScope, clearanceId: string, state: ClearanceState): Promise<boolean> {
   if (!isLapse(state) || !state.endedAt) return false;
-  const result = await tx.clearance.updateMany({ where: { id: clearanceId, lapsedAt: null, verdict: "cleared" }, data: { lapsedAt: state.endedAt, lapseReason: state.explanation } });
+  const result = await tx.clearance.updateMany({
+    where: { id: clearanceId, lapsedAt: null, verdict: "cleared", ...recordOfSite(scope) },
+    data: { lapsedAt: state.endedAt, lapseReason: state.explanation },
+  });
   if (result.count === 0) return false;
-  await recordAudit(tx, { actorId, action: "lapse", entity: "Clearance", entityId: clearanceId, summary: `Clearance ${state.label.toLowerCase()}`, detail: { reason: state.kind, explanation: state.explanation } });
+  await recordAudit(tx, { siteId: scope.siteId, actorId: scope.actorId, action: "lapse", entity: "Clearance", entityId: clearanceId, summary: `Clearance ${state.label.toLowerCase()}`, detail: { reason: state.kind, explanation: state.explanation } });
   return true;
 }
 
@@ -216,12 +264,12 @@ async function writeLapse(tx: Tx, clearanceId: string, state: ClearanceState, ac
  * Every decision, newest first, each with where it stands now, worked out on read exactly as the dashboard
  * and the decision page do (describeClearanceState), so no view depends on a lapse having been stored.
  */
-export async function listClearancesWithState(now: Date = new Date(), take = 100) {
-  const rows = await listClearances({}, take);
+export async function listClearancesWithState(scope: SiteScope, now: Date = new Date(), take = 100) {
+  const rows = await listClearances(scope, {}, take);
   const coilIds = [...new Set(rows.map((r) => r.coilId))];
   const [failures, components] = await Promise.all([
-    prisma.failure.findMany({ where: { coilId: { in: coilIds } }, select: { coilId: true, occurredAt: true, mode: true } }),
-    prisma.component.findMany({ where: { coilId: { in: coilIds } }, select: { id: true, coilId: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
+    prisma.failure.findMany({ where: { coilId: { in: coilIds }, ...recordOfSite(scope) }, select: { coilId: true, occurredAt: true, mode: true } }),
+    prisma.component.findMany({ where: { coilId: { in: coilIds }, ...recordOfSite(scope) }, select: { id: true, coilId: true, kind: true, partNumber: true, installedAt: true, removedAt: true } }),
   ]);
   const latestDecision = new Map<string, string>();
   for (const r of rows) if (!latestDecision.has(r.coilId)) latestDecision.set(r.coilId, r.id);
@@ -240,8 +288,8 @@ export async function listClearancesWithState(now: Date = new Date(), take = 100
  * The coil's health verdict now, under the current policy: the one judgement the dashboard and the coil
  * page show (the stored summary, recomputed when stale), so a coil on watch is never cleared in silence.
  */
-export async function getCoilHealthForClearance(coilId: string, now: Date = new Date()): Promise<{ status: HealthStatus; reasons: string[] } | null> {
-  const policy = await getCurrentPolicy();
-  const figures = (await getCoilFigures([coilId], policy, now)).get(coilId);
+export async function getCoilHealthForClearance(scope: SiteScope, coilId: string, now: Date = new Date()): Promise<{ status: HealthStatus; reasons: string[] } | null> {
+  const policy = await getCurrentPolicy(scope);
+  const figures = (await getCoilFigures(scope, [coilId], policy, now)).get(coilId);
   return figures ? { status: figures.health, reasons: figures.reasons } : null;
 }

@@ -10,6 +10,11 @@
  *    passing of time alone would change the verdict;
  *  - anything else is recomputed and stored with a conditional update (only where revision is still the one read
  *    before the logbook was), so a write racing the computation leaves the row stale instead of wrongly fresh.
+ *
+ * The policy version stored is the coil's site's effective version (lib/db/policy.ts: max of the site's and the
+ * default's latest), so a site tightening its policy re-judges its own coils only. Reads and stores are narrowed to
+ * the scope's site; markCoilChanged is the exception, called inside a write that has already found the coil in its
+ * scope, and it returns nothing.
  */
 import { prisma, type Tx } from "./client";
 import { Prisma, type CoilSummary } from "./generated/client";
@@ -20,6 +25,7 @@ import { computeHealthValidUntil } from "../analysis/health-validity";
 import type { HealthStatus } from "../calc/coil-health";
 import { briefSessionMargins, type SessionMarginsBrief } from "../analysis/margin-brief";
 import { collectHeadroomTrend, type HeadroomTrend } from "../analysis/headroom-trend";
+import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 
 /** Records that the coil's logbook changed. Call it in the same transaction as the write. */
 export async function markCoilChanged(tx: Tx, coilId: string): Promise<void> {
@@ -82,7 +88,7 @@ export function readCurrentFigures(row: CoilSummary, policyVersion: number, now:
   };
 }
 
-/** Rows for coils that have none yet (added before this table, or straight into the database), at revision 0. */
+/** Rows for coils that have none yet (added before this table, or straight into the database), at revision 0. The ids are the caller's, read at its site. */
 async function createMissingSummaries(coilIds: readonly string[]): Promise<void> {
   if (coilIds.length === 0) return;
   try {
@@ -114,12 +120,12 @@ export interface ComputedFigures {
  * Stores figures only where the coil's revision is still the one they were computed from; returns the coil ids
  * stored. Each update is one conditional statement, so no write can slip between the check and the store.
  */
-export async function storeCoilFigures(computed: readonly ComputedFigures[], policyVersion: number, computedAt: Date): Promise<string[]> {
+export async function storeCoilFigures(scope: SiteScope, computed: readonly ComputedFigures[], policyVersion: number, computedAt: Date): Promise<string[]> {
   if (computed.length === 0) return [];
   const results = await prisma.$transaction(
     computed.map(({ coilId, fromRevision, figures }) =>
       prisma.coilSummary.updateMany({
-        where: { coilId, revision: fromRevision },
+        where: { coilId, revision: fromRevision, ...recordOfSite(scope) },
         data: {
           computedRevision: fromRevision,
           policyVersion,
@@ -140,9 +146,17 @@ export async function storeCoilFigures(computed: readonly ComputedFigures[], pol
   return computed.filter((_, i) => results[i]!.count === 1).map((c) => c.coilId);
 }
 
-/** Reads each coil's revision, then its health window, and computes its figures (the slow path, kept for stale rows). */
-export async function computeFiguresFor(coilIds: readonly string[], revisions: ReadonlyMap<string, number>, policy: PolicyVersion, now: Date): Promise<ComputedFigures[]> {
-  const histories = await getFleetHealthHistory(coilIds);
+/** Reads each coil's health window and computes its figures (the slow path, kept for stale rows); coils of other sites are left out. */
+export async function computeFiguresFor(
+  scope: SiteScope,
+  coilIds: readonly string[],
+  revisions: ReadonlyMap<string, number>,
+  policy: PolicyVersion,
+  now: Date,
+): Promise<ComputedFigures[]> {
+  const ofSite = await prisma.coil.findMany({ where: { id: { in: [...coilIds] }, ...coilOfSite(scope) }, select: { id: true } });
+  if (ofSite.length === 0) return [];
+  const histories = await getFleetHealthHistory(ofSite.map((coil) => coil.id));
   return histories.map((history) => ({ coilId: history.coil.id, fromRevision: revisions.get(history.coil.id) ?? 0, figures: computeCoilFigures(history, policy, now) }));
 }
 
@@ -150,8 +164,10 @@ export async function computeFiguresFor(coilIds: readonly string[], revisions: R
  * Every listed coil's figures at `now`: stored ones where still current, the rest recomputed and stored.
  * The revisions are read before any logbook row, which is what makes the conditional store safe.
  */
-export async function getCoilFigures(coilIds: readonly string[], policy: PolicyVersion, now: Date): Promise<Map<string, CoilFigures>> {
-  const rows = await prisma.$queryRaw<CoilSummary[]>`SELECT * FROM "CoilSummary"`; // raw: lib/db/raw-read.ts says why
+export async function getCoilFigures(scope: SiteScope, coilIds: readonly string[], policy: PolicyVersion, now: Date): Promise<Map<string, CoilFigures>> {
+  // Raw (lib/db/raw-read.ts says why); the site's coils only, so a listed coil of another site is simply not found.
+  const rows = await prisma.$queryRaw<CoilSummary[]>`
+    SELECT s.* FROM "CoilSummary" s JOIN "Coil" ON "Coil".id = s."coilId" WHERE "Coil"."siteId" = ${scope.siteId}`;
   const rowByCoil = new Map(rows.map((row) => [row.coilId, row]));
   const figures = new Map<string, CoilFigures>();
   const stale: string[] = [];
@@ -162,10 +178,21 @@ export async function getCoilFigures(coilIds: readonly string[], policy: PolicyV
     else stale.push(coilId);
   }
   if (stale.length === 0) return figures;
-  await createMissingSummaries(stale.filter((coilId) => !rowByCoil.has(coilId)));
+  // A coil without a row is either new at this site or another site's: only the first gets one.
+  const missing = stale.filter((coilId) => !rowByCoil.has(coilId));
+  const missingOfSite = new Set(
+    missing.length === 0 ? [] : (await prisma.coil.findMany({ where: { id: { in: missing }, ...coilOfSite(scope) }, select: { id: true } })).map((coil) => coil.id),
+  );
+  await createMissingSummaries([...missingOfSite]);
   const revisions = new Map(stale.map((coilId) => [coilId, rowByCoil.get(coilId)?.revision ?? 0]));
-  const computed = await computeFiguresFor(stale, revisions, policy, now);
-  await storeCoilFigures(computed, policy.version, now);
+  const computed = await computeFiguresFor(
+    scope,
+    stale.filter((coilId) => rowByCoil.has(coilId) || missingOfSite.has(coilId)),
+    revisions,
+    policy,
+    now,
+  );
+  await storeCoilFigures(scope, computed, policy.version, now);
   for (const c of computed) figures.set(c.coilId, c.figures);
   return figures;
 }

@@ -1,4 +1,4 @@
-/** Failures and post-mortems: reads and writes. */
+/** Failures and post-mortems: reads and writes, each narrowed to the scope's site through the failure's coil. */
 import { prisma } from "./client";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
 import type { Prisma } from "./generated/client";
@@ -10,13 +10,16 @@ import { serializableTransaction } from "./serializable";
 import { RecordRefusedError } from "./record-refused";
 import { recordLapseCausedByWrite } from "./clearances";
 import type { FailureInput, PostMortemInput } from "../validation/failure";
+import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 
 export async function listFailures(
+  scope: SiteScope,
   filter: { q?: string; status?: "open" | "closed"; mode?: FailureMode } = {},
   pageRequest: Partial<PageRequest> = {},
 ) {
   const request = normalizePage(pageRequest);
   const where: Prisma.FailureWhereInput = {
+    ...recordOfSite(scope),
     status: filter.status,
     mode: filter.mode,
     ...(filter.q ? { OR: [{ symptoms: textContains(filter.q) }, { rootCause: textContains(filter.q) }, { coil: { tag: textContains(filter.q) } }] } : {}),
@@ -39,9 +42,10 @@ export async function listFailures(
  * and the part must have been fitted when the failure occurred. A failure recorded from a session
  * sets that session's outcome to "failed" in the same transaction.
  */
-export async function createFailure(actorId: string, input: FailureInput) {
+export async function createFailure(scope: SiteScope, input: FailureInput) {
+  const actorId = scope.actorId;
   return prisma.$transaction(async (tx) => {
-    const coil = await tx.coil.findUnique({ where: { id: input.coilId }, select: { id: true, tag: true } });
+    const coil = await tx.coil.findUnique({ where: { id: input.coilId, ...coilOfSite(scope) }, select: { id: true, tag: true, siteId: true } });
     if (!coil) throw new RecordRefusedError("coilId", "Coil: that coil does not exist.");
     if (input.sessionId) {
       const session = await tx.runSession.findUnique({ where: { id: input.sessionId }, select: { coilId: true, startedAt: true } });
@@ -57,20 +61,20 @@ export async function createFailure(actorId: string, input: FailureInput) {
     }
     const failure = await tx.failure.create({ data: { ...input, reportedById: actorId, status: "open" } });
     await markCoilChanged(tx, coil.id);
-    await recordLapseCausedByWrite(tx, coil.id, actorId);
-    await recordAudit(tx, { actorId, action: "create", entity: "Failure", entityId: failure.id, summary: `Recorded a ${input.mode} failure on ${coil.tag}`, detail: input });
+    await recordLapseCausedByWrite(scope, tx, coil.id);
+    await recordAudit(tx, { siteId: coil.siteId, actorId, action: "create", entity: "Failure", entityId: failure.id, summary: `Recorded a ${input.mode} failure on ${coil.tag}`, detail: input });
     if (input.sessionId) {
       await tx.runSession.update({ where: { id: input.sessionId }, data: { outcome: "failed" } });
-      await recordAudit(tx, { actorId, action: "update", entity: "RunSession", entityId: input.sessionId, summary: `Outcome set to failed by failure ${failure.id}` });
+      await recordAudit(tx, { siteId: coil.siteId, actorId, action: "update", entity: "RunSession", entityId: input.sessionId, summary: `Outcome set to failed by failure ${failure.id}` });
     }
     return { ...failure, coilTag: coil.tag };
   });
 }
 
 /** A failure with its coil's parts, the session it came from and the sessions before it (with samples, for their margins). */
-export async function getFailureDetail(id: string, sessionsBefore = 5) {
+export async function getFailureDetail(scope: SiteScope, id: string, sessionsBefore = 5) {
   const failure = await prisma.failure.findUnique({
-    where: { id },
+    where: { id, ...recordOfSite(scope) },
     include: {
       coil: { include: { components: { orderBy: { installedAt: "asc" } } } },
       component: true,
@@ -82,7 +86,7 @@ export async function getFailureDetail(id: string, sessionsBefore = 5) {
   });
   if (!failure) return null;
   const recentSessions = await prisma.runSession.findMany({
-    where: { coilId: failure.coilId, startedAt: { lte: failure.occurredAt } },
+    where: { coilId: failure.coilId, startedAt: { lte: failure.occurredAt }, ...recordOfSite(scope) },
     orderBy: { startedAt: "desc" },
     take: sessionsBefore,
     include: { samples: { orderBy: { elapsedS: "asc" }, select: { elapsedS: true, temperatureC: true } } },
@@ -98,9 +102,10 @@ export type FailureDetail = NonNullable<Awaited<ReturnType<typeof getFailureDeta
  * by it. Any refusal (already closed, part already replaced, replacement fitted before the failure)
  * rolls back everything, so nothing is half-written.
  */
-export async function completePostMortem(actorId: string, input: PostMortemInput) {
+export async function completePostMortem(scope: SiteScope, input: PostMortemInput) {
+  const actorId = scope.actorId;
   return serializableTransaction(async (tx) => {
-    const failure = await tx.failure.findUnique({ where: { id: input.failureId }, include: { coil: { select: { tag: true } }, component: true } });
+    const failure = await tx.failure.findUnique({ where: { id: input.failureId, ...recordOfSite(scope) }, include: { coil: { select: { tag: true, siteId: true } }, component: true } });
     if (!failure) throw new RecordRefusedError("failureId", "That failure does not exist.");
     if (failure.status === "closed") throw new RecordRefusedError("_form", "This post-mortem was already completed.", true);
     const closedAt = new Date();
@@ -114,6 +119,7 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
     if (closed.count === 0) throw new RecordRefusedError("_form", "This post-mortem was completed by someone else just now.", true);
     await markCoilChanged(tx, failure.coilId);
     await recordAudit(tx, {
+      siteId: failure.coil.siteId,
       actorId,
       action: "update",
       entity: "Failure",
@@ -141,8 +147,9 @@ export async function completePostMortem(actorId: string, input: PostMortemInput
     });
     if (removed.count === 0) throw new RecordRefusedError("replacement.partNumber", `Replacement: ${failed.partNumber} was replaced by someone else just now.`, true);
     await tx.failure.update({ where: { id: failure.id }, data: { replacementComponentId: replacement.id } });
-    await recordLapseCausedByWrite(tx, failure.coilId, actorId);
+    await recordLapseCausedByWrite(scope, tx, failure.coilId);
     await recordAudit(tx, {
+      siteId: failure.coil.siteId,
       actorId,
       action: "create",
       entity: "Component",

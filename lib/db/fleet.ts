@@ -4,6 +4,8 @@
  * (coil-summary.ts: stored, recomputed only for coils written to since, under a new policy, or past their
  * validUntil); what moves with the clock alone and is cheap — days since the sweep, clearance lapse, overdue loans,
  * open failures — is worked out here at read time. Filtered and sorted on the server from the query string.
+ * The fleet is the scope's site's: every statement joins the coil and filters on its site. A coil lent to another
+ * site stays in its own site's fleet (with its loan) and never appears in the borrowing site's.
  */
 import { prisma } from "./client";
 import type { Clearance, Coil, Component, Failure, Loan } from "./generated/client";
@@ -18,6 +20,7 @@ import type { HeadroomTrend } from "../analysis/headroom-trend";
 import type { FleetQuery } from "../validation/fleet-query";
 import { collectPartKinds, computePartExposures, countFailureModesByPart } from "../analysis/part-hours";
 import { partReliability } from "../calc/reliability";
+import { recordOfSite, type SiteScope } from "./site-scope";
 
 export interface FleetRow {
   id: string;
@@ -50,10 +53,11 @@ function groupByCoil<T extends { coilId: string }>(rows: readonly T[]): Map<stri
  * Each coil's latest clearance (the latest decision; ties on the instant broken by id), walking the
  * (coilId, decidedAt) index. Prisma's `distinct` would read every clearance ever signed and drop the rest in memory.
  */
-export function readLatestClearances() {
+export function readLatestClearances(scope: SiteScope) {
   return prisma.$queryRaw<Pick<Clearance, "id" | "coilId" | "verdict" | "decidedAt" | "validUntil">[]>`
-    SELECT c.id, c."coilId", c.verdict, c."decidedAt", c."validUntil" FROM "Clearance" c
-    WHERE NOT EXISTS (SELECT 1 FROM "Clearance" d WHERE d."coilId" = c."coilId"
+    SELECT c.id, c."coilId", c.verdict, c."decidedAt", c."validUntil" FROM "Clearance" c JOIN "Coil" ON "Coil".id = c."coilId"
+    WHERE "Coil"."siteId" = ${scope.siteId}
+      AND NOT EXISTS (SELECT 1 FROM "Clearance" d WHERE d."coilId" = c."coilId"
                         AND (d."decidedAt" > c."decidedAt" OR (d."decidedAt" = c."decidedAt" AND d.id > c.id)))`;
 }
 
@@ -61,21 +65,25 @@ export function readLatestClearances() {
  * The dashboard's rows. Its reads are raw statements (lib/db/raw-read.ts says why): seven small reads were most of
  * the warm dashboard's time when they went through Prisma's query API.
  */
-export async function getFleetOverview(now: Date = new Date()): Promise<FleetRow[]> {
+export async function getFleetOverview(scope: SiteScope, now: Date = new Date()): Promise<FleetRow[]> {
+  const site = scope.siteId;
   const [coils, policy, failures, clearances, loans, components] = await Promise.all([
-    prisma.$queryRaw<Pick<Coil, "id" | "tag" | "name" | "status">[]>`SELECT id, tag, name, status FROM "Coil" ORDER BY tag`,
-    getCurrentPolicy(),
-    prisma.$queryRaw<Pick<Failure, "coilId" | "occurredAt" | "mode" | "status">[]>`SELECT "coilId", "occurredAt", mode, status FROM "Failure"`,
-    readLatestClearances(),
+    prisma.$queryRaw<Pick<Coil, "id" | "tag" | "name" | "status">[]>`SELECT id, tag, name, status FROM "Coil" WHERE "siteId" = ${site} ORDER BY tag`,
+    getCurrentPolicy(scope),
+    prisma.$queryRaw<Pick<Failure, "coilId" | "occurredAt" | "mode" | "status">[]>`
+      SELECT f."coilId", f."occurredAt", f.mode, f.status FROM "Failure" f JOIN "Coil" ON "Coil".id = f."coilId" WHERE "Coil"."siteId" = ${site}`,
+    readLatestClearances(scope),
     prisma.$queryRaw<Pick<Loan, "id" | "coilId" | "borrower" | "event" | "expectedBackAt">[]>`
-      SELECT id, "coilId", borrower, event, "expectedBackAt" FROM "Loan" WHERE "returnedAt" IS NULL`,
+      SELECT l.id, l."coilId", l.borrower, l.event, l."expectedBackAt" FROM "Loan" l JOIN "Coil" ON "Coil".id = l."coilId"
+      WHERE "Coil"."siteId" = ${site} AND l."returnedAt" IS NULL`,
     // Parts only for the clearance lapse check (a part fitted since signing), so only for coils that have a
     // clearance: a coil never cleared shows "none" whatever its parts.
     prisma.$queryRaw<Pick<Component, "id" | "coilId" | "kind" | "partNumber" | "installedAt" | "removedAt">[]>`
-      SELECT id, "coilId", kind, "partNumber", "installedAt", "removedAt" FROM "Component"
-      WHERE "coilId" IN (SELECT "coilId" FROM "Clearance") ORDER BY "installedAt", id`,
+      SELECT p.id, p."coilId", p.kind, p."partNumber", p."installedAt", p."removedAt" FROM "Component" p JOIN "Coil" ON "Coil".id = p."coilId"
+      WHERE "Coil"."siteId" = ${site} AND p."coilId" IN (SELECT "coilId" FROM "Clearance") ORDER BY p."installedAt", p.id`,
   ]);
   const figuresByCoil = await getCoilFigures(
+    scope,
     coils.map((c) => c.id),
     policy,
     now,
@@ -137,9 +145,10 @@ export function selectFleetRows(rows: readonly FleetRow[], query: FleetQuery): F
   return [...kept].sort(compare[query.sort]);
 }
 
-/** Reliability per part number across the fleet: hours while fitted and failures recorded against the part. */
-export async function getPartReliability() {
-  const [histories, failures] = await Promise.all([getFleetHistory(), prisma.failure.findMany({ select: { componentId: true, mode: true } })]);
+/** Reliability per part number across the site's fleet: hours while fitted and failures recorded against the part. */
+export async function getPartReliability(scope: SiteScope) {
+  const [allHistories, failures] = await Promise.all([getFleetHistory(), prisma.failure.findMany({ where: recordOfSite(scope), select: { componentId: true, mode: true } })]);
+  const histories = allHistories.filter((history) => history.coil.siteId === scope.siteId);
   const exposures = computePartExposures(histories, failures);
   const kinds = collectPartKinds(exposures);
   const modes = countFailureModesByPart(exposures, failures);

@@ -32,8 +32,16 @@ export const loanCreateSchema = z.object({
   borrowerContact: z.string().trim().max(200, { error: "Contact: at most 200 characters." }).default(""),
   event: z.string({ error: "Event: required." }).trim().min(2, { error: "Event: at least 2 characters." }).max(200, { error: "Event: at most 200 characters." }),
   expectedBackAt: localDateField("Expected back"),
+  /** Another site's event borrows the coil; empty (or absent) for a loan within the coil's own site. */
+  borrowerSiteId: z
+    .string({ error: "Borrowing site: choose one of the sites listed." })
+    .trim()
+    .max(100, { error: "Borrowing site: choose one of the sites listed." })
+    .nullish()
+    .transform((id) => (id ? id : null)),
 });
-export type LoanCreateInput = z.output<typeof loanCreateSchema>;
+/** The borrowing site may be left out by callers that lend within the site (scripts, tests). */
+export type LoanCreateInput = Omit<z.output<typeof loanCreateSchema>, "borrowerSiteId"> & { borrowerSiteId?: string | null };
 
 export const loanReturnSchema = z.object({
   loanId: z.string().min(1, { error: "Loan: missing." }),

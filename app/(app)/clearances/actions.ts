@@ -11,7 +11,7 @@ import { echoForm, invalid, refused, type ActionResult } from "@/lib/validation/
 /** Signs a clearance decision. The rules are evaluated again on the server; the form's view of them is never trusted. */
 export async function signClearanceAction(_previous: ActionResult<null> | null, form: FormData): Promise<ActionResult<null>> {
   const result = await guardAction<string>("steward", async (user) => {
-    const policy = await getCurrentPolicy();
+    const policy = await getCurrentPolicy(user.scope);
     const parsed = clearanceDecisionSchema.safeParse({
       coilId: form.get("coilId"),
       verdict: form.get("verdict") ?? undefined,
@@ -22,7 +22,7 @@ export async function signClearanceAction(_previous: ActionResult<null> | null, 
     });
     if (!parsed.success) return invalid(parsed.error, "Some fields need attention.", echoForm(form));
     try {
-      const clearance = await signClearance(user.id, parsed.data);
+      const clearance = await signClearance(user.scope, parsed.data);
       return { ok: true, data: clearance.id };
     } catch (error) {
       if (error instanceof ClearanceRefusedError) {

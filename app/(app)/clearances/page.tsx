@@ -8,8 +8,8 @@ import { ClearanceBadge } from "./clearance-badge";
 export const metadata: Metadata = { title: "Clearances" };
 
 export default async function ClearancesPage() {
-  await pageUser();
-  const rows = await listClearancesWithState();
+  const user = await pageUser();
+  const rows = await listClearancesWithState(user.scope);
   return (
     <>
       <h1>Clearance decisions</h1>

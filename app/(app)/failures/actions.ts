@@ -20,7 +20,7 @@ export async function recordFailure(_previous: ActionResult<null> | null, form: 
     const parsed = failureSchema.safeParse(values);
     if (!parsed.success) return invalid(parsed.error, "The failure was not recorded: some fields need attention.", values);
     try {
-      const failure = await createFailure(user.id, parsed.data);
+      const failure = await createFailure(user.scope, parsed.data);
       revalidatePath("/failures");
       revalidatePath("/sessions");
       revalidatePath(`/coils/${failure.coilTag}`);
@@ -51,7 +51,7 @@ export async function completePostMortemAction(_previous: ActionResult<null> | n
     const parsed = postMortemSchema.safeParse({ failureId: values.failureId, mode: values.mode || undefined, rootCause: values.rootCause, correctiveAction: values.correctiveAction, replacement });
     if (!parsed.success) return invalid(parsed.error, "The post-mortem was not completed: some fields need attention.", values);
     try {
-      const done = await completePostMortem(user.id, parsed.data);
+      const done = await completePostMortem(user.scope, parsed.data);
       revalidatePath(`/failures/${done.failureId}`);
       revalidatePath("/failures");
       revalidatePath("/coils", "layout");

@@ -11,9 +11,9 @@ import { FAILURE_MODE_LABEL } from "@/app/ui/labels";
 export const metadata: Metadata = { title: "Failures" };
 
 export default async function FailuresPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser();
+  const user = await pageUser();
   const query = failureListQuerySchema.parse(await searchParams);
-  const result = await listFailures({ q: query.q, status: query.status, mode: query.mode }, { page: query.page });
+  const result = await listFailures(user.scope, { q: query.q, status: query.status, mode: query.mode }, { page: query.page });
   return (
     <>
       <div className="page-head">

@@ -20,10 +20,11 @@ export async function lendCoilAction(_previous: ActionResult<null> | null, form:
       borrowerContact: form.get("borrowerContact") ?? "",
       event: form.get("event"),
       expectedBackAt: form.get("expectedBackAt"),
+      borrowerSiteId: form.get("borrowerSiteId"),
     });
     if (!parsed.success) return invalid(parsed.error, "Some fields need attention.", echoForm(form));
     try {
-      const loan = await createLoan(user.id, parsed.data);
+      const loan = await createLoan(user.scope, parsed.data);
       return { ok: true, data: loan.id };
     } catch (error) {
       if (error instanceof LoanRefusedError) return refusal(error, form);
@@ -49,7 +50,7 @@ export async function returnLoanAction(_previous: ActionResult<null> | null, for
     });
     if (!parsed.success) return invalid(parsed.error, "Some fields need attention.", echoForm(form));
     try {
-      const loan = await returnLoan(user.id, parsed.data);
+      const loan = await returnLoan(user.scope, parsed.data);
       return { ok: true, data: loan.id };
     } catch (error) {
       if (error instanceof LoanRefusedError) return refusal(error, form);

@@ -2,11 +2,12 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
-import { listLoans, listLoansNeedingRecall } from "@/lib/db/loans";
+import { listBorrowedLoans, listLoans, listLoansNeedingRecall } from "@/lib/db/loans";
 import { loanListQuerySchema, type SearchParams } from "@/lib/validation/list-query";
 import { formatDate } from "@/lib/units/format";
 import { Pagination } from "@/app/ui/pagination";
 import { FilterForm } from "@/app/ui/list-filters";
+import { ClearanceBadge } from "../clearances/clearance-badge";
 
 export const metadata: Metadata = { title: "Loans" };
 
@@ -15,7 +16,11 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
   const steward = hasRole(user.role, "steward");
   const query = loanListQuerySchema.parse(await searchParams);
   const now = new Date();
-  const [result, recalls] = await Promise.all([listLoans({ state: query.state }, { page: query.page }, now), listLoansNeedingRecall(now)]);
+  const [result, recalls, borrowed] = await Promise.all([
+    listLoans(user.scope, { state: query.state }, { page: query.page }, now),
+    listLoansNeedingRecall(user.scope, now),
+    listBorrowedLoans(user.scope, { state: query.state }, now),
+  ]);
   const recallByLoan = new Map(recalls.map((r) => [r.loanId, r]));
   return (
     <>
@@ -71,7 +76,10 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
                   <td className="nowrap">
                     <Link href={`/coils/${encodeURIComponent(loan.coil.tag)}`}>{loan.coil.tag}</Link>
                   </td>
-                  <td>{loan.borrower}</td>
+                  <td>
+                    {loan.borrower}
+                    {loan.borrowerSite && <span className="muted"> ({loan.borrowerSite.name})</span>}
+                  </td>
                   <td>{loan.event}</td>
                   <td className="nowrap">{formatDate(loan.outAt)}</td>
                   <td className="nowrap">{formatDate(loan.expectedBackAt)}</td>
@@ -113,6 +121,63 @@ export default async function LoansPage({ searchParams }: { searchParams: Promis
         </table>
       </div>
       <Pagination basePath="/loans" params={{ state: query.state }} page={result.page} pageCount={result.pageCount} total={result.total} />
+      {borrowed.length > 0 && (
+        <section aria-labelledby="borrowed-heading">
+          <h2 id="borrowed-heading">Borrowed from other sites</h2>
+          <p className="muted">
+            Coils other sites lent to {user.site.name}&apos;s events: their loan sheet and clearance sheet. The lending site keeps the coil&apos;s record and takes
+            it back.
+          </p>
+          <div className="table-wrap">
+            <table>
+              <caption>
+                {borrowed.length} loan{borrowed.length === 1 ? "" : "s"} from other sites
+              </caption>
+              <thead>
+                <tr>
+                  <th scope="col">Coil</th>
+                  <th scope="col">From</th>
+                  <th scope="col">Borrower</th>
+                  <th scope="col">Event</th>
+                  <th scope="col">Out</th>
+                  <th scope="col">Expected back</th>
+                  <th scope="col">Returned</th>
+                  <th scope="col">Clearance now</th>
+                  <th scope="col">
+                    <span className="visually-hidden">Sheets</span>
+                  </th>
+                </tr>
+              </thead>
+              <tbody>
+                {borrowed.map((loan) => (
+                  <tr key={loan.id} className={!loan.returnedAt && loan.expectedBackAt < now ? "row-overdue" : undefined}>
+                    <td className="nowrap">
+                      {loan.coil.tag} <span className="muted">{loan.coil.name}</span>
+                    </td>
+                    <td>{loan.lendingSite}</td>
+                    <td>{loan.borrower}</td>
+                    <td>{loan.event}</td>
+                    <td className="nowrap">{formatDate(loan.outAt)}</td>
+                    <td className="nowrap">{formatDate(loan.expectedBackAt)}</td>
+                    <td className="nowrap">{formatDate(loan.returnedAt)}</td>
+                    <td>
+                      <ClearanceBadge state={loan.clearanceState} withReason />
+                    </td>
+                    <td>
+                      <Link href={`/loans/${loan.id}/sheet`} aria-label={`Loan sheet for ${loan.coil.tag} from ${loan.lendingSite}`}>
+                        Loan sheet
+                      </Link>{" "}
+                      <Link href={`/clearances/${loan.clearanceId}/sheet`} aria-label={`Clearance sheet for ${loan.coil.tag} from ${loan.lendingSite}`}>
+                        Clearance sheet
+                      </Link>
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </section>
+      )}
     </>
   );
 }

@@ -14,11 +14,11 @@ export const metadata: Metadata = { title: "Clearance decision" };
 export default async function ClearancePage({ params }: { params: Promise<{ id: string }> }) {
   const user = await pageUser();
   const { id } = await params;
-  const clearance = await getClearance(id);
+  const clearance = await getClearance(user.scope, id);
   if (!clearance) notFound();
-  const [state, health] = await Promise.all([getClearanceStateById(id).then((s) => s!), getCoilHealthForClearance(clearance.coilId)]);
+  const [state, health] = await Promise.all([getClearanceStateById(user.scope, id).then((s) => s!), getCoilHealthForClearance(user.scope, clearance.coilId)]);
   // A lapse is recorded the first time it is seen (once; never overwritten).
-  if (!clearance.lapsedAt) await recordClearanceLapse(id, state);
+  if (!clearance.lapsedAt) await recordClearanceLapse(user.scope, id, state);
   return (
     <>
       <div className="page-head">

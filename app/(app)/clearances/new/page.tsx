@@ -14,13 +14,13 @@ import { HealthVerdict, describeChecksWithHealth } from "../health-verdict";
 export const metadata: Metadata = { title: "Clear a coil for lending" };
 
 export default async function NewClearancePage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser("steward");
+  const user = await pageUser("steward");
   const tag = (await searchParams).coil;
   if (typeof tag !== "string" || tag === "") notFound();
-  const coil = await getCoilByTag(tag);
+  const coil = await getCoilByTag(user.scope, tag);
   if (!coil) notFound();
   const now = new Date();
-  const [evaluated, health] = await Promise.all([evaluateCoilForClearance(coil.id, {}, now), getCoilHealthForClearance(coil.id, now)]);
+  const [evaluated, health] = await Promise.all([evaluateCoilForClearance(user.scope, coil.id, {}, now), getCoilHealthForClearance(user.scope, coil.id, now)]);
   if (!evaluated) notFound();
   const { policy, evaluation, latestSession, latestAnalysis, latestSweep, maxRun, hardestSessionIds } = evaluated;
   const dataRules = evaluation.rules.filter((r) => !r.id.startsWith("checklist:"));

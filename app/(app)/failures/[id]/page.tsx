@@ -17,7 +17,7 @@ export const metadata: Metadata = { title: "Post-mortem" };
 
 export default async function PostMortemPage({ params }: Props) {
   const user = await pageUser("member");
-  const { failure, analysis } = await loadPostMortem((await params).id);
+  const { failure, analysis } = await loadPostMortem(user.scope, (await params).id);
   const tag = failure.coil.tag;
   const part = failure.component;
   const replaceable = part && part.removedAt === null ? part : null;

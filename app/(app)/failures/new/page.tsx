@@ -17,17 +17,17 @@ type Props = { searchParams: Promise<{ coil?: string | string[]; session?: strin
 const first = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v)?.trim();
 
 export default async function NewFailurePage({ searchParams }: Props) {
-  await pageUser("member");
+  const user = await pageUser("member");
   const query = await searchParams;
   const tag = first(query.coil)?.toUpperCase();
-  const coil = tag ? await getCoilByTag(tag) : null;
+  const coil = tag ? await getCoilByTag(user.scope, tag) : null;
 
   if (!coil) {
-    const coils = await listCoilChoices();
+    const coils = await listCoilChoices(user.scope);
     return <CoilPicker title="Record a failure" unknownTag={tag} coils={coils} />;
   }
 
-  const recent = await listSessions({ coilTag: coil.tag }, { pageSize: 15 });
+  const recent = await listSessions(user.scope, { coilTag: coil.tag }, { pageSize: 15 });
   const sessionId = first(query.session);
   const session = recent.rows.find((s) => s.id === sessionId) ?? null;
   // The failure is taken to have happened at the end of its session, unless that is still to come.

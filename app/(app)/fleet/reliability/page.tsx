@@ -9,8 +9,8 @@ export const metadata: Metadata = { title: "Fleet reliability" };
 const hours = (h: number | null) => (h === null ? "—" : Number.isFinite(h) ? formatNumber(h, h < 10 ? 1 : 0, "h") : "no ceiling");
 
 export default async function ReliabilityPage() {
-  await pageUser();
-  const { parts, unattributedFailures } = await getPartReliability();
+  const user = await pageUser();
+  const { parts, unattributedFailures } = await getPartReliability(user.scope);
   return (
     <>
       <h1>Fleet reliability per part</h1>

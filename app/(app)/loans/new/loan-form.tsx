@@ -11,7 +11,8 @@ const FIELDS = [
   { name: "expectedBackAt", label: "Expected back", type: "date", hint: "Must be before the clearance runs out." },
 ] as const;
 
-export function LoanForm({ coilId, defaultBackDate }: { coilId: string; defaultBackDate: string }) {
+/** `otherSites`: the sites whose events may borrow the coil (they then see the loan and clearance sheets only). */
+export function LoanForm({ coilId, defaultBackDate, siteName, otherSites }: { coilId: string; defaultBackDate: string; siteName: string; otherSites: { id: string; name: string }[] }) {
   const [state, action, pending] = useActionState(lendCoilAction, null);
   const values = state && !state.ok ? state.values : undefined;
   return (
@@ -35,6 +36,29 @@ export function LoanForm({ coilId, defaultBackDate }: { coilId: string; defaultB
           <FieldError id={`${f.name}-error`} state={state} field={f.name} />
         </div>
       ))}
+      {otherSites.length > 0 && (
+        <div className="field">
+          <label htmlFor="borrowerSiteId">Borrowing site</label>
+          <select
+            id="borrowerSiteId"
+            name="borrowerSiteId"
+            defaultValue={values?.borrowerSiteId ?? ""}
+            aria-describedby="borrowerSiteId-hint borrowerSiteId-error"
+            aria-invalid={state && !state.ok && state.fieldErrors.borrowerSiteId ? true : undefined}
+          >
+            <option value="">{siteName} (this site)</option>
+            {otherSites.map((site) => (
+              <option key={site.id} value={site.id}>
+                {site.name}
+              </option>
+            ))}
+          </select>
+          <span id="borrowerSiteId-hint" className="hint">
+            For another site&apos;s event: that site then sees this loan&apos;s sheet and the clearance sheet, nothing else of {siteName}.
+          </span>
+          <FieldError id="borrowerSiteId-error" state={state} field="borrowerSiteId" />
+        </div>
+      )}
       <button type="submit" disabled={pending}>
         Lend coil
       </button>

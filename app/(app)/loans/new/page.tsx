@@ -5,6 +5,7 @@ import { pageUser } from "@/app/ui/page-guard";
 import { SafetyCautions } from "@/app/ui/safety-cautions";
 import { getCoilByTag } from "@/lib/db/coils";
 import { getClearance, getCoilClearanceState } from "@/lib/db/clearances";
+import { listBorrowerSites } from "@/lib/db/loans";
 import { describeLendingBlock } from "@/lib/analysis/clearance-state";
 import type { SearchParams } from "@/lib/validation/list-query";
 import { formatDate, formatDuration, formatNumber } from "@/lib/units/format";
@@ -14,14 +15,14 @@ import { LoanForm } from "./loan-form";
 export const metadata: Metadata = { title: "Lend a coil" };
 
 export default async function NewLoanPage({ searchParams }: { searchParams: Promise<SearchParams> }) {
-  await pageUser("steward");
+  const user = await pageUser("steward");
   const tag = (await searchParams).coil;
   if (typeof tag !== "string" || tag === "") notFound();
-  const coil = await getCoilByTag(tag);
+  const coil = await getCoilByTag(user.scope, tag);
   if (!coil) notFound();
-  const state = await getCoilClearanceState(coil.id);
+  const [state, sites] = await Promise.all([getCoilClearanceState(user.scope, coil.id), listBorrowerSites(user.scope)]);
   const block = describeLendingBlock(state);
-  const clearance = state.clearanceId ? await getClearance(state.clearanceId) : null;
+  const clearance = state.clearanceId ? await getClearance(user.scope, state.clearanceId) : null;
   // Default return: a week from today, but never after the clearance ends.
   const week = new Date(Date.now() + 7 * 86_400_000);
   const back = state.validUntil && state.validUntil < week ? state.validUntil : week;
@@ -53,7 +54,7 @@ export default async function NewLoanPage({ searchParams }: { searchParams: Prom
       )}
       <SafetyCautions context="lend" />
       {/* The form is shown even when blocked: the server refuses with the reason either way. */}
-      <LoanForm coilId={coil.id} defaultBackDate={back.toLocaleDateString("en-CA")} />
+      <LoanForm coilId={coil.id} defaultBackDate={back.toLocaleDateString("en-CA")} siteName={user.site.name} otherSites={sites} />
     </>
   );
 }

@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import QRCode from "qrcode";
 import { pageUser } from "@/app/ui/page-guard";
 import { SafetyCautions } from "@/app/ui/safety-cautions";
-import { getClearance, getClearanceStateById, getCoilHealthForClearance } from "@/lib/db/clearances";
+import { getClearanceSheet } from "@/lib/db/clearances";
 import { HealthVerdict } from "../../health-verdict";
 import { formatCount, formatDateTime, formatDuration, formatNumber } from "@/lib/units/format";
 import { TOPOLOGY_LABEL } from "@/app/ui/labels";
@@ -21,13 +21,18 @@ async function liveUrl(path: string): Promise<string> {
   return `${proto}://${host}${path}`;
 }
 
+/**
+ * The sheet that travels with a lent coil. Read by the coil's site and by a site it was lent to (that site sees this
+ * sheet and the loan's, nothing else of the lending site: its code links to this sheet rather than the decision page).
+ */
 export default async function ClearanceSheetPage({ params }: { params: Promise<{ id: string }> }) {
-  await pageUser();
+  const user = await pageUser();
   const { id } = await params;
-  const clearance = await getClearance(id);
+  const clearance = await getClearanceSheet(user.scope, id);
   if (!clearance) notFound();
-  const [state, health] = await Promise.all([getClearanceStateById(id).then((s) => s!), getCoilHealthForClearance(clearance.coilId)]);
-  const url = await liveUrl(`/clearances/${clearance.id}`);
+  const { state, health } = clearance;
+  const borrowed = clearance.viewer === "borrowing-site";
+  const url = await liveUrl(borrowed ? `/clearances/${clearance.id}/sheet` : `/clearances/${clearance.id}`);
   const qrSvg = await QRCode.toString(url, { type: "svg", margin: 1, errorCorrectionLevel: "M" });
   return (
     <article className="clearance-sheet">
@@ -38,6 +43,7 @@ export default async function ClearanceSheetPage({ params }: { params: Promise<{
           </h1>
           <p>
             Built by {clearance.coil.builderName}; {TOPOLOGY_LABEL[clearance.coil.topology]} driver.
+            {borrowed && <> On loan from {clearance.coil.site.name}.</>}
           </p>
           <p className="sheet-verdict">
             {clearance.verdict === "cleared" ? (

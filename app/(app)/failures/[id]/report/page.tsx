@@ -13,8 +13,8 @@ export const metadata: Metadata = { title: "Post-mortem report" };
 
 /** The post-mortem on paper: identity, timeline, parts, margins before, ranked causes, findings, who and when. */
 export default async function PostMortemReportPage({ params }: Props) {
-  await pageUser("member");
-  const { failure, analysis } = await loadPostMortem((await params).id);
+  const user = await pageUser("member");
+  const { failure, analysis } = await loadPostMortem(user.scope, (await params).id);
   const tag = failure.coil.tag;
   const timeline = [
     ...analysis.sessions.map(({ session }) => ({

@@ -15,12 +15,12 @@ function toLocalInput(d: Date): string {
 }
 
 export default async function ReturnLoanPage({ params }: { params: Promise<{ id: string }> }) {
-  await pageUser("steward");
+  const user = await pageUser("steward");
   const { id } = await params;
-  const loan = await getLoan(id);
+  const loan = await getLoan(user.scope, id);
   if (!loan) notFound();
   const now = new Date();
-  const sessions = loan.returnedAt ? [] : await listSessionsInLoanWindow(loan, now);
+  const sessions = loan.returnedAt ? [] : await listSessionsInLoanWindow(user.scope, loan, now);
   return (
     <>
       <h1>

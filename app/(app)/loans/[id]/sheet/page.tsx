@@ -9,16 +9,19 @@ import { PrintButton } from "../../../clearances/[id]/sheet/print-button";
 
 export const metadata: Metadata = { title: "Handover sheet" };
 
-/** The confirmation of a loan: what went out, to whom, until when, under which conditions, signed by both sides. */
+/**
+ * The confirmation of a loan: what went out, to whom, until when, under which conditions, signed by both sides. Read
+ * by the lending site and, for a loan to another site's event, by that site (with the clearance sheet it links to).
+ */
 export default async function LoanHandoverPage({ params, searchParams }: { params: Promise<{ id: string }>; searchParams: Promise<{ lent?: string }> }) {
-  await pageUser();
+  const user = await pageUser();
   const [{ id }, { lent }] = await Promise.all([params, searchParams]);
-  const loan = await getLoanHandover(id);
+  const loan = await getLoanHandover(user.scope, id);
   if (!loan) notFound();
   const { clearance } = loan;
   return (
     <article className="clearance-sheet handover-sheet">
-      {lent === "1" && (
+      {lent === "1" && loan.viewer === "lending-site" && (
         <p role="status" className="notice ok no-print">
           <span className="nowrap">{loan.coil.tag}</span> is lent to {loan.borrower}. Print this handover sheet and have it signed when the coil leaves.{" "}
           <Link href="/loans?state=out">Back to the loans</Link>
@@ -32,6 +35,7 @@ export default async function LoanHandoverPage({ params, searchParams }: { param
         <dd>
           {loan.borrower}
           {loan.borrowerContact ? ` (${loan.borrowerContact})` : ""}
+          {loan.borrowerSite ? `, for ${loan.borrowerSite.name}` : ""}
         </dd>
         <dt>Event</dt>
         <dd>{loan.event}</dd>
@@ -42,11 +46,17 @@ export default async function LoanHandoverPage({ params, searchParams }: { param
           <strong className="nowrap">{formatDate(loan.expectedBackAt)}</strong>
         </dd>
         <dt>Lent by</dt>
-        <dd>{loan.lentBy?.name ?? "—"}</dd>
+        <dd>
+          {loan.lentBy?.name ?? "—"}
+          {loan.borrowerSite ? ` (${loan.coil.site.name})` : ""}
+        </dd>
         <dt>Clearance</dt>
         <dd>
           Passed the team&apos;s recorded checks on <span className="nowrap">{formatDate(clearance.decidedAt)}</span>, valid until{" "}
-          <span className="nowrap">{formatDate(clearance.validUntil)}</span> (policy version {clearance.policy.version}).
+          <span className="nowrap">{formatDate(clearance.validUntil)}</span> (policy version {clearance.policy.version}).{" "}
+          <Link href={`/clearances/${clearance.id}/sheet`} className="no-print">
+            Clearance sheet
+          </Link>
         </dd>
       </dl>
       <section aria-labelledby="handover-conditions">

@@ -1,0 +1,12 @@
+/**
+ * GET /api/bench-floor: the benchmark's floor for one request (bench/http-load.ts): Next's routing and a small JSON
+ * answer, with no sign-in check, no database and no rendering, measured under the same load as the routes and pages
+ * it is compared with. It answers 404 unless the server process was started with COILYARD_BENCH_FLOOR=1, which only
+ * the benchmark does, so a deployment exposes nothing here; it reads no data and writes none either way.
+ */
+export const dynamic = "force-dynamic";
+
+export function GET(): Response {
+  if (process.env.COILYARD_BENCH_FLOOR !== "1") return Response.json({ ok: false, message: "Not found." }, { status: 404 });
+  return Response.json({ ok: true });
+}
