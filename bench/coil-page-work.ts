@@ -4,7 +4,7 @@ import { judgeCoil } from "../lib/analysis/coil-health-input";
 import { compareCoil } from "../lib/analysis/coil-comparison";
 import { readCoilComparison } from "../lib/db/prediction-history";
 import type { ClearancePolicyRules } from "../lib/calc/clearance-policy";
-
+import { benchScope } from "./bench-scope";
 
 /** What the page works out from what it read: the prediction table and the health judged by the current policy. */
 export function computeCoilPageFigures(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
@@ -13,8 +13,7 @@ export function computeCoilPageFigures(history: CoilPageRecords["history"], rule
 }
 
 export async function readBusyCoilPage(tag: string) {
-  // ISSUE 12 SLOT: readCoilPage(scope, tag) and readCoilComparison(scope, history) (bench/app-calls.ts benchScope).
-  const records = await readCoilPage(tag);
+  const records = await readCoilPage(benchScope(null), tag);
   if (!records) throw new Error(`No coil ${tag} in the fixture`);
   return records;
 }
@@ -22,5 +21,5 @@ export async function readBusyCoilPage(tag: string) {
 export async function loadCoilPage(tag: string) {
   const { coil, history, timeline, policy } = await readBusyCoilPage(tag);
   // As the page does: the prediction table reads the coil's running frequencies (and the fleet's when it has few).
-  return { coil, timeline, comparison: await readCoilComparison(history), health: judgeCoil(history, policy.rules, new Date()).health };
+  return { coil, timeline, comparison: await readCoilComparison(benchScope(null), history), health: judgeCoil(history, policy.rules, new Date()).health };
 }

@@ -11,6 +11,7 @@
  * Memory is heap + array buffers relative to a forced collection just before, sampled every 2 ms while the export
  * awaits and every 500 rows inside the synchronous floor; the peak is the highest sample.
  */
+import { benchScope } from "./bench-scope";
 import { setFlagsFromString } from "node:v8";
 import { runInNewContext } from "node:vm";
 import Database from "better-sqlite3";
@@ -113,8 +114,7 @@ export async function benchExportMemory(busyTag: string): Promise<void> {
   try {
     let csvBytes = 0;
     const appPeak = await peakOf(async () => {
-      // ISSUE 12 SLOT: exportCoil(scope, tag) once lib/db takes a SiteScope (bench/app-calls.ts benchScope).
-      const doc = await exportCoil(busyTag);
+      const doc = await exportCoil(benchScope(null), busyTag);
       const coil = doc?.coils[0];
       if (!coil) throw new Error(`No coil ${busyTag} in the fixture`);
       csvBytes = Buffer.byteLength(coilTableCsv(coil, "sessions"));

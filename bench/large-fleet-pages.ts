@@ -3,6 +3,7 @@
  * against the floor — the fastest raw SQL through better-sqlite3 that reads the same figures.
  * The lib/db modules are imported after DATABASE_URL points at the fixture, so their Prisma client opens it.
  */
+import { benchScope } from "./bench-scope";
 import Database from "better-sqlite3";
 import { ensureLargeFleet, LARGE_DB_PATH, LARGE_DB_URL } from "./large-fleet";
 import { pairedMs } from "./large-fleet-timing";
@@ -86,13 +87,12 @@ export async function benchLargeFleetPages(): Promise<void> {
   const writer = new Database(LARGE_DB_PATH);
   const forgetSummaries = () => writer.prepare(`DELETE FROM "CoilSummary"`).run();
   const floors = rawFloors(db);
-  // ISSUE 12 SLOT: getFleetOverview(scope) and listSessions(scope, …) once lib/db takes a SiteScope (bench/app-calls.ts benchScope).
-  const dashboard = async () => selectFleetRows(await getFleetOverview(), fleetQuerySchema.parse({}));
+  const dashboard = async () => selectFleetRows(await getFleetOverview(benchScope(null)), fleetQuerySchema.parse({}));
   const cases: [string, () => unknown, () => unknown, { prepare?: () => unknown; rounds?: number; warmUp?: number }, RowKey?][] = [
     ["fleet dashboard, cold (no summaries)", dashboard, floors.dashboardCold, { prepare: forgetSummaries, rounds: 5, warmUp: 1 }, "dashboardCold"],
     ["fleet dashboard, warm (summaries current)", dashboard, floors.dashboardWarm, {}, "dashboardWarm"],
     [`coil page (${BUSY_TAG}, 500 sessions)`, () => loadCoilPage(BUSY_TAG), floors.coilPage, {}],
-    [`session list (${BUSY_TAG}, page 3)`, () => listSessions({ coilTag: BUSY_TAG }, { page: 3 }), floors.sessionList, {}],
+    [`session list (${BUSY_TAG}, page 3)`, () => listSessions(benchScope(null), { coilTag: BUSY_TAG }, { page: 3 }), floors.sessionList, {}],
   ];
   const line = (name: string, ms: number, floor: string, ratio: number) =>
     console.log(`  ${name.padEnd(48)} median ${ms.toFixed(1).padStart(7)} ms   ${floor}   ×${ratio.toFixed(1)}`);

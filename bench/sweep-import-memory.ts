@@ -5,6 +5,7 @@
  * keeps its row counts. Memory is heap + array buffers after a forced collection, so it counts what each step
  * still holds, and the peak during a step (sampled between awaits) is shown beside it.
  */
+import { benchScope } from "./bench-scope";
 import { setFlagsFromString } from "node:v8";
 import { runInNewContext } from "node:vm";
 import Database from "better-sqlite3";
@@ -73,8 +74,7 @@ export async function benchSweepImport(): Promise<void> {
   if (!parsed.success) throw new Error(parsed.error.message);
   body = null;
   step("route: JSON.parse + sweepImportSchema");
-  // ISSUE 12 SLOT: recordSweep(benchScope(user.id), …) once lib/db takes a SiteScope (bench/app-calls.ts).
-  const recorded = await recordSweep(user.id, recordInputFromImport(parsed.data), "import");
+  const recorded = await recordSweep(benchScope(user.id), recordInputFromImport(parsed.data), "import");
   step("lib/db/sweeps recordSweep (analysis + insert)");
 
   const db = new Database(LARGE_DB_PATH);

@@ -5,6 +5,7 @@ import { generateDemoDataset } from "@/prisma/demo/generate";
 import { DEMO_PEOPLE, type DemoPersonKey } from "@/prisma/demo/people";
 import { exportCoil, exportFleet } from "@/lib/db/export";
 import { importLogbook, ImportConflictError } from "@/lib/db/import";
+import { getCurrentPolicy } from "@/lib/db/policy";
 import { describeLogbookIssues, logbookDocumentSchema, type LogbookDocument } from "@/lib/validation/export";
 import { DEFAULT_SITE_ID, type SiteScope } from "@/lib/db/site-scope";
 
@@ -167,13 +168,16 @@ describe("export and import between sites", () => {
     const doc = parse(file);
     for (const clearance of doc.coils[0]!.clearances) clearance.policyVersion = mainOwn.version;
 
+    const before = await getCurrentPolicy(siteScope(north.id, null));
     await importLogbook(siteScope(north.id, null), doc, { asTag: "KM-02-N" });
 
+    // The copy is only a record of what those clearances were judged by: the importing site's policy is unchanged.
+    expect(await getCurrentPolicy(siteScope(north.id, null))).toEqual(before);
     const clearances = await testDb.clearance.findMany({ where: { coil: { siteId: north.id, tag: "KM-02-N" } }, include: { policy: true } });
     expect(clearances.length).toBe(doc.coils[0]!.clearances.length);
     for (const clearance of clearances) {
       expect(clearance.policyId).not.toBe(mainOwn.id);
-      expect(clearance.policy).toMatchObject({ siteId: north.id, version: mainOwn.version + 1, rulesJson });
+      expect(clearance.policy).toMatchObject({ siteId: north.id, version: mainOwn.version + 1, rulesJson, recordOnly: true });
     }
     expect(await testDb.clearancePolicy.findUniqueOrThrow({ where: { id: mainOwn.id } })).toEqual(mainOwn);
   });

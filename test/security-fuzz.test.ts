@@ -6,7 +6,7 @@
  */
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { countAllRows, makeUser, resetDatabase } from "./support/db";
+import { countAllRows, mainScope, makeUser, resetDatabase } from "./support/db";
 import { makeBenchCoil } from "./support/bench-fixtures";
 import { createSession } from "@/lib/db/sessions";
 import { createFailure } from "@/lib/db/failures";
@@ -26,7 +26,7 @@ beforeAll(async () => {
   const mine = await makeBenchCoil(actorId, "FZ-01");
   const other = await makeBenchCoil(actorId, "FZ-02");
   const sessionFor = (coilId: string) =>
-    createSession(actorId, sessionSchema.parse({ coilId, startedAt: "2026-01-10T14:05", supplyVoltageV: "48 V", supplyCurrentA: "2.5 A", durationS: "12 min", ambientTempC: "21", heatSinkStartC: "21", heatSinkEndC: "46", runningFrequencyHz: "334k", samples: "" }));
+    createSession(mainScope(actorId), sessionSchema.parse({ coilId, startedAt: "2026-01-10T14:05", supplyVoltageV: "48 V", supplyCurrentA: "2.5 A", durationS: "12 min", ambientTempC: "21", heatSinkStartC: "21", heatSinkEndC: "46", runningFrequencyHz: "334k", samples: "" }));
   ids = {
     coil: mine.coil.id, topLoad: mine.topLoad.id, part: mine.sw.id,
     otherCoil: other.coil.id, otherTopLoad: other.topLoad.id, otherPart: other.sw.id,
@@ -66,7 +66,7 @@ describe("mutations under fuzzing never leave partial writes", () => {
     await fc.assert(
       fc.asyncProperty(mostly(ids.coil), mostly("", ids.topLoad), when(), pick("48 V", "0", "1e9 V", "-5", "x"), pick("", "0:00,21\n2:00,30\n4:00,35", "0:00,21\n0:00,22", "0:00,hot", "1:00,20\n0:30,21"), async (coilId, topLoadId, startedAt, supplyVoltageV, samples) => {
         const parsed = sessionSchema.safeParse({ coilId, topLoadId, startedAt, supplyVoltageV, supplyCurrentA: "2 A", durationS: "5 min", ambientTempC: "21", heatSinkStartC: "21", heatSinkEndC: "40", runningFrequencyHz: "300k", samples });
-        if (parsed.success) await storesOrRefusesCleanly(() => createSession(actorId, parsed.data));
+        if (parsed.success) await storesOrRefusesCleanly(() => createSession(mainScope(actorId), parsed.data));
       }),
       {
         numRuns: 40,
@@ -83,7 +83,7 @@ describe("mutations under fuzzing never leave partial writes", () => {
     await fc.assert(
       fc.asyncProperty(mostly(ids.coil), mostly("", ids.session), mostly("", ids.part), when(), pick("over_voltage", "thermal", "gremlins", ""), async (coilId, sessionId, componentId, occurredAt, mode) => {
         const parsed = failureSchema.safeParse({ coilId, sessionId, componentId, occurredAt, mode, symptoms: "Fuzzed: a crack and a trip." });
-        if (parsed.success) await storesOrRefusesCleanly(() => createFailure(actorId, parsed.data));
+        if (parsed.success) await storesOrRefusesCleanly(() => createFailure(mainScope(actorId), parsed.data));
       }),
       { numRuns: 40 },
     );
@@ -94,7 +94,7 @@ describe("mutations under fuzzing never leave partial writes", () => {
     await fc.assert(
       fc.asyncProperty(mostly(ids.coil), mostly("", ids.topLoad), when(), fc.array(reading, { minLength: 2, maxLength: 6 }), async (coilId, topLoadId, takenAt, points) => {
         const parsed = sweepEntrySchema.safeParse({ coilId, topLoadId, takenAt, seriesResistanceOhm: "22k", sourceAmplitudeV: "20", amplitudeConvention: "peak", points });
-        if (parsed.success) await storesOrRefusesCleanly(() => recordSweep(actorId, recordInputFromEntry(parsed.data), "hand"));
+        if (parsed.success) await storesOrRefusesCleanly(() => recordSweep(mainScope(actorId), recordInputFromEntry(parsed.data), "hand"));
       }),
       { numRuns: 40 },
     );

@@ -156,7 +156,7 @@ export async function computeFiguresFor(
 ): Promise<ComputedFigures[]> {
   const ofSite = await prisma.coil.findMany({ where: { id: { in: [...coilIds] }, ...coilOfSite(scope) }, select: { id: true } });
   if (ofSite.length === 0) return [];
-  const histories = await getFleetHealthHistory(ofSite.map((coil) => coil.id));
+  const histories = await getFleetHealthHistory(scope, ofSite.map((coil) => coil.id));
   return histories.map((history) => ({ coilId: history.coil.id, fromRevision: revisions.get(history.coil.id) ?? 0, figures: computeCoilFigures(history, policy, now) }));
 }
 

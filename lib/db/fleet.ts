@@ -147,8 +147,7 @@ export function selectFleetRows(rows: readonly FleetRow[], query: FleetQuery): F
 
 /** Reliability per part number across the site's fleet: hours while fitted and failures recorded against the part. */
 export async function getPartReliability(scope: SiteScope) {
-  const [allHistories, failures] = await Promise.all([getFleetHistory(), prisma.failure.findMany({ where: recordOfSite(scope), select: { componentId: true, mode: true } })]);
-  const histories = allHistories.filter((history) => history.coil.siteId === scope.siteId);
+  const [histories, failures] = await Promise.all([getFleetHistory(scope), prisma.failure.findMany({ where: recordOfSite(scope), select: { componentId: true, mode: true } })]);
   const exposures = computePartExposures(histories, failures);
   const kinds = collectPartKinds(exposures);
   const modes = countFailureModesByPart(exposures, failures);

@@ -11,7 +11,8 @@
  * People are matched by e-mail among the importing site's members (and the organisation admins, who act at
  * every site); anyone else is left blank and reported, so an import says nothing about other sites' people.
  * Clearances keep their policy version where that version is the organisation's or the site's own; a version
- * the server holds for another site is recreated here under the next free version number.
+ * the server holds for another site (or none) is recreated here under the next free version number, marked record-only
+ * so an import never changes the site's current lending policy.
  */
 import { randomBytes } from "node:crypto";
 import { prisma, type Tx } from "./client";
@@ -52,7 +53,7 @@ async function policyIdFor(tx: Tx, scope: SiteScope, version: number, rulesJson:
   else {
     const free = existing ? ((await tx.clearancePolicy.aggregate({ _max: { version: true } }))._max.version ?? 0) + 1 : version;
     const note = free === version ? "Recreated from an imported logbook file." : `Recreated from an imported logbook file (version ${version} there).`;
-    id = (await tx.clearancePolicy.create({ data: { siteId: scope.siteId, version: free, rulesJson, note } })).id;
+    id = (await tx.clearancePolicy.create({ data: { siteId: scope.siteId, version: free, rulesJson, note, recordOnly: true } })).id;
   }
   cache.set(version, id);
   return id;

@@ -63,7 +63,7 @@ export function combinePolicies(organisationDefault: PolicyVersion, siteOwn: Pol
 
 /** The default's latest version, created from the shipped defaults (version 1) when there is none. */
 async function latestDefaultIn(tx: Tx): Promise<ClearancePolicy> {
-  const latest = await tx.clearancePolicy.findFirst({ where: { siteId: null }, orderBy: { version: "desc" } });
+  const latest = await tx.clearancePolicy.findFirst({ where: { siteId: null, recordOnly: false }, orderBy: { version: "desc" } });
   if (latest) return latest;
   const highest = await tx.clearancePolicy.findFirst({ orderBy: { version: "desc" }, select: { version: true } });
   const version = (highest?.version ?? 0) + 1;
@@ -76,7 +76,7 @@ async function latestDefaultIn(tx: Tx): Promise<ClearancePolicy> {
 
 /** The organisation's default policy (no site's record: every site lends by it or stricter). */
 export async function getDefaultPolicy(): Promise<PolicyVersion> {
-  const [latest] = await prisma.$queryRaw<ClearancePolicy[]>`SELECT * FROM "ClearancePolicy" WHERE "siteId" IS NULL ORDER BY version DESC LIMIT 1`;
+  const [latest] = await prisma.$queryRaw<ClearancePolicy[]>`SELECT * FROM "ClearancePolicy" WHERE "siteId" IS NULL AND "recordOnly" = false ORDER BY version DESC LIMIT 1`;
   if (latest) return toVersion(latest);
   // Serializable and checked again inside, so two first requests cannot both create it.
   return toVersion(await serializableTransaction(latestDefaultIn));
@@ -86,9 +86,9 @@ export async function getDefaultPolicy(): Promise<PolicyVersion> {
 export async function getCurrentPolicy(scope: SiteScope): Promise<EffectivePolicy> {
   // Raw and one statement: nearly every page asks (lib/db/raw-read.ts says why).
   const rows = await prisma.$queryRaw<ClearancePolicy[]>`
-    SELECT * FROM (SELECT * FROM "ClearancePolicy" WHERE "siteId" IS NULL ORDER BY version DESC LIMIT 1) AS organisation_default
+    SELECT * FROM (SELECT * FROM "ClearancePolicy" WHERE "siteId" IS NULL AND "recordOnly" = false ORDER BY version DESC LIMIT 1) AS organisation_default
     UNION ALL
-    SELECT * FROM (SELECT * FROM "ClearancePolicy" WHERE "siteId" = ${scope.siteId} ORDER BY version DESC LIMIT 1) AS site_own`;
+    SELECT * FROM (SELECT * FROM "ClearancePolicy" WHERE "siteId" = ${scope.siteId} AND "recordOnly" = false ORDER BY version DESC LIMIT 1) AS site_own`;
   const defaultRow = rows.find((row) => row.siteId === null);
   const siteRow = rows.find((row) => row.siteId === scope.siteId) ?? null;
   const organisationDefault = defaultRow ? toVersion(defaultRow) : await getDefaultPolicy();
