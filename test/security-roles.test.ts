@@ -5,8 +5,9 @@
  * is gone fails it too.
  *
  * How they are checked: the exported functions are called directly, in-process, against the
- * integration database, with next-auth's getServerSession mocked to "be" each demo role (and
- * next/cache, next/headers mocked, as there is no Next request around them). This runs every entry
+ * integration database, each demo role signed in by a real session cookie (a token encoded with the app's
+ * secret, handed to the code through a mocked next/headers, with next/cache mocked too, as there is no Next
+ * request around them). This runs every entry
  * point for every role in seconds, and lets the test count every table's rows before and after a
  * refusal — "nothing stored" is checked for the whole database, not one table. The HTTP side of the
  * route handlers (cookies, real sessions, status codes on the wire) is covered again against the
@@ -15,15 +16,23 @@
  */
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { encode } from "next-auth/jwt";
 import { hasRole, ROLES, type Role } from "../lib/auth/roles";
+import { sessionCookieName } from "../lib/auth/session-token";
+import { appEnv } from "../lib/config/env";
 import { countAllRows, makeUser, resetDatabase } from "./support/db";
 import { discoverEntryPoints, ENTRY_POINT_ROLES } from "./support/entry-points";
 import { PLAN_VARIANT } from "./support/plan-fixtures";
 
 const session = vi.hoisted(() => ({ userId: null as string | null, headers: new Headers() }));
-vi.mock("next-auth", () => ({ getServerSession: vi.fn(async () => (session.userId ? { user: { id: session.userId } } : null)) }));
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn(), updateTag: vi.fn(), refresh: vi.fn() }));
-vi.mock("next/headers", () => ({ headers: vi.fn(async () => session.headers), cookies: vi.fn(async () => new Map()) }));
+vi.mock("next/headers", () => ({ headers: vi.fn(async () => session.headers), cookies: vi.fn(async () => signedInCookies()) }));
+
+/** The request's cookies: next-auth's session cookie for `session.userId`, as the sign-in would have set it. */
+async function signedInCookies() {
+  const all = session.userId ? [{ name: sessionCookieName(), value: await encode({ token: { sub: session.userId }, secret: appEnv().NEXTAUTH_SECRET }) }] : [];
+  return { getAll: () => all, get: (name: string) => all.find((cookie) => cookie.name === name) };
+}
 
 const ROOT = path.resolve(__dirname, "..");
 
