@@ -6,15 +6,16 @@
  * inline scripts) and, over https only, Strict-Transport-Security.
  */
 import { NextResponse, type NextRequest } from "next/server";
-import { getToken } from "next-auth/jwt";
 import { appEnv } from "@/lib/config/env";
+import { decodeSessionUserId, sessionTokenFrom } from "@/lib/auth/session-token";
 import { buildContentSecurityPolicy, createNonce, isHttps, STRICT_TRANSPORT_SECURITY } from "@/lib/auth/content-security-policy";
 
 export async function proxy(request: NextRequest) {
   const https = isHttps(request.nextUrl, request.headers.get("x-forwarded-proto"));
   const isSignIn = request.nextUrl.pathname === "/sign-in" || request.nextUrl.pathname.startsWith("/sign-in/");
-  const token = isSignIn ? null : await getToken({ req: request, secret: appEnv().NEXTAUTH_SECRET });
-  if (!isSignIn && !token) {
+  // The same cookie and decode as the pages (lib/auth/session-token.ts), so the two never disagree about a token.
+  const userId = isSignIn ? null : await decodeSessionUserId(sessionTokenFrom(request.cookies.getAll()), appEnv().NEXTAUTH_SECRET);
+  if (!isSignIn && !userId) {
     const signIn = new URL("/sign-in", request.url);
     const target = request.nextUrl.pathname + request.nextUrl.search;
     if (target !== "/") signIn.searchParams.set("callbackUrl", target);

@@ -108,12 +108,11 @@ const ROWS = {
     slot: "the aggregate rewrite of exportFleet() in lib/db/export.ts (logbook area): today it reads every session, sample, sweep and sweep point to count them, too much to run at this size",
   },
   signInChecks: {
-    figure: "sign-in checks / token decodes per page request",
+    figure: "sign-in checks per page request (dashboard, coil page)",
     unit: "count",
-    floor: "1 check, 1 decode",
+    floor: "1 check",
     goal: 1,
     flag: "--load",
-    slot: "a per-request counter in lib/auth/session.ts (sites area: getServerSession is called by pageUser and again by the layout); e.g. a COILYARD_BENCH_FLOOR-gated header with the count",
   },
 } satisfies Record<string, Row>;
 

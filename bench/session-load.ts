@@ -37,6 +37,8 @@ const BLOCKS = 5;
 // 100 a block: the server's CPU is counted in 10 ms ticks, so a block of the trivial route must take a good many of them.
 const PAGE_REQUESTS = Number(process.env.BENCH_PAGE_REQUESTS ?? 400);
 const FLOOR_PATH = "/api/bench-floor";
+/** Page requests over which sign-in checks and token decodes are counted. */
+const AUTH_COUNT_REQUESTS = 40;
 /** A demo coil with sessions, sweeps, parts and a top load (prisma/demo). */
 const PAGE_COIL = "KM-01";
 const DB_PATH = path.resolve("data/bench/load.db");
@@ -140,6 +142,26 @@ export async function runBlock(count: number, groups: number[], send: (i: number
   return { requests: count, seconds, latencies: latencies.sort((a, b) => a - b), statuses, cpuMs: (groupCpuMs(groups) - cpuBefore) / count };
 }
 
+interface AuthCounts {
+  signInChecks: number;
+  tokenDecodes: number;
+}
+
+/**
+ * The server's sign-in checks and token decodes so far (app/api/bench-floor `?authCounts`), summed over the instances;
+ * null from a build that does not count them.
+ */
+async function readAuthCounts(): Promise<AuthCounts | null> {
+  const total: AuthCounts = { signInChecks: 0, tokenDecodes: 0 };
+  for (const base of BASES) {
+    const answer = (await (await fetch(`${base}${FLOOR_PATH}?authCounts`)).json()) as { data?: AuthCounts };
+    if (!answer.data) return null;
+    total.signInChecks += answer.data.signInChecks;
+    total.tokenDecodes += answer.data.tokenDecodes;
+  }
+  return total;
+}
+
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 const quantile = (sorted: number[], q: number) => sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]!;
 
@@ -230,11 +252,21 @@ export async function benchSessionLoad(): Promise<void> {
     if (serverErrors > 0 || found !== acknowledged.length) process.exitCode = 1;
 
     const pageRounds = 4;
+    const authCounts: { name: string; checksPerRequest: number; decodesPerRequest: number }[] = [];
     for (const [key, name, pagePath] of [
       ["dashboardCpu", "dashboard", "/"],
       ["coilPageCpu", `coil page ${PAGE_COIL}`, `/coils/${PAGE_COIL}`],
     ] as const) {
       const pageBlock = () => runBlock(PAGE_REQUESTS / pageRounds, groups, (i) => fetch(`${base(i)}${pagePath}`, { headers: { cookie }, redirect: "manual" }));
+      // Sign-in checks and token decodes per page request, counted by the server over a block of its own.
+      const countsBefore = await readAuthCounts();
+      await runBlock(AUTH_COUNT_REQUESTS, groups, (i) => fetch(`${base(i)}${pagePath}`, { headers: { cookie }, redirect: "manual" }));
+      const countsAfter = await readAuthCounts();
+      if (countsBefore && countsAfter) {
+        const checksPerRequest = (countsAfter.signInChecks - countsBefore.signInChecks) / AUTH_COUNT_REQUESTS;
+        const decodesPerRequest = (countsAfter.tokenDecodes - countsBefore.tokenDecodes) / AUTH_COUNT_REQUESTS;
+        authCounts.push({ name, checksPerRequest, decodesPerRequest });
+      }
       const page = await alternateWithFloor(pageRounds, pageBlock, floorBlock(PAGE_REQUESTS / pageRounds));
       const notOk = [...page.statuses].filter(([status]) => status !== 200).reduce((n, [, count]) => n + count, 0);
       console.log(
@@ -243,6 +275,15 @@ export async function benchSessionLoad(): Promise<void> {
       recordFigure({ key, value: page.cpuMs, floor: page.floorCpuMs, ratio: page.cpuRatio, note: `${page.throughput.toFixed(0)} req/s vs ${page.floorThroughput.toFixed(0)}` });
       if (notOk) process.exitCode = 1;
     }
+    for (const counted of authCounts) console.log(`  ${counted.name}: ${counted.checksPerRequest} sign-in checks and ${counted.decodesPerRequest} token decodes per request (${AUTH_COUNT_REQUESTS} requests; the proxy's decode included)`);
+    if (authCounts.length === 0) console.log("  sign-in checks per request: not counted by this build (app/api/bench-floor ?authCounts)");
+    else
+      recordFigure({
+        key: "signInChecks",
+        value: Math.max(...authCounts.map((c) => c.checksPerRequest)),
+        floor: 1,
+        note: authCounts.map((c) => `${c.name}: ${c.checksPerRequest} check, ${c.decodesPerRequest} decodes (proxy + page)`).join("; "),
+      });
   } finally {
     for (const server of servers) if (server.pid) process.kill(-server.pid, "SIGTERM");
   }

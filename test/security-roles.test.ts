@@ -6,8 +6,9 @@
  * in its table fails the first tests, so nothing ships unchecked; a row whose entry point is gone fails too.
  *
  * How they are checked: the exported functions (and page components) are called directly, in-process, against
- * the integration database, with next-auth's getServerSession mocked to "be" each user and the site cookie
- * mocked to name a site (next/cache, next/headers mocked, as there is no Next request around them). This runs
+ * the integration database, each user signed in by a real session cookie (a token encoded with the app's secret)
+ * and a site cookie naming a site, handed to the code through a mocked next/headers (next/cache mocked too, as
+ * there is no Next request around them). This runs
  * every entry point for every role in seconds, and lets the test count every table's rows before and after a
  * refusal — "nothing stored" is checked for the whole database, not one table. The HTTP side of the route
  * handlers (cookies, real sessions, status codes on the wire) is covered again against the built app in
@@ -21,10 +22,13 @@
  */
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { encode } from "next-auth/jwt";
 import { hasRole, ROLES, type Role } from "../lib/auth/roles";
 import { DEFAULT_CLEARANCE_POLICY } from "../lib/calc/clearance-policy";
 import { countAllRows, testDb } from "./support/db";
 import { discoverEntryPoints, discoverListRoutes, discoverRecordPages, ENTRY_POINT_ROLES } from "./support/entry-points";
+import { sessionCookieName } from "../lib/auth/session-token";
+import { appEnv } from "../lib/config/env";
 import { PLAN_VARIANT } from "./support/plan-fixtures";
 import {
   deleteSiteRecords,
@@ -40,16 +44,16 @@ import {
 } from "./support/site-fixtures";
 
 const session = vi.hoisted(() => ({ userId: null as string | null, headers: new Headers(), siteSlug: undefined as string | undefined }));
-vi.mock("next-auth", () => ({ getServerSession: vi.fn(async () => (session.userId ? { user: { id: session.userId } } : null)) }));
 vi.mock("next/cache", () => ({ revalidatePath: vi.fn(), revalidateTag: vi.fn(), updateTag: vi.fn(), refresh: vi.fn() }));
-vi.mock("next/headers", () => ({
-  headers: vi.fn(async () => session.headers),
-  cookies: vi.fn(async () => {
-    const jar = new Map<string, { name: string; value: string }>();
-    if (session.siteSlug) jar.set("coilyard-site", { name: "coilyard-site", value: session.siteSlug });
-    return { get: (name: string) => jar.get(name), getAll: () => [...jar.values()], has: (name: string) => jar.has(name), set: vi.fn(), delete: vi.fn() };
-  }),
-}));
+vi.mock("next/headers", () => ({ headers: vi.fn(async () => session.headers), cookies: vi.fn(async () => requestCookies()) }));
+
+/** The request's cookies: next-auth's session cookie for `session.userId`, as the sign-in would have set it, and the site cookie. */
+async function requestCookies() {
+  const all = session.userId ? [{ name: sessionCookieName(), value: await encode({ token: { sub: session.userId }, secret: appEnv().NEXTAUTH_SECRET }) }] : [];
+  if (session.siteSlug) all.push({ name: "coilyard-site", value: session.siteSlug });
+  const get = (name: string) => all.find((cookie) => cookie.name === name);
+  return { get, getAll: () => all, has: (name: string) => get(name) !== undefined, set: vi.fn(), delete: vi.fn() };
+}
 
 const ROOT = path.resolve(__dirname, "..");
 

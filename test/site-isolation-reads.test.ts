@@ -20,16 +20,26 @@ import path from "node:path";
 import fc from "fast-check";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import type { SiteScope } from "@/lib/db/site-scope";
+import { encode } from "next-auth/jwt";
 import { getCurrentUser } from "@/lib/auth/session";
+import { sessionCookieName } from "@/lib/auth/session-token";
+import { appEnv } from "@/lib/config/env";
 import { testDb } from "./support/db";
 import { loadSiteRows, makeSite, resetSites, siteCopy } from "./support/site-fixtures";
 
 const session = vi.hoisted(() => ({ userId: null as string | null, siteSlug: undefined as string | undefined }));
-vi.mock("next-auth", () => ({ getServerSession: vi.fn(async () => (session.userId ? { user: { id: session.userId } } : null)) }));
 vi.mock("next/headers", () => ({
   headers: vi.fn(async () => new Headers()),
-  cookies: vi.fn(async () => ({ get: (name: string) => (name === "coilyard-site" && session.siteSlug ? { name, value: session.siteSlug } : undefined) })),
+  cookies: vi.fn(async () => requestCookies()),
 }));
+
+/** The request's cookies: the session cookie the sign-in would have set for `session.userId`, and the site cookie. */
+async function requestCookies() {
+  const all = session.userId ? [{ name: sessionCookieName(), value: await encode({ token: { sub: session.userId }, secret: appEnv().NEXTAUTH_SECRET }) }] : [];
+  if (session.siteSlug) all.push({ name: "coilyard-site", value: session.siteSlug });
+  const get = (name: string) => all.find((cookie) => cookie.name === name);
+  return { get, getAll: () => all, has: (name: string) => get(name) !== undefined };
+}
 
 const LIB_DB = path.resolve(__dirname, "../lib/db");
 

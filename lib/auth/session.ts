@@ -8,8 +8,9 @@
  */
 import { cache } from "react";
 import { cookies } from "next/headers";
-import { getServerSession } from "next-auth";
-import { authOptions } from "./options";
+import { appEnv } from "../config/env";
+import { countAuthStep } from "./auth-counters";
+import { decodeSessionUserId, sessionTokenFrom } from "./session-token";
 import { getUserAccess, type SiteRef, type SiteRole } from "../db/site-access";
 import type { SiteScope } from "../db/site-scope";
 import { hasRole, type Role } from "./roles";
@@ -47,14 +48,18 @@ export function chooseSite(sites: readonly SiteRole[], requestedSlug: string | u
  * The signed-in, active user at their current site, or null when anonymous. Reads the database so role and
  * membership changes apply at once; cached for the request, so a page, its layout and its sections share one
  * check. Throws AuthError 403 for an account that belongs to no site.
+ *
+ * The token is decoded directly (session-token.ts says why that is all next-auth's getServerSession checks): an
+ * expired, forged or missing token is anonymous; the database then decides whether the account may still sign in.
  */
 export const getCurrentUser = cache(async (): Promise<CurrentUser | null> => {
-  const session = await getServerSession(authOptions());
-  const id = (session?.user as { id?: string } | undefined)?.id;
+  countAuthStep("signInChecks");
+  const cookieStore = await cookies();
+  const id = await decodeSessionUserId(sessionTokenFrom(cookieStore.getAll()), appEnv().NEXTAUTH_SECRET);
   if (!id) return null;
   const access = await getUserAccess(id);
   if (!access || !access.active) return null;
-  const site = chooseSite(access.sites, (await cookies()).get(SITE_COOKIE)?.value);
+  const site = chooseSite(access.sites, cookieStore.get(SITE_COOKIE)?.value);
   if (!site) throw new AuthError(403, "Your account does not belong to any site yet. Ask an admin to add you to one.");
   return {
     id: access.id,

@@ -25,7 +25,7 @@ import { computeHealthValidUntil } from "../analysis/health-validity";
 import type { HealthStatus } from "../calc/coil-health";
 import { briefSessionMargins, type SessionMarginsBrief } from "../analysis/margin-brief";
 import { collectHeadroomTrend, type HeadroomTrend } from "../analysis/headroom-trend";
-import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
+import { coilOfSite, type SiteScope } from "./site-scope";
 
 /** Records that the coil's logbook changed. Call it in the same transaction as the write. */
 export async function markCoilChanged(tx: Tx, coilId: string): Promise<void> {
@@ -119,31 +119,36 @@ export interface ComputedFigures {
 /**
  * Stores figures only where the coil's revision is still the one they were computed from; returns the coil ids
  * stored. Each update is one conditional statement, so no write can slip between the check and the store.
+ *
+ * Raw SQL, all in one transaction: a cold dashboard stores hundreds of rows, and through the query API each
+ * `updateMany` was compiled into a plan again (lib/db/raw-read.ts says why that costs), ~1 ms a row. The statement is
+ * the same conditional update written out once, portable (quoted identifiers, parameters only; the adapters bind
+ * dates as the query API stores them), and narrowed to the scope's site in its own WHERE.
+ * test/coil-summary-store.test.ts checks its rows against the query API's on SQLite and PostgreSQL.
  */
 export async function storeCoilFigures(scope: SiteScope, computed: readonly ComputedFigures[], policyVersion: number, computedAt: Date): Promise<string[]> {
   if (computed.length === 0) return [];
-  const results = await prisma.$transaction(
-    computed.map(({ coilId, fromRevision, figures }) =>
-      prisma.coilSummary.updateMany({
-        where: { coilId, revision: fromRevision, ...recordOfSite(scope) },
-        data: {
-          computedRevision: fromRevision,
-          policyVersion,
-          computedAt,
-          validUntil: figures.validUntil,
-          health: figures.health,
-          reasonsJson: JSON.stringify(figures.reasons),
-          latestMarginsJson: JSON.stringify(figures.latestMargins),
-          headroomTrendJson: JSON.stringify(figures.headroomTrend),
-          sessionCount: figures.sessionCount,
-          totalRunS: figures.totalRunS,
-          lastSessionAt: figures.lastSessionAt,
-          lastSweepAt: figures.lastSweepAt,
-        },
-      }),
+  const counts = await prisma.$transaction(
+    computed.map(
+      ({ coilId, fromRevision, figures }) => prisma.$executeRaw`
+        UPDATE "CoilSummary" SET
+          "computedRevision" = ${fromRevision},
+          "policyVersion" = ${policyVersion},
+          "computedAt" = ${computedAt},
+          "validUntil" = ${figures.validUntil},
+          "health" = ${figures.health},
+          "reasonsJson" = ${JSON.stringify(figures.reasons)},
+          "latestMarginsJson" = ${JSON.stringify(figures.latestMargins)},
+          "headroomTrendJson" = ${JSON.stringify(figures.headroomTrend)},
+          "sessionCount" = ${figures.sessionCount},
+          "totalRunS" = ${figures.totalRunS},
+          "lastSessionAt" = ${figures.lastSessionAt},
+          "lastSweepAt" = ${figures.lastSweepAt}
+        WHERE "coilId" = ${coilId} AND "revision" = ${fromRevision}
+          AND EXISTS (SELECT 1 FROM "Coil" WHERE "Coil"."id" = "CoilSummary"."coilId" AND "Coil"."siteId" = ${scope.siteId})`,
     ),
   );
-  return computed.filter((_, i) => results[i]!.count === 1).map((c) => c.coilId);
+  return computed.filter((_, i) => counts[i] === 1).map((c) => c.coilId);
 }
 
 /** Reads each coil's health window and computes its figures (the slow path, kept for stale rows); coils of other sites are left out. */
