@@ -33,6 +33,8 @@ export default defineConfig({
           // One database shared by the integration files: run them one after another.
           fileParallelism: false,
           testTimeout: 20_000,
+          // Loading the two-site demo network in a beforeAll takes several seconds on a busy 2-core machine.
+          hookTimeout: 60_000,
         },
       },
     ],
