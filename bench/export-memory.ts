@@ -85,8 +85,9 @@ const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floo
 
 /** Reads a route's CSV stream to the end as a client would, keeping only a byte count. */
 async function drain(stream: ReadableStream<Uint8Array>): Promise<number> {
+  const reader = stream.getReader();
   let bytes = 0;
-  for await (const chunk of stream) bytes += chunk.byteLength;
+  for (let next = await reader.read(); !next.done; next = await reader.read()) bytes += next.value.byteLength;
   return bytes;
 }
 

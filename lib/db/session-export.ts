@@ -9,6 +9,7 @@
  * so a page costs the same at the end of a 250 000-row site as at its start. Every query is narrowed by the site.
  */
 import { prisma } from "./client";
+import type { Prisma } from "./generated/client";
 import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 import type { SessionCsvRow } from "../export/logbook-csv";
 
@@ -31,7 +32,9 @@ const sessionSelect = {
   outcome: true,
   loggedBy: { select: { email: true } },
   notes: true,
-} as const;
+} as const satisfies Prisma.RunSessionSelect;
+
+type ExportedSession = Prisma.RunSessionGetPayload<{ select: typeof sessionSelect }>;
 
 export interface SessionExport {
   /** How many coils the export covers: 0 when a tag was asked for and the site has no such coil. */
@@ -57,7 +60,7 @@ async function* readSessionPages(scope: SiteScope, coils: { id: string; tag: str
   for (const coil of coils) {
     let after: { startedAt: Date; id: string } | null = null;
     for (;;) {
-      const sessions = await prisma.runSession.findMany({
+      const sessions: ExportedSession[] = await prisma.runSession.findMany({
         where: {
           coilId: coil.id,
           ...recordOfSite(scope),
@@ -74,8 +77,6 @@ async function* readSessionPages(scope: SiteScope, coils: { id: string; tag: str
     }
   }
 }
-
-type ExportedSession = Awaited<ReturnType<typeof prisma.runSession.findMany<{ select: typeof sessionSelect }>>>[number];
 
 /** The same cells `sessionsCsv` writes from a logbook file: ISO times, the top load's name, the logger's e-mail. */
 function toSessionCsvRow(tag: string, s: ExportedSession): SessionCsvRow {
