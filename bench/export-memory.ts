@@ -1,12 +1,12 @@
 /**
  * `npm run bench -- --large`: peak memory of exporting the sessions table, against a floor that streams the same
  * rows out of better-sqlite3 into CSV text one row at a time (what a streaming export holds: a row and a line).
- * Two sizes: one busy coil's 500 sessions (GET /api/export/coils/<tag>/sessions.csv, which today builds the coil's
- * whole logbook document first) and the whole large fleet's 250 000 sessions (no such export exists yet: a SLOT, its
- * floor printed so the export written for issue 13 has a figure to meet).
+ * Two sizes: one busy coil's 500 sessions (GET /api/export/coils/<tag>/sessions.csv) and the whole large fleet's
+ * 250 000 sessions (GET /api/export/sessions.csv), both what their routes stream: lib/db/session-export.ts's keyset
+ * pages through lib/export/csv-stream.ts, read to the end here as a client would.
  *
- * Also the floor of GET /api/export/fleet.csv: its few per-coil counts as aggregate SQL (the app today reads every
- * coil's whole logbook, sweep points and samples included, to count them: at this size not run, a SLOT).
+ * Also GET /api/export/fleet.csv's server work (lib/db/fleet-summary.ts's aggregate statement and the CSV) against the
+ * same counts as aggregate SQL through better-sqlite3, timed in alternation, the ratio the median of per-round ratios.
  *
  * Memory is heap + array buffers relative to a forced collection just before, sampled every 2 ms while the export
  * awaits and every 500 rows inside the synchronous floor; the peak is the highest sample.
@@ -15,7 +15,7 @@ import { benchScope } from "./bench-scope";
 import { setFlagsFromString } from "node:v8";
 import { runInNewContext } from "node:vm";
 import Database from "better-sqlite3";
-import { recordFigure, recordFloorOnly } from "./figures";
+import { recordFigure } from "./figures";
 import { LARGE_DB_PATH } from "./large-fleet";
 
 setFlagsFromString("--expose-gc");
@@ -67,8 +67,8 @@ function streamCsv(statement: Database.Statement, params: unknown[], sample: () 
 }
 
 /** fleetSummaryCsv's columns (lib/export/logbook-csv.ts), each coil's counts and latest values by aggregate SQL. */
-function fleetSummaryFloorMs(db: Database.Database): { ms: number; rows: number } {
-  const summary = db.prepare(`
+function prepareFleetSummaryFloor(db: Database.Database): Database.Statement {
+  return db.prepare(`
     SELECT c.tag, c.name, c."builderName", c.status, c.topology, c."formDiameterM", c."windingLengthM", c.turns, c."wireDiameterM", c."wireGaugeAwg", c."measuredInductanceH",
       (SELECT count(*) FROM "Component" p WHERE p."coilId" = c.id AND p."removedAt" IS NULL) AS "partsFitted",
       (SELECT count(*) FROM "RunSession" s WHERE s."coilId" = c.id) AS sessions,
@@ -78,51 +78,78 @@ function fleetSummaryFloorMs(db: Database.Database): { ms: number; rows: number 
       (SELECT count(*) FROM "Failure" f WHERE f."coilId" = c.id) AS failures,
       (SELECT count(*) FROM "Failure" f WHERE f."coilId" = c.id AND f.status = 'open') AS "openFailures",
       (SELECT count(*) FROM "Loan" l WHERE l."coilId" = c.id AND l."returnedAt" IS NULL) AS "loansOut"
-    FROM "Coil" c ORDER BY c.tag`);
-  let rows = 0;
-  const times: number[] = [];
-  for (let i = 0; i < 6; i++) {
-    const started = performance.now();
-    rows = summary.all().length;
-    if (i > 0) times.push(performance.now() - started);
-  }
-  return { ms: times.sort((a, b) => a - b)[2]!, rows };
+    FROM "Coil" c WHERE c."siteId" = ? ORDER BY c.tag`);
+}
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
+
+/** Reads a route's CSV stream to the end as a client would, keeping only a byte count. */
+async function drain(stream: ReadableStream<Uint8Array>): Promise<number> {
+  const reader = stream.getReader();
+  let bytes = 0;
+  for (let next = await reader.read(); !next.done; next = await reader.read()) bytes += next.value.byteLength;
+  return bytes;
 }
 
 export async function benchExportMemory(busyTag: string): Promise<void> {
   const db = new Database(LARGE_DB_PATH, { readonly: true });
-  const oneCoil = db.prepare(`SELECT ${SESSION_COLUMNS} ${FROM} WHERE c.tag = ? ORDER BY s."startedAt", s.id`);
-  const wholeFleet = db.prepare(`SELECT ${SESSION_COLUMNS} ${FROM} ORDER BY c.tag, s."startedAt", s.id`);
+  const oneCoil = db.prepare(`SELECT ${SESSION_COLUMNS} ${FROM} WHERE c."siteId" = ? AND c.tag = ? ORDER BY s."startedAt", s.id`);
+  const wholeFleet = db.prepare(`SELECT ${SESSION_COLUMNS} ${FROM} WHERE c."siteId" = ? ORDER BY c.tag, s."startedAt", s.id`);
   let coilRows = { rows: 0, bytes: 0 };
   let fleetRows = { rows: 0, bytes: 0 };
-  const coilFloor = await peakOf((sample) => (coilRows = streamCsv(oneCoil, [busyTag], sample)));
-  const fleetFloor = await peakOf((sample) => (fleetRows = streamCsv(wholeFleet, [], sample)));
-  const fleetCsvFloor = fleetSummaryFloorMs(db);
-  db.close();
+  const scope = benchScope(null);
+  const coilFloor = await peakOf((sample) => (coilRows = streamCsv(oneCoil, [scope.siteId, busyTag], sample)));
+  const fleetFloor = await peakOf((sample) => (fleetRows = streamCsv(wholeFleet, [scope.siteId], sample)));
+  const fleetSummaryFloor = prepareFleetSummaryFloor(db);
 
-  console.log(`\nGET /api/export/fleet.csv floor: its per-coil counts as aggregate SQL, ${fleetCsvFloor.ms.toFixed(0)} ms (median of 5), ${fleetCsvFloor.rows} rows`);
-  recordFloorOnly("fleetCsvRead", fleetCsvFloor.ms, `${fleetCsvFloor.rows} coils`);
+  // GET /api/export/fleet.csv: the route's work (aggregate read + CSV text) and the raw floor, alternating.
+  const { readFleetSummaryRows } = await import("../lib/db/fleet-summary");
+  const { fleetSummaryRowsCsv, sessionCsvPage } = await import("../lib/export/logbook-csv");
+  const { openSessionExport } = await import("../lib/db/session-export");
+  const { csvStream } = await import("../lib/export/csv-stream");
+  const appTimes: number[] = [];
+  const floorTimes: number[] = [];
+  const ratios: number[] = [];
+  let summaryRows = 0;
+  for (let round = 0; round < 13; round++) {
+    let started = performance.now();
+    const rows = await readFleetSummaryRows(scope);
+    fleetSummaryRowsCsv(rows);
+    summaryRows = rows.length;
+    const app = performance.now() - started;
+    started = performance.now();
+    fleetSummaryFloor.all(scope.siteId);
+    const floor = performance.now() - started;
+    if (round < 2) continue;
+    appTimes.push(app);
+    floorTimes.push(floor);
+    ratios.push(app / floor);
+  }
+  db.close();
+  console.log(`\nGET /api/export/fleet.csv, ${summaryRows} coils: readFleetSummaryRows + CSV ${median(appTimes).toFixed(0)} ms, raw aggregate SQL ${median(floorTimes).toFixed(0)} ms (medians of 11 alternating rounds), ×${median(ratios).toFixed(2)}`);
+  recordFigure({ key: "fleetCsvRead", value: median(appTimes), floor: median(floorTimes), ratio: median(ratios), note: `${summaryRows} coils` });
 
   console.log(`\nExporting the sessions table (peak heap + array buffers above a collected start)`);
   console.log(`  floor, one coil (${busyTag}): ${coilRows.rows} rows, ${(coilRows.bytes / MB).toFixed(2)} MB of CSV streamed, peak ${coilFloor.toFixed(1)} MB`);
   console.log(`  floor, whole fleet: ${fleetRows.rows} rows, ${(fleetRows.bytes / MB).toFixed(1)} MB of CSV streamed, peak ${fleetFloor.toFixed(1)} MB`);
-  recordFloorOnly("fleetSessionsExportPeak", fleetFloor, `${fleetRows.rows} rows, ${(fleetRows.bytes / MB).toFixed(0)} MB of CSV`);
 
-  // What GET /api/export/coils/<tag>/sessions.csv does today: the coil's whole logbook document, then the table.
-  const { exportCoil } = await import("../lib/db/export");
-  const { coilTableCsv } = await import("../lib/export/logbook-csv");
-  try {
-    let csvBytes = 0;
-    const appPeak = await peakOf(async () => {
-      const doc = await exportCoil(benchScope(null), busyTag);
-      const coil = doc?.coils[0];
-      if (!coil) throw new Error(`No coil ${busyTag} in the fixture`);
-      csvBytes = Buffer.byteLength(coilTableCsv(coil, "sessions"));
-    });
-    console.log(`  app, one coil (exportCoil + coilTableCsv "sessions"): ${(csvBytes / MB).toFixed(2)} MB of CSV, peak ${appPeak.toFixed(1)} MB   ×${(appPeak / coilFloor).toFixed(1)} the floor`);
-    recordFigure({ key: "sessionExportPeak", value: appPeak, floor: coilFloor, note: `${coilRows.rows} rows` });
-  } catch (error) {
-    console.log(`  app, one coil: failed on this code (${(error as Error).message.split("\n").filter(Boolean).at(-1)})`);
-    recordFloorOnly("sessionExportPeak", coilFloor, "the app's export failed on this code, see above");
-  }
+  // What the two routes return: openSessionExport's keyset pages through csvStream, read to the end.
+  let coilBytes = 0;
+  const coilPeak = await peakOf(async () => {
+    const { pages } = await openSessionExport(scope, { tag: busyTag });
+    coilBytes = await drain(csvStream(pages, sessionCsvPage));
+  });
+  console.log(`  app, one coil (GET /api/export/coils/${busyTag}/sessions.csv): ${(coilBytes / MB).toFixed(2)} MB of CSV, peak ${coilPeak.toFixed(1)} MB   ×${(coilPeak / coilFloor).toFixed(1)} the floor`);
+  recordFigure({ key: "sessionExportPeak", value: coilPeak, floor: coilFloor, note: `${coilRows.rows} rows` });
+
+  let fleetBytes = 0;
+  const fleetStarted = performance.now();
+  const fleetPeak = await peakOf(async () => {
+    const { pages } = await openSessionExport(scope);
+    fleetBytes = await drain(csvStream(pages, sessionCsvPage));
+  });
+  const fleetSeconds = (performance.now() - fleetStarted) / 1000;
+  console.log(`  app, whole fleet (GET /api/export/sessions.csv): ${(fleetBytes / MB).toFixed(1)} MB of CSV in ${fleetSeconds.toFixed(1)} s, peak ${fleetPeak.toFixed(1)} MB   ×${(fleetPeak / fleetFloor).toFixed(1)} the floor`);
+  if (fleetBytes !== fleetRows.bytes) console.log(`  (the app's file is ${fleetBytes} bytes, the floor's ${fleetRows.bytes}: the floor prints times as SQLite stores them, "…+00:00", the app as ISO "…Z")`);
+  recordFigure({ key: "fleetSessionsExportPeak", value: fleetPeak, floor: fleetFloor, note: `${fleetRows.rows} rows, ${(fleetBytes / MB).toFixed(0)} MB of CSV in ${fleetSeconds.toFixed(0)} s` });
 }

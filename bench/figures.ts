@@ -97,7 +97,6 @@ const ROWS = {
     floor: "raw better-sqlite3 rows streamed to CSV",
     goal: null,
     flag: "--large",
-    slot: "a streaming sessions export in lib/db/export.ts and a route for it (logbook area, changing for issue 12)",
   },
   fleetCsvRead: {
     figure: "GET /api/export/fleet.csv at 500 coils, server work",
@@ -105,7 +104,6 @@ const ROWS = {
     floor: "raw aggregate SQL of the same counts",
     goal: null,
     flag: "--large",
-    slot: "the aggregate rewrite of exportFleet() in lib/db/export.ts (logbook area): today it reads every session, sample, sweep and sweep point to count them, too much to run at this size",
   },
   signInChecks: {
     figure: "sign-in checks per page request (dashboard, coil page)",

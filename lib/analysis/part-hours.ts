@@ -22,23 +22,39 @@ export function computePartExposures(
   coils: readonly { components: readonly ComponentRecord[]; sessions: readonly { startedAt: Date; durationS: number }[] }[],
   failures: readonly { componentId: string | null }[],
 ): PartExposureRow[] {
+  const fittedSeconds = new Map<string, number>();
+  for (const coil of coils) {
+    for (const component of coil.components) {
+      fittedSeconds.set(component.id, coil.sessions.filter((s) => isFittedAt(component, s.startedAt)).reduce((sum, s) => sum + Math.max(0, s.durationS), 0));
+    }
+  }
+  return partExposuresFromSeconds(coils.flatMap((coil) => coil.components), fittedSeconds, failures);
+}
+
+/**
+ * The same rows from each part's seconds of sessions run while it was fitted, summed elsewhere (lib/db/part-hours.ts
+ * sums them in the database, so the fleet's reliability page does not read every session). A part missing from
+ * `fittedSeconds` ran no session. Rows come in the order of `components`.
+ */
+export function partExposuresFromSeconds(
+  components: readonly Pick<ComponentRecord, "id" | "kind" | "partNumber">[],
+  fittedSeconds: ReadonlyMap<string, number>,
+  failures: readonly { componentId: string | null }[],
+): PartExposureRow[] {
   const failuresByComponent = new Map<string, number>();
   for (const f of failures) if (f.componentId) failuresByComponent.set(f.componentId, (failuresByComponent.get(f.componentId) ?? 0) + 1);
   const rows: PartExposureRow[] = [];
-  for (const coil of coils) {
-    for (const component of coil.components) {
-      const partKey = normalizePartKey(component.partNumber);
-      if (partKey === "") continue;
-      const seconds = coil.sessions.filter((s) => isFittedAt(component, s.startedAt)).reduce((sum, s) => sum + Math.max(0, s.durationS), 0);
-      rows.push({
-        partKey,
-        partNumber: component.partNumber.trim(),
-        kind: component.kind,
-        componentId: component.id,
-        operatingHours: seconds / 3600,
-        failures: failuresByComponent.get(component.id) ?? 0,
-      });
-    }
+  for (const component of components) {
+    const partKey = normalizePartKey(component.partNumber);
+    if (partKey === "") continue;
+    rows.push({
+      partKey,
+      partNumber: component.partNumber.trim(),
+      kind: component.kind,
+      componentId: component.id,
+      operatingHours: (fittedSeconds.get(component.id) ?? 0) / 3600,
+      failures: failuresByComponent.get(component.id) ?? 0,
+    });
   }
   return rows;
 }

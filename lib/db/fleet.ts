@@ -9,7 +9,6 @@
  */
 import { prisma } from "./client";
 import type { Clearance, Coil, Component, Failure, Loan } from "./generated/client";
-import { getFleetHistory } from "./coil-history";
 import { getCoilFigures } from "./coil-summary";
 import { getCurrentPolicy } from "./policy";
 import { findPartReplacements } from "../analysis/clearance-facts";
@@ -18,7 +17,8 @@ import type { HealthStatus } from "../calc/coil-health";
 import type { SessionMarginsBrief } from "../analysis/margin-brief";
 import type { HeadroomTrend } from "../analysis/headroom-trend";
 import type { FleetQuery } from "../validation/fleet-query";
-import { collectPartKinds, computePartExposures, countFailureModesByPart } from "../analysis/part-hours";
+import { collectPartKinds, countFailureModesByPart, partExposuresFromSeconds } from "../analysis/part-hours";
+import { readPartFittedSeconds } from "./part-hours";
 import { partReliability } from "../calc/reliability";
 import { recordOfSite, type SiteScope } from "./site-scope";
 
@@ -145,10 +145,18 @@ export function selectFleetRows(rows: readonly FleetRow[], query: FleetQuery): F
   return [...kept].sort(compare[query.sort]);
 }
 
-/** Reliability per part number across the site's fleet: hours while fitted and failures recorded against the part. */
+/**
+ * Reliability per part number across the site's fleet: hours while fitted (summed in the database, lib/db/part-hours.ts)
+ * and failures recorded against the part. Parts come coil by coil in tag order, each coil's by installation, as the
+ * fleet history used to give them: the part number shown for a key is the last one's.
+ */
 export async function getPartReliability(scope: SiteScope) {
-  const [histories, failures] = await Promise.all([getFleetHistory(scope), prisma.failure.findMany({ where: recordOfSite(scope), select: { componentId: true, mode: true } })]);
-  const exposures = computePartExposures(histories, failures);
+  const [components, fittedSeconds, failures] = await Promise.all([
+    prisma.component.findMany({ where: recordOfSite(scope), select: { id: true, kind: true, partNumber: true }, orderBy: [{ coil: { tag: "asc" } }, { installedAt: "asc" }, { id: "asc" }] }),
+    readPartFittedSeconds(scope),
+    prisma.failure.findMany({ where: recordOfSite(scope), select: { componentId: true, mode: true } }),
+  ]);
+  const exposures = partExposuresFromSeconds(components, fittedSeconds, failures);
   const kinds = collectPartKinds(exposures);
   const modes = countFailureModesByPart(exposures, failures);
   const shownNumber = new Map(exposures.map((e) => [e.partKey, e.partNumber]));

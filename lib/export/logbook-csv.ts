@@ -13,9 +13,23 @@ function toCsv(rows: Record<string, string | number | null>[], columns: string[]
   return Papa.unparse({ fields: columns, data: rows.map((row) => columns.map((c) => row[c] ?? "")) }, { newline: "\r\n" });
 }
 
+/** The sessions table's columns, in order: the per-coil file and the site's streamed file share them. */
+export const SESSION_CSV_COLUMNS = ["coil_tag", "session_id", "started_at", "top_load", "supply_voltage_v", "supply_current_a", "duration_s", "ambient_c", "heat_sink_start_c", "heat_sink_end_c", "running_frequency_hz", "peak_switch_voltage_v", "duty_cycle", "outcome", "logged_by", "notes"] as const;
+export type SessionCsvRow = Record<(typeof SESSION_CSV_COLUMNS)[number], string | number | null>;
+
+/**
+ * One page of a streamed sessions table: the first page starts with the header line, every later one with the line
+ * break that ends the previous page, so the pages joined are exactly `sessionsCsv`'s text for the same rows.
+ */
+export function sessionCsvPage(rows: SessionCsvRow[], first: boolean): string {
+  const columns = [...SESSION_CSV_COLUMNS];
+  const data = rows.map((row) => columns.map((c) => row[c] ?? ""));
+  if (first) return Papa.unparse({ fields: columns, data }, { newline: "\r\n" });
+  return rows.length === 0 ? "" : `\r\n${Papa.unparse({ fields: columns, data }, { newline: "\r\n", header: false })}`;
+}
+
 export function sessionsCsv(coil: CoilDocument): string {
   const topLoads = new Map(coil.topLoads.map((t) => [t.id, t.name]));
-  const columns = ["coil_tag", "session_id", "started_at", "top_load", "supply_voltage_v", "supply_current_a", "duration_s", "ambient_c", "heat_sink_start_c", "heat_sink_end_c", "running_frequency_hz", "peak_switch_voltage_v", "duty_cycle", "outcome", "logged_by", "notes"];
   return toCsv(
     coil.sessions.map((s) => ({
       coil_tag: coil.tag,
@@ -35,7 +49,7 @@ export function sessionsCsv(coil: CoilDocument): string {
       logged_by: s.loggedBy,
       notes: s.notes,
     })),
-    columns,
+    [...SESSION_CSV_COLUMNS],
   );
 }
 
@@ -96,10 +110,18 @@ export function coilTableCsv(coil: CoilDocument, table: CoilCsvTable): string {
   return table === "sessions" ? sessionsCsv(coil) : table === "sweep-points" ? sweepPointsCsv(coil) : partsCsv(coil);
 }
 
-/** One row per coil: the build and how much of a logbook it has. */
+/** The fleet summary's columns, in order. */
+export const FLEET_SUMMARY_COLUMNS = ["tag", "name", "builder", "status", "driver", "form_diameter_m", "winding_length_m", "turns", "wire_diameter_m", "wire_awg", "measured_inductance_h", "parts_fitted", "sessions", "last_session_at", "sweeps", "last_first_series_resonance_hz", "failures", "open_failures", "loans_out"] as const;
+export type FleetSummaryRow = Record<(typeof FLEET_SUMMARY_COLUMNS)[number], string | number | null>;
+
+/** The fleet summary from rows already counted (lib/db/fleet-summary.ts counts them in the database). */
+export function fleetSummaryRowsCsv(rows: FleetSummaryRow[]): string {
+  return toCsv(rows, [...FLEET_SUMMARY_COLUMNS]);
+}
+
+/** One row per coil: the build and how much of a logbook it has, counted from a whole logbook file. */
 export function fleetSummaryCsv(doc: LogbookDocument): string {
-  const columns = ["tag", "name", "builder", "status", "driver", "form_diameter_m", "winding_length_m", "turns", "wire_diameter_m", "wire_awg", "measured_inductance_h", "parts_fitted", "sessions", "last_session_at", "sweeps", "last_first_series_resonance_hz", "failures", "open_failures", "loans_out"];
-  return toCsv(
+  return fleetSummaryRowsCsv(
     doc.coils.map((c) => {
       const lastSweep = c.sweeps.at(-1);
       return {
@@ -124,6 +146,5 @@ export function fleetSummaryCsv(doc: LogbookDocument): string {
         loans_out: c.loans.filter((l) => l.returnedAt === null).length,
       };
     }),
-    columns,
   );
 }
