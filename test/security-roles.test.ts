@@ -584,6 +584,7 @@ const LIST_ROUTES: Record<string, "lists records" | { exempt: string }> = {
   "app/api/coils/route.ts#GET": "lists records",
   "app/api/export/fleet.csv/route.ts#GET": "lists records",
   "app/api/export/fleet.json/route.ts#GET": "lists records",
+  "app/api/export/sessions.csv/route.ts#GET": "lists records",
   "app/api/bench-floor/route.ts#GET": { exempt: "the benchmark's floor: reads no data at all (and answers 404 unless the benchmark started the server)" },
 };
 
