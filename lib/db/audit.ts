@@ -4,7 +4,7 @@
  * record changed; the log is read one site at a time (organisation-wide events, siteId null, are not a site's).
  */
 import { prisma, type Tx } from "./client";
-import type { Prisma } from "./generated/client";
+import { Prisma } from "./generated/client";
 import { textContains } from "./text-search";
 import type { SiteScope } from "./site-scope";
 
@@ -19,7 +19,15 @@ export interface AuditEntry {
   detail?: unknown;
 }
 
-export async function recordAudit(tx: Tx, entry: AuditEntry): Promise<void> {
+/** Records the event inside the write's transaction: a Prisma one, or the statement runner of a write that runs its own SQL (session-write.ts). */
+export async function recordAudit(tx: Tx | { execute(statement: Prisma.Sql): Promise<number> }, entry: AuditEntry): Promise<void> {
+  if ("execute" in tx) {
+    // "at" is written here: SQLite's column default (CURRENT_TIMESTAMP) is not the format the client stores dates in.
+    await tx.execute(Prisma.sql`
+      INSERT INTO "AuditEvent" ("siteId", at, "actorId", action, entity, "entityId", summary, "detailJson")
+      VALUES (${entry.siteId}, ${new Date()}, ${entry.actorId}, ${entry.action}, ${entry.entity}, ${entry.entityId}, ${entry.summary}, ${entry.detail === undefined ? null : JSON.stringify(entry.detail)})`);
+    return;
+  }
   await tx.auditEvent.create({
     data: {
       siteId: entry.siteId,

@@ -15,17 +15,60 @@ export type Db = PrismaClient;
 /** The client inside an interactive transaction. */
 export type Tx = Parameters<Parameters<PrismaClient["$transaction"]>[0]>[0];
 
-const globalForPrisma = globalThis as unknown as { coilyardPrisma?: PrismaClient };
+/**
+ * The driver adapter the client is connected through: one SQLite connection or one PostgreSQL pool. The session write
+ * (session-write.ts) runs its statements on it directly, skipping the client's per-call query compilation; it is the
+ * same connection (and, on SQLite, the same transaction lock) the client's own transactions use.
+ */
+export interface ConnectedAdapter {
+  startTransaction(isolationLevel?: string): Promise<AdapterTransaction>;
+}
+export interface AdapterQuery {
+  sql: string;
+  args: unknown[];
+  argTypes: { scalarType: string; arity: "scalar" | "list" }[];
+}
+export interface AdapterTransaction {
+  readonly options: { usePhantomQuery: boolean };
+  queryRaw(query: AdapterQuery): Promise<{ columnNames: string[]; rows: unknown[][] }>;
+  executeRaw(query: AdapterQuery): Promise<number>;
+  commit(): Promise<void>;
+  rollback(): Promise<void>;
+}
 
-export function createPrismaClient(url: string = databaseUrl()): PrismaClient {
+const globalForPrisma = globalThis as unknown as { coilyardPrisma?: PrismaClient; coilyardAdapters?: WeakMap<PrismaClient, ConnectedAdapter> };
+// Kept on globalThis beside the cached client (a dev reload keeps the client, so it must keep its adapter too), per
+// client: tests load lib/db several times over, each copy with a client of its own.
+const adapters = (globalForPrisma.coilyardAdapters ??= new WeakMap());
+
+type AdapterFactory = { connect(): Promise<unknown> };
+
+/** Keeps the adapter the client connects through (and forgets it when the client disconnects), for connectedAdapter. */
+function rememberConnection<F>(factory: F, remember: (adapter: ConnectedAdapter | null) => void): F {
+  const target = factory as unknown as AdapterFactory;
+  const connect = target.connect.bind(target);
+  target.connect = async () => {
+    const adapter = (await connect()) as ConnectedAdapter & { dispose(): Promise<void> };
+    const dispose = adapter.dispose.bind(adapter);
+    adapter.dispose = async () => {
+      remember(null);
+      await dispose();
+    };
+    remember(adapter);
+    return adapter;
+  };
+  return factory;
+}
+
+export function createPrismaClient(url: string = databaseUrl(), onConnect: (adapter: ConnectedAdapter | null) => void = () => undefined): PrismaClient {
   if (databaseProvider(url) === "postgresql") {
     // Both clients are generated from the same schema (prisma/postgresql/derive-schema.ts), so they answer the same
     // queries with the same shapes; lib/db is typed against the SQLite one and stays provider-neutral.
-    const adapter = createPostgresAdapter(url, postgresPoolSize());
+    const adapter = rememberConnection(createPostgresAdapter(url, postgresPoolSize()), onConnect);
     return new PostgresPrismaClient({ adapter }) as unknown as PrismaClient;
   }
   // timeout: how long a writer waits for SQLite's lock before giving up (ms).
-  const adapter = new PrismaBetterSQLite3({ url, timeout: 10_000 });
+  const adapter = rememberConnection(new PrismaBetterSQLite3({ url, timeout: 10_000 }), onConnect);
   return new PrismaClient({ adapter });
 }
 
@@ -38,5 +81,18 @@ function postgresPoolSize(): number {
 /** The database in use, for the few statements that must be written per dialect (see sweeps.ts, coil-history.ts). */
 export const provider: DatabaseProvider = databaseProvider();
 
-export const prisma: PrismaClient = globalForPrisma.coilyardPrisma ?? createPrismaClient();
+export const prisma: PrismaClient =
+  globalForPrisma.coilyardPrisma ??
+  createPrismaClient(databaseUrl(), (adapter) => {
+    if (adapter) adapters.set(prisma, adapter);
+    else adapters.delete(prisma);
+  });
 if (process.env.NODE_ENV !== "production") globalForPrisma.coilyardPrisma = prisma;
+
+/** The adapter `prisma` is connected through, connecting it first when it is not yet (or no longer). */
+export async function connectedAdapter(): Promise<ConnectedAdapter> {
+  if (!adapters.has(prisma)) await prisma.$connect();
+  const adapter = adapters.get(prisma);
+  if (!adapter) throw new Error("The database client connected without its driver adapter.");
+  return adapter;
+}

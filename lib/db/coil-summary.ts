@@ -27,8 +27,17 @@ import { briefSessionMargins, type SessionMarginsBrief } from "../analysis/margi
 import { collectHeadroomTrend, type HeadroomTrend } from "../analysis/headroom-trend";
 import { coilOfSite, type SiteScope } from "./site-scope";
 
-/** Records that the coil's logbook changed. Call it in the same transaction as the write. */
-export async function markCoilChanged(tx: Tx, coilId: string): Promise<void> {
+/**
+ * Records that the coil's logbook changed. Call it in the same transaction as the write: a Prisma transaction, or the
+ * statement runner of a write that runs its own SQL (session-write.ts), which gets the same upsert as one statement.
+ */
+export async function markCoilChanged(tx: Tx | { execute(statement: Prisma.Sql): Promise<number> }, coilId: string): Promise<void> {
+  if ("execute" in tx) {
+    await tx.execute(Prisma.sql`
+      INSERT INTO "CoilSummary" ("coilId", revision) VALUES (${coilId}, 1)
+      ON CONFLICT ("coilId") DO UPDATE SET revision = "CoilSummary".revision + 1`);
+    return;
+  }
   await tx.coilSummary.upsert({ where: { coilId }, create: { coilId, revision: 1 }, update: { revision: { increment: 1 } } });
 }
 
