@@ -11,7 +11,7 @@
 import { prisma } from "./client";
 import type { Prisma } from "./generated/client";
 import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
-import type { SessionCsvRow } from "../export/logbook-csv";
+import { sessionCsvRow, type SessionCsvRow } from "../export/logbook-csv";
 
 export const SESSION_EXPORT_PAGE_SIZE = 1000;
 
@@ -78,24 +78,7 @@ async function* readSessionPages(scope: SiteScope, coils: { id: string; tag: str
   }
 }
 
-/** The same cells `sessionsCsv` writes from a logbook file: ISO times, the top load's name, the logger's e-mail. */
+/** The same cells `sessionsCsv` writes from a logbook file. */
 function toSessionCsvRow(tag: string, s: ExportedSession): SessionCsvRow {
-  return {
-    coil_tag: tag,
-    session_id: s.id,
-    started_at: s.startedAt.toISOString(),
-    top_load: s.topLoadId ? (s.topLoad?.name ?? s.topLoadId) : "",
-    supply_voltage_v: s.supplyVoltageV,
-    supply_current_a: s.supplyCurrentA,
-    duration_s: s.durationS,
-    ambient_c: s.ambientTempC,
-    heat_sink_start_c: s.heatSinkStartC,
-    heat_sink_end_c: s.heatSinkEndC,
-    running_frequency_hz: s.runningFrequencyHz,
-    peak_switch_voltage_v: s.peakSwitchVoltageV,
-    duty_cycle: s.dutyCycle,
-    outcome: s.outcome,
-    logged_by: s.loggedBy?.email ?? null,
-    notes: s.notes,
-  };
+  return sessionCsvRow(tag, s, { startedAt: s.startedAt.toISOString(), topLoadName: s.topLoad?.name, loggedBy: s.loggedBy?.email ?? null });
 }

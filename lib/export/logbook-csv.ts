@@ -28,27 +28,51 @@ export function sessionCsvPage(rows: SessionCsvRow[], first: boolean): string {
   return rows.length === 0 ? "" : `\r\n${Papa.unparse({ fields: columns, data }, { newline: "\r\n", header: false })}`;
 }
 
+type Figure = number | null;
+
+/** A session's own columns, as both the logbook file and the database's session rows carry them. */
+export interface SessionCsvFields {
+  id: string;
+  topLoadId: string | null;
+  supplyVoltageV: Figure;
+  supplyCurrentA: Figure;
+  durationS: Figure;
+  ambientTempC: Figure;
+  heatSinkStartC: Figure;
+  heatSinkEndC: Figure;
+  runningFrequencyHz: Figure;
+  peakSwitchVoltageV: Figure;
+  dutyCycle: Figure;
+  outcome: string;
+  notes: string;
+}
+
+/** One sessions-table row: ISO start time, the top load's name (its id when the name is unknown), the logger's e-mail. */
+export function sessionCsvRow(coilTag: string, s: SessionCsvFields, named: { startedAt: string; topLoadName: string | undefined; loggedBy: string | null }): SessionCsvRow {
+  return {
+    coil_tag: coilTag,
+    session_id: s.id,
+    started_at: named.startedAt,
+    top_load: s.topLoadId ? (named.topLoadName ?? s.topLoadId) : "",
+    supply_voltage_v: s.supplyVoltageV,
+    supply_current_a: s.supplyCurrentA,
+    duration_s: s.durationS,
+    ambient_c: s.ambientTempC,
+    heat_sink_start_c: s.heatSinkStartC,
+    heat_sink_end_c: s.heatSinkEndC,
+    running_frequency_hz: s.runningFrequencyHz,
+    peak_switch_voltage_v: s.peakSwitchVoltageV,
+    duty_cycle: s.dutyCycle,
+    outcome: s.outcome,
+    logged_by: named.loggedBy,
+    notes: s.notes,
+  };
+}
+
 export function sessionsCsv(coil: CoilDocument): string {
   const topLoads = new Map(coil.topLoads.map((t) => [t.id, t.name]));
   return toCsv(
-    coil.sessions.map((s) => ({
-      coil_tag: coil.tag,
-      session_id: s.id,
-      started_at: s.startedAt,
-      top_load: s.topLoadId ? (topLoads.get(s.topLoadId) ?? s.topLoadId) : "",
-      supply_voltage_v: s.supplyVoltageV,
-      supply_current_a: s.supplyCurrentA,
-      duration_s: s.durationS,
-      ambient_c: s.ambientTempC,
-      heat_sink_start_c: s.heatSinkStartC,
-      heat_sink_end_c: s.heatSinkEndC,
-      running_frequency_hz: s.runningFrequencyHz,
-      peak_switch_voltage_v: s.peakSwitchVoltageV,
-      duty_cycle: s.dutyCycle,
-      outcome: s.outcome,
-      logged_by: s.loggedBy,
-      notes: s.notes,
-    })),
+    coil.sessions.map((s) => sessionCsvRow(coil.tag, s, { startedAt: s.startedAt, topLoadName: s.topLoadId ? topLoads.get(s.topLoadId) : undefined, loggedBy: s.loggedBy })),
     [...SESSION_CSV_COLUMNS],
   );
 }
