@@ -210,6 +210,15 @@ describe("sites: a coil belongs to its site", () => {
     expect(await readRunningFrequencies(otherScope, coil.id)).toEqual([]);
   });
 
+  it("fleet prediction reads take the site's latest sweeps and sessions, oldest first, however long the logbook", async () => {
+    const { scope } = await coilAndAnotherSite();
+    const whole = await readFleetPredictionInputs(scope);
+    expect(whole.sessions.length).toBeGreaterThan(3);
+    const windowed = await readFleetPredictionInputs(scope, 3);
+    expect(windowed.sessions).toEqual(whole.sessions.slice(-3));
+    expect(windowed.sweeps).toEqual(whole.sweeps.slice(-3));
+  });
+
   it("leaves the coil out of another site's lists, search, pickers and fleet reads", async () => {
     const { scope, otherScope, coil } = await coilAndAnotherSite();
     expect((await listCoils(scope, { q: "cy-0" })).rows.map((c) => c.id)).toEqual([coil.id]);

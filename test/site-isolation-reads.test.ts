@@ -133,6 +133,15 @@ const SCOPED_READS: Record<string, Call> = {
   "district.ts#getDistrictHealth": args((p) => p.now),
   "users.ts#listSiteMembers": args(),
   "users.ts#listAllUsers": args(),
+  "fleet-summary.ts#readFleetSummaryRows": args(),
+  "part-hours.ts#readPartFittedSeconds": args(),
+  // The streamed export, drained page by page: every row it would send.
+  "session-export.ts#openSessionExport": async (scope, _pick, read) => {
+    const exported = (await read.self!(scope, {})) as { pages: AsyncIterable<unknown[]> };
+    const rows: unknown[] = [];
+    for await (const page of exported.pages) rows.push(...page);
+    return rows;
+  },
 };
 
 /** Reads of people: every person in the answer must belong to the scope's site (an organisation admin's listAllUsers excepted). */
@@ -182,6 +191,11 @@ const UNSCOPED: Record<string, string> = {
   "audit.ts#recordAudit": "writes inside a caller's transaction; the entry names its site",
   "clearances.ts#describeClearRefusal": "pure: words for failed rules",
   "client.ts#createPrismaClient": "the connection itself",
+  "client.ts#connectedAdapter": "the connection itself (the session write's driver adapter)",
+  "session-write.ts#adapterErrorKind": "pure: classifies a driver error",
+  "session-write.ts#isAdapterWriteConflict": "pure: classifies a driver error",
+  "session-write.ts#newRecordId": "pure: a new id",
+  "session-write.ts#inAdapterTransaction": "runs the caller's statements in one transaction; the session write scopes its own statements (test/session-write.test.ts, and the role test's site probes of logging a session)",
   "coil-summary.ts#computeCoilFigures": "pure: figures from a history already read in scope",
   "coil-summary.ts#readCurrentFigures": "pure: checks a stored row's freshness",
   "copy-database.ts#copyDatabase": "the whole-database copy tool (db:copy), run by an operator, keeps every record's site",

@@ -1,8 +1,10 @@
 /**
  * The few columns prediction quality needs, never sweep points or heat-sink samples: the coils' builds, their
  * top loads, each sweep's first series resonance and each session's running frequency. One coil's rows for the
- * coil page, or the whole fleet's for the prediction-quality page (four narrow queries, fine for 500 coils). The
- * fleet is the scope's site: no figure here learns from, or shows, another site's coils.
+ * coil page, or the fleet's for the prediction-quality page and the running-offset fallback. The fleet is the
+ * scope's site: no figure here learns from, or shows, another site's coils. Fleet-wide reads take the site's latest
+ * FLEET_PREDICTION_WINDOW sweeps and sessions, so their cost stays bounded however long the logbook grows; a session
+ * whose sweep before it falls outside the window is left out, as one with no sweep before it always was.
  */
 import { prisma } from "./client";
 import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
@@ -26,34 +28,56 @@ const topLoadSelect = { id: true, coilId: true, name: true, shape: true, diamete
 const sweepSelect = { id: true, coilId: true, takenAt: true, topLoadId: true, firstSeriesResonanceHz: true } as const;
 const runningSelect = { id: true, coilId: true, startedAt: true, topLoadId: true, runningFrequencyHz: true } as const;
 
-/** Sessions that logged a running frequency (one coil's, or every coil's of the site), oldest first. */
-export function readRunningFrequencies(scope: SiteScope, coilId?: string) {
+/** How many of the site's latest sweeps, and of its latest sessions, the fleet-wide figures look at. */
+export const FLEET_PREDICTION_WINDOW = 2_000;
+
+/** A coil's sessions that logged a running frequency, oldest first (what its own offset is learnt from). */
+export function readRunningFrequencies(scope: SiteScope, coilId: string) {
   return prisma.runSession.findMany({
-    where: { runningFrequencyHz: { not: null }, ...recordOfSite(scope), ...(coilId ? { coilId } : {}) },
+    where: { runningFrequencyHz: { not: null }, ...recordOfSite(scope), coilId },
     select: runningSelect,
     orderBy: [{ startedAt: "asc" }, { id: "asc" }],
   });
 }
 
-/** Everything the fleet's prediction-quality figures read, oldest first within each table. */
-export async function readFleetPredictionInputs(scope: SiteScope) {
+/** The site's latest sessions that logged a running frequency, oldest first. */
+async function readFleetRunningWindow(scope: SiteScope, window: number) {
+  const newestFirst = await prisma.runSession.findMany({
+    where: { runningFrequencyHz: { not: null }, ...recordOfSite(scope) },
+    select: runningSelect,
+    orderBy: [{ startedAt: "desc" }, { id: "desc" }],
+    take: window,
+  });
+  return newestFirst.reverse();
+}
+
+/** The site's latest sweeps with a first series resonance, oldest first. */
+async function readFleetSweepWindow(scope: SiteScope, window: number) {
+  const newestFirst = await prisma.sweep.findMany({
+    where: { firstSeriesResonanceHz: { not: null }, ...recordOfSite(scope) },
+    select: sweepSelect,
+    orderBy: [{ takenAt: "desc" }, { id: "desc" }],
+    take: window,
+  });
+  return newestFirst.reverse();
+}
+
+/** Everything the fleet's prediction-quality figures read (the site's coils and top loads, the windows of sweeps and sessions), oldest first within each table. */
+export async function readFleetPredictionInputs(scope: SiteScope, window = FLEET_PREDICTION_WINDOW) {
   const [coils, topLoads, sweeps, sessions] = await Promise.all([
     prisma.coil.findMany({ where: coilOfSite(scope), select: coilSelect, orderBy: { tag: "asc" } }),
     prisma.topLoad.findMany({ where: recordOfSite(scope), select: topLoadSelect, orderBy: [{ createdAt: "asc" }, { id: "asc" }] }),
-    prisma.sweep.findMany({ where: { firstSeriesResonanceHz: { not: null }, ...recordOfSite(scope) }, select: sweepSelect, orderBy: [{ takenAt: "asc" }, { id: "asc" }] }),
-    readRunningFrequencies(scope),
+    readFleetSweepWindow(scope, window),
+    readFleetRunningWindow(scope, window),
   ]);
   return { coils, topLoads, sweeps, sessions };
 }
 
 export type FleetPredictionInputs = Awaited<ReturnType<typeof readFleetPredictionInputs>>;
 
-/** The site's sweeps' first resonances and sessions' running frequencies: what the running-offset fleet fallback learns from. */
-export async function readFleetRunningInputs(scope: SiteScope) {
-  const [sweeps, sessions] = await Promise.all([
-    prisma.sweep.findMany({ where: { firstSeriesResonanceHz: { not: null }, ...recordOfSite(scope) }, select: sweepSelect, orderBy: [{ takenAt: "asc" }, { id: "asc" }] }),
-    readRunningFrequencies(scope),
-  ]);
+/** The windows of the site's sweeps' first resonances and sessions' running frequencies: what the running-offset fleet fallback learns from. */
+export async function readFleetRunningInputs(scope: SiteScope, window = FLEET_PREDICTION_WINDOW) {
+  const [sweeps, sessions] = await Promise.all([readFleetSweepWindow(scope, window), readFleetRunningWindow(scope, window)]);
   return { sweeps, sessions };
 }
 

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { pageUser } from "@/app/ui/page-guard";
-import { readFleetPredictionInputs } from "@/lib/db/prediction-history";
+import { FLEET_PREDICTION_WINDOW, readFleetPredictionInputs } from "@/lib/db/prediction-history";
 import { assessPredictionQuality, type PredictionModel } from "@/lib/analysis/prediction-quality";
 import { formatDate, formatPercent } from "@/lib/units/format";
 
@@ -23,7 +23,8 @@ export default async function PredictionQualityPage() {
       <h1>How far the predictions have landed</h1>
       <p className="lede">
         Every deviation here is out of sample: a sweep is compared with a calibration fitted only on the coil&apos;s earlier sweeps, a session with an offset learnt only
-        from sessions before it. Deviation is (measured − predicted) ÷ predicted; the spread is the middle half of the deviations (first to third quartile).
+        from sessions before it. Deviation is (measured − predicted) ÷ predicted; the spread is the middle half of the deviations (first to third quartile). The figures cover the site&apos;s latest{" "}
+        {FLEET_PREDICTION_WINDOW.toLocaleString("en")} sweeps and latest {FLEET_PREDICTION_WINDOW.toLocaleString("en")} sessions.
       </p>
       <div className="table-wrap">
         <table>
