@@ -10,7 +10,7 @@ test("every area lists the demo club's records", async ({ page }) => {
     ["Sessions", /Run sessions/],
     ["Failures", /Failures and post-mortems/],
     ["Loans", /^Loans$/],
-    ["Admin", /^Admin$/],
+    ["Admin", /^Admin: Kettlewell Maker Collective$/],
     ["Fleet", /^Fleet$/],
   ];
   for (const [link, heading] of areas) {
