@@ -66,21 +66,6 @@ function streamCsv(statement: Database.Statement, params: unknown[], sample: () 
   return { rows, bytes };
 }
 
-/** fleetSummaryCsv's columns (lib/export/logbook-csv.ts), each coil's counts and latest values by aggregate SQL. */
-function prepareFleetSummaryFloor(db: Database.Database): Database.Statement {
-  return db.prepare(`
-    SELECT c.tag, c.name, c."builderName", c.status, c.topology, c."formDiameterM", c."windingLengthM", c.turns, c."wireDiameterM", c."wireGaugeAwg", c."measuredInductanceH",
-      (SELECT count(*) FROM "Component" p WHERE p."coilId" = c.id AND p."removedAt" IS NULL) AS "partsFitted",
-      (SELECT count(*) FROM "RunSession" s WHERE s."coilId" = c.id) AS sessions,
-      (SELECT max(s."startedAt") FROM "RunSession" s WHERE s."coilId" = c.id) AS "lastSessionAt",
-      (SELECT count(*) FROM "Sweep" w WHERE w."coilId" = c.id) AS sweeps,
-      (SELECT w."firstSeriesResonanceHz" FROM "Sweep" w WHERE w."coilId" = c.id ORDER BY w."takenAt" DESC, w.id DESC LIMIT 1) AS "lastResonanceHz",
-      (SELECT count(*) FROM "Failure" f WHERE f."coilId" = c.id) AS failures,
-      (SELECT count(*) FROM "Failure" f WHERE f."coilId" = c.id AND f.status = 'open') AS "openFailures",
-      (SELECT count(*) FROM "Loan" l WHERE l."coilId" = c.id AND l."returnedAt" IS NULL) AS "loansOut"
-    FROM "Coil" c WHERE c."siteId" = ? ORDER BY c.tag`);
-}
-
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 
 /** Reads a route's CSV stream to the end as a client would, keeping only a byte count. */
@@ -100,10 +85,12 @@ export async function benchExportMemory(busyTag: string): Promise<void> {
   const scope = benchScope(null);
   const coilFloor = await peakOf((sample) => (coilRows = streamCsv(oneCoil, [scope.siteId, busyTag], sample)));
   const fleetFloor = await peakOf((sample) => (fleetRows = streamCsv(wholeFleet, [scope.siteId], sample)));
-  const fleetSummaryFloor = prepareFleetSummaryFloor(db);
 
-  // GET /api/export/fleet.csv: the route's work (aggregate read + CSV text) and the raw floor, alternating.
-  const { readFleetSummaryRows } = await import("../lib/db/fleet-summary");
+  // GET /api/export/fleet.csv: the route's work (aggregate read + CSV text) and the raw floor, alternating. The floor
+  // prepares the route's own statement in better-sqlite3 (Prisma.Sql's `sql` is the `?`-placeholder text).
+  const { fleetSummaryStatement, readFleetSummaryRows } = await import("../lib/db/fleet-summary");
+  const summaryStatement = fleetSummaryStatement(scope.siteId);
+  const fleetSummaryFloor = db.prepare(summaryStatement.sql);
   const { fleetSummaryRowsCsv, sessionCsvPage } = await import("../lib/export/logbook-csv");
   const { openSessionExport } = await import("../lib/db/session-export");
   const { csvStream } = await import("../lib/export/csv-stream");
@@ -118,7 +105,7 @@ export async function benchExportMemory(busyTag: string): Promise<void> {
     summaryRows = rows.length;
     const app = performance.now() - started;
     started = performance.now();
-    fleetSummaryFloor.all(scope.siteId);
+    fleetSummaryFloor.all(...summaryStatement.values);
     const floor = performance.now() - started;
     if (round < 2) continue;
     appTimes.push(app);

@@ -6,10 +6,11 @@
  *
  * Raw SQL because the query API cannot say it in one statement: its relation `_count` allows one filter per relation
  * (failures are counted twice, all and open) and a nested `take: 1` per coil is applied in memory after reading every
- * coil's rows. The statement is portable (quoted identifiers, no provider-only functions); test/fleet-summary.test.ts
+ * coil's rows. The statement is portable (quoted identifiers, no provider-only functions); test/export-stream.test.ts
  * checks it against the whole-logbook answer (exportFleet + fleetSummaryCsv) on SQLite and PostgreSQL.
  */
 import { prisma } from "./client";
+import { Prisma } from "./generated/client";
 import { rawCount, rawDateOrNull } from "./raw-read";
 import type { SiteScope } from "./site-scope";
 import type { FleetSummaryRow } from "../export/logbook-csv";
@@ -36,11 +37,9 @@ interface FleetSummaryRaw {
   loansOut: unknown;
 }
 
-/** Every coil of the scope's site, by tag, with its counts and latest values (lib/export/logbook-csv.ts's columns). */
-export async function readFleetSummaryRows(scope: SiteScope): Promise<FleetSummaryRow[]> {
-  // "Last session" is the latest startedAt (the logbook file orders by startedAt, then id); "last sweep" is the
-  // latest takenAt with the id breaking a tie, as the file orders them.
-  const rows = await prisma.$queryRaw<FleetSummaryRaw[]>`
+/** The one statement, also prepared as it is by the benchmark's floor (bench/export-memory.ts). */
+export function fleetSummaryStatement(siteId: string): Prisma.Sql {
+  return Prisma.sql`
     SELECT c.tag, c.name, c."builderName", c.status, c.topology, c."formDiameterM", c."windingLengthM", c.turns, c."wireDiameterM", c."wireGaugeAwg", c."measuredInductanceH",
       (SELECT count(*) FROM "Component" p WHERE p."coilId" = c.id AND p."removedAt" IS NULL) AS "partsFitted",
       (SELECT count(*) FROM "RunSession" s WHERE s."coilId" = c.id) AS sessions,
@@ -51,8 +50,15 @@ export async function readFleetSummaryRows(scope: SiteScope): Promise<FleetSumma
       (SELECT count(*) FROM "Failure" f WHERE f."coilId" = c.id AND f.status = 'open') AS "openFailures",
       (SELECT count(*) FROM "Loan" l WHERE l."coilId" = c.id AND l."returnedAt" IS NULL) AS "loansOut"
     FROM "Coil" c
-    WHERE c."siteId" = ${scope.siteId}
+    WHERE c."siteId" = ${siteId}
     ORDER BY c.tag`;
+}
+
+/** Every coil of the scope's site, by tag, with its counts and latest values (lib/export/logbook-csv.ts's columns). */
+export async function readFleetSummaryRows(scope: SiteScope): Promise<FleetSummaryRow[]> {
+  // "Last session" is the latest startedAt (the logbook file orders by startedAt, then id); "last sweep" is the
+  // latest takenAt with the id breaking a tie, as the file orders them.
+  const rows = await prisma.$queryRaw<FleetSummaryRaw[]>(fleetSummaryStatement(scope.siteId));
   return rows.map((r) => ({
     tag: r.tag,
     name: r.name,
