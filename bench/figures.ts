@@ -1,7 +1,7 @@
 /**
  * The one table `npm run bench` ends with: every figure issue 13 ("fast paths") names, next to its floor, the ratio and
  * the goal, in a fixed order. Each benchmark section records what it measured; a figure whose section did not run says
- * which flag runs it, and a figure that needs code not written yet says so (a SLOT, with what it needs).
+ * which flag runs it.
  */
 
 export interface Figure {
@@ -23,8 +23,6 @@ interface Row {
   goal: number | null;
   /** The `npm run bench -- <flag>` that measures it. */
   flag: string;
-  /** Set while the figure cannot be measured yet: what it needs. */
-  slot?: string;
 }
 
 const ROWS = {
@@ -117,8 +115,6 @@ const ROWS = {
 export type RowKey = keyof typeof ROWS;
 
 const measured = new Map<RowKey, Figure>();
-/** Floors measured while the figure itself is still a slot. */
-const floorsOnly = new Map<RowKey, { floor: number; note?: string }>();
 
 export function recordFigure(figure: Figure): void {
   measured.set(figure.key, figure);
@@ -158,10 +154,6 @@ export async function runSectionInChild(file: string): Promise<void> {
   }
 }
 
-export function recordFloorOnly(key: RowKey, floor: number, note?: string): void {
-  floorsOnly.set(key, { floor, note });
-}
-
 const fmt = (x: number, unit: string) => (unit === "count" ? String(x) : x >= 100 ? x.toFixed(0) : x >= 10 ? x.toFixed(1) : x.toFixed(2));
 
 /** The table, one row per figure, measured or not. */
@@ -174,10 +166,6 @@ export function printFigureTable(): void {
       const ratio = figure.ratio ?? figure.value / figure.floor;
       const verdict = row.goal === null ? "" : ratio <= row.goal ? "met" : "NOT MET";
       lines.push([row.figure, `${fmt(figure.value, row.unit)} ${row.unit}`, `${fmt(figure.floor, row.unit)} ${row.unit}`, `×${ratio.toFixed(1)}`, goal, verdict, row.floor + (figure.note ? `; ${figure.note}` : "")]);
-    } else if (row.slot || floorsOnly.has(key)) {
-      const floor = floorsOnly.get(key);
-      const needs = row.slot ? `; needs ${row.slot}` : "";
-      lines.push([row.figure, "SLOT", floor ? `${fmt(floor.floor, row.unit)} ${row.unit}` : "—", "—", goal, "", `${row.floor}${floor?.note ? ` (${floor.note})` : ""}${needs}`]);
     } else {
       lines.push([row.figure, "not run", "—", "—", goal, "", `${row.floor}; run with ${row.flag}`]);
     }
