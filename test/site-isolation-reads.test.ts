@@ -207,6 +207,7 @@ const UNSCOPED: Record<string, string> = {
   "demo-loader.ts#emptyDatabase": "the demo reset: empties everything",
   "demo-loader.ts#disconnect": "closes the connection",
   "fleet.ts#selectFleetRows": "pure: filters rows already read in scope",
+  "fleet-summary.ts#fleetSummaryStatement": "pure: builds the statement for the site id its scoped caller (readFleetSummaryRows) or the benchmark passes; it runs nothing",
   "policy.ts#combinePolicies": "pure: the stricter of the organisation's default and a site's own rules",
   "policy.ts#getDefaultPolicy": "the organisation's default policy, the same for every site (a site's own rules only tighten it)",
   "pagination.ts#normalizePage": "pure",
