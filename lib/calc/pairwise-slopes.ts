@@ -54,13 +54,29 @@ export function selectPairwiseSlopes(
   }
   if (pairCount <= storedLimit) {
     const slopes = collectAllSlopes(xs, ys, pairCount);
-    return ranks.map((rank) => selectInPlace(slopes, rank - 1) + 0); // + 0 turns a −0 slope into 0
+    const found = new Map<number, number>();
+    selectRanksInPlace(slopes, 0, pairCount - 1, [...new Set(ranks.map((rank) => rank - 1))].sort((a, b) => a - b), found);
+    return ranks.map((rank) => found.get(rank - 1)! + 0); // + 0 turns a −0 slope into 0
   }
   return selectBySampling(xs, ys, ranks, pairCount).map((slope) => slope + 0);
 }
 
+/**
+ * Below this many pairs (a series of about 360 points) the slopes go into one buffer kept between calls: a coil's
+ * health takes several trends of ~60 points each, and a dashboard judges hundreds of coils, so a fresh 16 kB array
+ * per trend was mostly garbage-collector work. Larger series get an array of their own, so no large buffer is kept.
+ */
+const REUSED_SLOPES_LIMIT = 1 << 16;
+let reusedSlopes = new Float64Array(0);
+
+function slopeBuffer(pairCount: number): Float64Array {
+  if (pairCount > REUSED_SLOPES_LIMIT) return new Float64Array(pairCount);
+  if (reusedSlopes.length < pairCount) reusedSlopes = new Float64Array(Math.max(pairCount, 2 * reusedSlopes.length));
+  return reusedSlopes.subarray(0, pairCount);
+}
+
 function collectAllSlopes(xs: ArrayLike<number>, ys: ArrayLike<number>, pairCount: number): Float64Array {
-  const slopes = new Float64Array(pairCount);
+  const slopes = slopeBuffer(pairCount);
   let k = 0;
   const n = xs.length;
   for (let i = 0; i < n; i++) {
@@ -72,6 +88,47 @@ function collectAllSlopes(xs: ArrayLike<number>, ys: ArrayLike<number>, pairCoun
     }
   }
   return slopes;
+}
+
+/**
+ * The values of several 0-based ranks (ascending, distinct) of a[lo…hi], into `found`: one partition serves every
+ * rank inside it, and each side is searched only for the ranks that fall there (multiple selection, after Hoare's
+ * FIND, CACM 4(7), 1961, from memory), so the four ranks Theil–Sen needs cost little more than one. Hoare's two-way
+ * partition around a median-of-three value stops on equal values from both sides, so runs of equal slopes split
+ * evenly and every pass leaves both sides non-empty.
+ */
+function selectRanksInPlace(a: Float64Array, lo: number, hi: number, ks: readonly number[], found: Map<number, number>): void {
+  while (ks.length > 0) {
+    if (lo >= hi) {
+      for (const k of ks) found.set(k, a[lo]!);
+      return;
+    }
+    const pivot = medianOfThree(a[lo]!, a[(lo + hi) >>> 1]!, a[hi]!);
+    let i = lo - 1;
+    let j = hi + 1;
+    for (;;) {
+      do i++;
+      while (a[i]! < pivot);
+      do j--;
+      while (a[j]! > pivot);
+      if (i >= j) break;
+      const v = a[i]!;
+      a[i] = a[j]!;
+      a[j] = v;
+    }
+    // a[lo…j] ≤ pivot ≤ a[j+1…hi], with lo ≤ j < hi.
+    let split = 0;
+    while (split < ks.length && ks[split]! <= j) split++;
+    if (split > 0 && split < ks.length) {
+      selectRanksInPlace(a, lo, j, ks.slice(0, split), found);
+      lo = j + 1;
+      ks = ks.slice(split);
+    } else if (split > 0) {
+      hi = j;
+    } else {
+      lo = j + 1;
+    }
+  }
 }
 
 /** k-th smallest (0-based) by quickselect with a three-way partition, so runs of equal slopes stay O(N). */
