@@ -8,6 +8,10 @@ import { getCoilByTag } from "@/lib/db/coils";
 import { compareCoil } from "@/lib/analysis/coil-comparison";
 import { getFleetOverview } from "@/lib/db/fleet";
 import { HEALTH_WINDOW, selectHealthWindow } from "@/lib/analysis/health-window";
+import { loadDemoDataset } from "@/lib/db/demo-loader";
+import { generateDemoDataset } from "@/prisma/demo/generate";
+import { DEMO_PEOPLE, type DemoPersonKey } from "@/prisma/demo/people";
+import type { SiteScope } from "@/lib/db/site-scope";
 
 const DAY = 86_400_000;
 const now = new Date("2026-11-30T12:00:00Z");
@@ -83,4 +87,46 @@ const MAIN = mainScope(null);
     expect(timelineHanded).toEqual(timelineRead);
     expect(timelineHanded.events.filter((e) => e.kind === "part-removed")).toHaveLength(1);
   });
+
+  it("reads, straight through the adapter, what the query API reads of the whole demo network, site by site: coils, parts, sweeps, top loads, open failures, the window and the totals", async () => {
+    const passwordHashes = Object.fromEntries(DEMO_PEOPLE.map((p) => [p.key, "not-a-real-hash"])) as Record<DemoPersonKey, string>;
+    await loadDemoDataset(generateDemoDataset({ anchor: new Date(Date.UTC(2025, 4, 1)), passwordHashes }));
+    const long = await makeCleanCoil("HW-06", now);
+    await addSessions(long.id, 150);
+    // Two open failures (the demo network's are all closed), one at the same instant as a closed one.
+    for (const [status, at] of [["open", 5], ["open", 2], ["closed", 2]] as const) {
+      await testDb.failure.create({ data: { coilId: long.id, occurredAt: new Date(now.getTime() - at * DAY), mode: "over_voltage", symptoms: "Switch shorted", status, closedAt: status === "closed" ? now : null } });
+    }
+    // Tied instants: the raw reads break ties by id, where the query API's orderBy on the date alone left them to the database.
+    const byDateThenId = <T extends { id: string }>(at: (row: T) => Date) => (a: T, b: T) => at(a).getTime() - at(b).getTime() || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
+    const sites = await testDb.site.findMany({ select: { id: true } });
+    let openFailuresSeen = 0;
+    for (const { id: siteId } of sites) {
+      const scope: SiteScope = { siteId, actorId: null };
+      const [full, windowed] = await Promise.all([getFleetHistory(scope), getFleetHealthHistory(scope)]);
+      expect(windowed.map((w) => w.coil)).toEqual(full.map((f) => f.coil));
+      full.forEach((f, i) => {
+        const read = windowed[i]!;
+        const sessions = [...f.sessions].sort(byDateThenId((s) => s.startedAt));
+        expect(read.sessions).toEqual(selectHealthWindow(sessions));
+        expect(read.components).toEqual([...f.components].sort(byDateThenId((p) => p.installedAt)));
+        expect(read.sweeps).toEqual([...f.sweeps].sort(byDateThenId((w) => w.takenAt)));
+        expect(read.topLoads).toEqual([...f.topLoads].sort(byDateThenId((t) => t.createdAt)));
+        expect(read.openFailures).toEqual(f.openFailures);
+        openFailuresSeen += read.openFailures.length;
+        expect(read.totals.sessionCount).toBe(f.sessions.length);
+        expect(read.totals.totalDurationS).toBeCloseTo(f.sessions.reduce((sum, s) => sum + s.durationS, 0), 6);
+        expect(read.totals.lastSessionAt).toEqual(sessions.at(-1)?.startedAt ?? null);
+      });
+      // The listed coils only, in the same shape; another site's coil in the list is left out.
+      const listed = full.filter((_, i) => i % 2 === 0).map((f) => f.coil.id);
+      const otherSite = sites.find((s) => s.id !== siteId);
+      const otherCoil = otherSite ? await testDb.coil.findFirst({ where: { siteId: otherSite.id }, select: { id: true } }) : null;
+      const some = await getFleetHealthHistory(scope, [...listed, ...(otherCoil ? [otherCoil.id] : [])]);
+      expect(some).toEqual(windowed.filter((w) => listed.includes(w.coil.id)));
+    }
+    // The comparison is only as good as the records: open failures, and more than one site.
+    expect(openFailuresSeen).toBeGreaterThan(0);
+    expect(sites.length).toBeGreaterThan(1);
+  }, 120_000);
 });

@@ -5,10 +5,11 @@
  */
 import { prisma } from "./client";
 import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
-import { Prisma, type Coil, type Component, type RunSession, type Sweep, type TopLoad } from "./generated/client";
+import { Prisma, type Coil, type Component, type Failure, type RunSession, type Sweep, type TopLoad } from "./generated/client";
 import { HEALTH_WINDOW, selectHealthWindow } from "../analysis/health-window";
 import { findCurrentTopLoad } from "../analysis/current-top-load";
-import { rawDate } from "./raw-read";
+import { rawCount, rawDate, rawDateOrNull } from "./raw-read";
+import { readRows } from "./adapter-read";
 
 const sessionSelect = {
   id: true,
@@ -170,6 +171,7 @@ export interface CoilSessionTotals {
 export type CoilHealthHistory = CoilHistory & { totals: CoilSessionTotals };
 
 type RawSessionRow = Omit<SessionRow, "startedAt"> & { startedAt: Date | string };
+type OpenFailureRow = { coilId: string; occurredAt: Date | string; mode: Failure["mode"] };
 
 /** A session from a compound raw statement, whose startedAt may be the stored text on SQLite (lib/db/raw-read.ts). */
 function toSessionRow(row: RawSessionRow): SessionRow {
@@ -181,26 +183,42 @@ function toSessionRow(row: RawSessionRow): SessionRow {
  * another site is left out) without reading every session: each coil's
  * sessions cut to the health window (lib/analysis/health-window.ts) and its running totals as SQL aggregates. Two
  * index seeks per coil find where its window starts, so the rows read stay ~63 a coil however long the logbooks grow.
+ *
+ * Every read is one raw statement straight through the driver adapter (lib/db/adapter-read.ts readRows): this is the
+ * cold dashboard's whole read, and through the query API and `$queryRaw` the pipeline around the statements (plan
+ * compilation, serialising 31 500 window rows and parsing them back) cost more than the statements themselves.
+ * test/fleet-health-window.test.ts checks the answer against the query API's whole-logbook read on SQLite and
+ * PostgreSQL: the same coils, parts, sweeps, top loads, open failures, window and totals.
  */
 export async function getFleetHealthHistory(scope: SiteScope, coilIds?: readonly string[]): Promise<CoilHealthHistory[]> {
   if (coilIds?.length === 0) return [];
   const { baselineSessions, recentSessions } = HEALTH_WINDOW;
-  const ofCoils = { ...recordOfSite(scope), ...(coilIds ? { coilId: { in: [...coilIds] } } : {}) };
-  const coilFilter = coilIds
-    ? Prisma.sql`WHERE c."siteId" = ${scope.siteId} AND c.id IN (${Prisma.join(coilIds)})`
-    : Prisma.sql`WHERE c."siteId" = ${scope.siteId}`;
+  const site = scope.siteId;
+  // Records of the site's coils (or of the listed ones among them): every statement joins the coil at the site.
+  const ofCoils = (alias: string) =>
+    coilIds
+      ? Prisma.sql`JOIN "Coil" c ON c.id = ${Prisma.raw(alias)}."coilId" WHERE c."siteId" = ${site} AND c.id IN (${Prisma.join(coilIds)})`
+      : Prisma.sql`JOIN "Coil" c ON c.id = ${Prisma.raw(alias)}."coilId" WHERE c."siteId" = ${site}`;
+  const coilFilter = coilIds ? Prisma.sql`WHERE c."siteId" = ${site} AND c.id IN (${Prisma.join(coilIds)})` : Prisma.sql`WHERE c."siteId" = ${site}`;
+  // Ties broken by id: the query API's orderBy on the date alone left their order to the database.
   const [coils, components, sweeps, topLoads, totals, openFailures, rawSessions] = await Promise.all([
-    prisma.coil.findMany({ where: { ...coilOfSite(scope), ...(coilIds ? { id: { in: [...coilIds] } } : {}) }, orderBy: { tag: "asc" } }),
-    prisma.component.findMany({ where: ofCoils, orderBy: { installedAt: "asc" } }),
-    prisma.sweep.findMany({ where: ofCoils, select: sweepSelect, orderBy: { takenAt: "asc" } }),
-    prisma.topLoad.findMany({ where: ofCoils, orderBy: { createdAt: "asc" } }),
-    prisma.runSession.groupBy({ by: ["coilId"], where: ofCoils, _count: { _all: true }, _sum: { durationS: true }, _max: { startedAt: true } }),
-    prisma.failure.findMany({ where: openFailuresWhere(scope, coilIds ? { in: [...coilIds] } : undefined), select: openFailureSelect, orderBy: openFailureOrder }),
+    readRows<Coil>(Prisma.sql`SELECT c.* FROM "Coil" c ${coilFilter} ORDER BY c.tag`),
+    readRows<Component>(Prisma.sql`SELECT p.* FROM "Component" p ${ofCoils("p")} ORDER BY p."installedAt", p.id`),
+    readRows<SweepRow>(Prisma.sql`SELECT ${Prisma.raw(SWEEP_COLUMNS)} FROM "Sweep" w ${ofCoils("w")} ORDER BY w."takenAt", w.id`),
+    readRows<TopLoad>(Prisma.sql`SELECT t.* FROM "TopLoad" t ${ofCoils("t")} ORDER BY t."createdAt", t.id`),
+    // The covering (coilId, startedAt, durationS) index answers these without a table lookup.
+    readRows<{ coilId: string; sessionCount: unknown; totalDurationS: number | null; lastSessionAt: unknown }>(Prisma.sql`
+      SELECT s."coilId" AS "coilId", count(*) AS "sessionCount", sum(s."durationS") AS "totalDurationS", max(s."startedAt") AS "lastSessionAt"
+      FROM "RunSession" s ${ofCoils("s")} GROUP BY s."coilId"`),
+    // A literal status: PostgreSQL compares its enum with a literal, not with a text parameter.
+    readRows<OpenFailureRow>(Prisma.sql`
+      SELECT f."coilId" AS "coilId", f."occurredAt" AS "occurredAt", f.mode AS mode FROM "Failure" f ${ofCoils("f")} AND f.status = 'open'
+      ORDER BY f."occurredAt", f.id`),
     // Raw SQL because the window is per coil (a LIMIT/OFFSET per group), which Prisma's query API cannot say;
     // both halves walk the (coilId, startedAt) index. Ties on startedAt may add a row; selectHealthWindow trims.
     // Portable SQL (SQLite and PostgreSQL): quoted identifiers, and a coil with fewer sessions than the window
     // starts from its first session (coalesce with its minimum) rather than from an empty-string sentinel.
-    prisma.$queryRaw<RawSessionRow[]>`
+    readRows<RawSessionRow>(Prisma.sql`
       SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "Coil" c JOIN "RunSession" s ON s."coilId" = c.id
         AND s."startedAt" >= coalesce(
           (SELECT r."startedAt" FROM "RunSession" r WHERE r."coilId" = c.id ORDER BY r."startedAt" DESC LIMIT 1 OFFSET ${recentSessions - 1}),
@@ -210,14 +228,14 @@ export async function getFleetHealthHistory(scope: SiteScope, coilIds?: readonly
       SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "Coil" c JOIN "RunSession" s ON s."coilId" = c.id
         AND s."startedAt" <= (SELECT r."startedAt" FROM "RunSession" r WHERE r."coilId" = c.id ORDER BY r."startedAt" ASC LIMIT 1 OFFSET ${baselineSessions - 1})
       ${coilFilter}
-      ORDER BY "startedAt", "id"`,
+      ORDER BY "startedAt", "id"`),
   ]);
   const sessions = rawSessions.map(toSessionRow);
   const s = group(sessions);
   const c = group(components);
   const w = group(sweeps);
   const t = group(topLoads);
-  const f = group(openFailures);
+  const f = group(openFailures.map((row) => ({ coilId: row.coilId, occurredAt: rawDate(row.occurredAt), mode: row.mode })));
   const totalsByCoil = new Map(totals.map((row) => [row.coilId, row]));
   return coils.map((coil) => {
     const total = totalsByCoil.get(coil.id);
@@ -228,7 +246,9 @@ export async function getFleetHealthHistory(scope: SiteScope, coilIds?: readonly
       sweeps: w.get(coil.id) ?? [],
       topLoads: t.get(coil.id) ?? [],
       openFailures: f.get(coil.id) ?? [],
-      totals: { sessionCount: total?._count._all ?? 0, totalDurationS: total?._sum.durationS ?? 0, lastSessionAt: total?._max.startedAt ?? null },
+      totals: total
+        ? { sessionCount: rawCount(total.sessionCount), totalDurationS: total.totalDurationS ?? 0, lastSessionAt: rawDateOrNull(total.lastSessionAt) }
+        : { sessionCount: 0, totalDurationS: 0, lastSessionAt: null },
     };
   });
 }

@@ -16,7 +16,9 @@
  * the scope's site; markCoilChanged is the exception, called inside a write that has already found the coil in its
  * scope, and it returns nothing.
  */
-import { prisma, type Tx } from "./client";
+import type { Tx } from "./client";
+import { readRows } from "./adapter-read";
+import { inAdapterTransaction } from "./session-write";
 import { Prisma, type CoilSummary } from "./generated/client";
 import { getFleetHealthHistory, type CoilHealthHistory } from "./coil-history";
 import type { PolicyVersion } from "./policy";
@@ -25,7 +27,7 @@ import { computeHealthValidUntil } from "../analysis/health-validity";
 import type { HealthStatus } from "../calc/coil-health";
 import { briefSessionMargins, type SessionMarginsBrief } from "../analysis/margin-brief";
 import { collectHeadroomTrend, type HeadroomTrend } from "../analysis/headroom-trend";
-import { coilOfSite, type SiteScope } from "./site-scope";
+import type { SiteScope } from "./site-scope";
 
 /**
  * Records that the coil's logbook changed. Call it in the same transaction as the write: a Prisma transaction, or the
@@ -97,25 +99,20 @@ export function readCurrentFigures(row: CoilSummary, policyVersion: number, now:
   };
 }
 
-/** Rows for coils that have none yet (added before this table, or straight into the database), at revision 0. The ids are the caller's, read at its site. */
-async function createMissingSummaries(coilIds: readonly string[]): Promise<void> {
+/**
+ * Rows for coils that have none yet (added before this table, or straight into the database), at revision 0: one
+ * statement for all of them, narrowed to the scope's site, and a row a write created meanwhile is left as it is (its
+ * revision is then past 0, so that coil's result will not be stored). Straight through the driver adapter
+ * (session-write.ts inAdapterTransaction): through the query API a cold dashboard's 500 rows cost a compiled createMany.
+ */
+async function createMissingSummaries(scope: SiteScope, coilIds: readonly string[]): Promise<void> {
   if (coilIds.length === 0) return;
-  try {
-    await prisma.coilSummary.createMany({ data: coilIds.map((coilId) => ({ coilId })) });
-  } catch (error) {
-    if (!isConflict(error)) throw error;
-    // A write created some meanwhile (its revision is then past 0, so that coil's result will not be stored).
-    for (const coilId of coilIds) {
-      await prisma.coilSummary.create({ data: { coilId } }).catch((e: unknown) => {
-        if (!isConflict(e)) throw e;
-      });
-    }
-  }
-}
-
-/** A unique clash (the row exists) or a missing coil (deleted meanwhile). */
-function isConflict(error: unknown): boolean {
-  return error instanceof Prisma.PrismaClientKnownRequestError && (error.code === "P2002" || error.code === "P2003");
+  await inAdapterTransaction((runner) =>
+    runner.execute(Prisma.sql`
+      INSERT INTO "CoilSummary" ("coilId")
+      SELECT c.id FROM "Coil" c WHERE c."siteId" = ${scope.siteId} AND c.id IN (${Prisma.join(coilIds)})
+      ON CONFLICT ("coilId") DO NOTHING`),
+  );
 }
 
 export interface ComputedFigures {
@@ -129,38 +126,44 @@ export interface ComputedFigures {
  * Stores figures only where the coil's revision is still the one they were computed from; returns the coil ids
  * stored. Each update is one conditional statement, so no write can slip between the check and the store.
  *
- * Raw SQL, all in one transaction: a cold dashboard stores hundreds of rows, and through the query API each
- * `updateMany` was compiled into a plan again (lib/db/raw-read.ts says why that costs), ~1 ms a row. The statement is
- * the same conditional update written out once, portable (quoted identifiers, parameters only; the adapters bind
- * dates as the query API stores them), and narrowed to the scope's site in its own WHERE.
- * test/coil-summary-store.test.ts checks its rows against the query API's on SQLite and PostgreSQL.
+ * Raw SQL, all in one transaction on the client's driver adapter (session-write.ts inAdapterTransaction): a cold
+ * dashboard stores hundreds of rows, and through the query API each `updateMany` was compiled into a plan again
+ * (lib/db/raw-read.ts says why that costs), ~1 ms a row; `$executeRaw` in a `$transaction` still paid ~0.2 ms of
+ * Prisma's pipeline a row. The statement is the same conditional update written out once, portable (quoted
+ * identifiers, parameters only; the adapters bind dates as the query API stores them), and narrowed to the scope's
+ * site in its own WHERE. test/coil-summary-store.test.ts checks its rows against the query API's on SQLite and
+ * PostgreSQL.
  */
 export async function storeCoilFigures(scope: SiteScope, computed: readonly ComputedFigures[], policyVersion: number, computedAt: Date): Promise<string[]> {
   if (computed.length === 0) return [];
-  const counts = await prisma.$transaction(
-    computed.map(
-      ({ coilId, fromRevision, figures }) => prisma.$executeRaw`
-        UPDATE "CoilSummary" SET
-          "computedRevision" = ${fromRevision},
-          "policyVersion" = ${policyVersion},
-          "computedAt" = ${computedAt},
-          "validUntil" = ${figures.validUntil},
-          "health" = ${figures.health},
-          "reasonsJson" = ${JSON.stringify(figures.reasons)},
-          "latestMarginsJson" = ${JSON.stringify(figures.latestMargins)},
-          "headroomTrendJson" = ${JSON.stringify(figures.headroomTrend)},
-          "sessionCount" = ${figures.sessionCount},
-          "totalRunS" = ${figures.totalRunS},
-          "lastSessionAt" = ${figures.lastSessionAt},
-          "lastSweepAt" = ${figures.lastSweepAt}
-        WHERE "coilId" = ${coilId} AND "revision" = ${fromRevision}
-          AND EXISTS (SELECT 1 FROM "Coil" WHERE "Coil"."id" = "CoilSummary"."coilId" AND "Coil"."siteId" = ${scope.siteId})`,
-    ),
-  );
+  const counts = await inAdapterTransaction(async (runner) => {
+    const stored: number[] = [];
+    for (const { coilId, fromRevision, figures } of computed) {
+      stored.push(
+        await runner.execute(Prisma.sql`
+          UPDATE "CoilSummary" SET
+            "computedRevision" = ${fromRevision},
+            "policyVersion" = ${policyVersion},
+            "computedAt" = ${computedAt},
+            "validUntil" = ${figures.validUntil},
+            "health" = ${figures.health},
+            "reasonsJson" = ${JSON.stringify(figures.reasons)},
+            "latestMarginsJson" = ${JSON.stringify(figures.latestMargins)},
+            "headroomTrendJson" = ${JSON.stringify(figures.headroomTrend)},
+            "sessionCount" = ${figures.sessionCount},
+            "totalRunS" = ${figures.totalRunS},
+            "lastSessionAt" = ${figures.lastSessionAt},
+            "lastSweepAt" = ${figures.lastSweepAt}
+          WHERE "coilId" = ${coilId} AND "revision" = ${fromRevision}
+            AND EXISTS (SELECT 1 FROM "Coil" WHERE "Coil"."id" = "CoilSummary"."coilId" AND "Coil"."siteId" = ${scope.siteId})`),
+      );
+    }
+    return stored;
+  });
   return computed.filter((_, i) => counts[i] === 1).map((c) => c.coilId);
 }
 
-/** Reads each coil's health window and computes its figures (the slow path, kept for stale rows); coils of other sites are left out. */
+/** Reads each coil's health window and computes its figures (the slow path, kept for stale rows); coils of other sites are left out (the history read finds only the site's). */
 export async function computeFiguresFor(
   scope: SiteScope,
   coilIds: readonly string[],
@@ -168,9 +171,8 @@ export async function computeFiguresFor(
   policy: PolicyVersion,
   now: Date,
 ): Promise<ComputedFigures[]> {
-  const ofSite = await prisma.coil.findMany({ where: { id: { in: [...coilIds] }, ...coilOfSite(scope) }, select: { id: true } });
-  if (ofSite.length === 0) return [];
-  const histories = await getFleetHealthHistory(scope, ofSite.map((coil) => coil.id));
+  if (coilIds.length === 0) return [];
+  const histories = await getFleetHealthHistory(scope, coilIds);
   return histories.map((history) => ({ coilId: history.coil.id, fromRevision: revisions.get(history.coil.id) ?? 0, figures: computeCoilFigures(history, policy, now) }));
 }
 
@@ -179,9 +181,10 @@ export async function computeFiguresFor(
  * The revisions are read before any logbook row, which is what makes the conditional store safe.
  */
 export async function getCoilFigures(scope: SiteScope, coilIds: readonly string[], policy: PolicyVersion, now: Date): Promise<Map<string, CoilFigures>> {
-  // Raw (lib/db/raw-read.ts says why); the site's coils only, so a listed coil of another site is simply not found.
-  const rows = await prisma.$queryRaw<CoilSummary[]>`
-    SELECT s.* FROM "CoilSummary" s JOIN "Coil" ON "Coil".id = s."coilId" WHERE "Coil"."siteId" = ${scope.siteId}`;
+  // Raw, straight through the adapter (lib/db/adapter-read.ts says why); the site's coils only, so a listed coil of
+  // another site is simply not found.
+  const rows = await readRows<CoilSummary>(Prisma.sql`
+    SELECT s.* FROM "CoilSummary" s JOIN "Coil" ON "Coil".id = s."coilId" WHERE "Coil"."siteId" = ${scope.siteId}`);
   const rowByCoil = new Map(rows.map((row) => [row.coilId, row]));
   const figures = new Map<string, CoilFigures>();
   const stale: string[] = [];
@@ -192,20 +195,14 @@ export async function getCoilFigures(scope: SiteScope, coilIds: readonly string[
     else stale.push(coilId);
   }
   if (stale.length === 0) return figures;
-  // A coil without a row is either new at this site or another site's: only the first gets one.
-  const missing = stale.filter((coilId) => !rowByCoil.has(coilId));
-  const missingOfSite = new Set(
-    missing.length === 0 ? [] : (await prisma.coil.findMany({ where: { id: { in: missing }, ...coilOfSite(scope) }, select: { id: true } })).map((coil) => coil.id),
-  );
-  await createMissingSummaries([...missingOfSite]);
-  const revisions = new Map(stale.map((coilId) => [coilId, rowByCoil.get(coilId)?.revision ?? 0]));
-  const computed = await computeFiguresFor(
+  // A coil without a row is either new at this site or another site's: only the first gets one (the statement joins
+  // the coil at the site), and only the site's coils come back from the history read.
+  await createMissingSummaries(
     scope,
-    stale.filter((coilId) => rowByCoil.has(coilId) || missingOfSite.has(coilId)),
-    revisions,
-    policy,
-    now,
+    stale.filter((coilId) => !rowByCoil.has(coilId)),
   );
+  const revisions = new Map(stale.map((coilId) => [coilId, rowByCoil.get(coilId)?.revision ?? 0]));
+  const computed = await computeFiguresFor(scope, stale, revisions, policy, now);
   await storeCoilFigures(scope, computed, policy.version, now);
   for (const c of computed) figures.set(c.coilId, c.figures);
   return figures;
