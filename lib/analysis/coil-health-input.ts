@@ -8,6 +8,7 @@ import type { CoilSession, CoilSweep } from "../calc/coil-logbook";
 import { findCurrentTopLoadId } from "./current-top-load";
 import { CalcInputError } from "../calc/errors";
 import { analyzeRunSession, type SessionAnalysis } from "./session-analysis";
+import { isFittedAt, partsFittedAt, type FittedParts } from "./fitted-parts";
 import type { ClearancePolicyRules } from "../calc/clearance-policy";
 import { selectHealthWindow } from "./health-window";
 import type { StoredSinkFit } from "./session-fit";
@@ -28,7 +29,20 @@ export function analyzeSessions(
   components: readonly ComponentRecord[],
   policy: ClearancePolicyRules,
 ): AnalyzedSession[] {
-  return sessions.map((session) => ({ session, analysis: analyzeRunSession(coil, session, components, null, { policy }) }));
+  // Sessions run with the same parts share one partsFittedAt answer (the same for every session between two part
+  // changes); the set fitted is a bit per part, so up to 30 parts are keyed, more are worked out session by session.
+  const keyed = components.length <= 30;
+  const partsBySet = new Map<number, FittedParts>();
+  return sessions.map((session) => {
+    let parts: FittedParts | undefined;
+    if (keyed) {
+      let set = 0;
+      for (let i = 0; i < components.length; i++) if (isFittedAt(components[i]!, session.startedAt)) set |= 1 << i;
+      parts = partsBySet.get(set);
+      if (parts === undefined) partsBySet.set(set, (parts = partsFittedAt(components, session.startedAt)));
+    }
+    return { session, analysis: analyzeRunSession(coil, session, components, null, { policy, parts }) };
+  });
 }
 
 export function toCoilSession({ session, analysis }: AnalyzedSession): CoilSession {

@@ -35,6 +35,21 @@ export interface SessionAnalysisOptions {
   policy: SessionPolicy;
   /** One-sided confidence of the projection and the run-time bound (default DEFAULT_WARM_UP_CONFIDENCE). */
   confidence?: number;
+  /**
+   * partsFittedAt(components, session.startedAt), when the caller has it already (analyzeSessions works it out once
+   * for each set of parts its sessions ran with, instead of once a session).
+   */
+  parts?: FittedParts;
+}
+
+let noSamples: SessionFit | undefined;
+
+/**
+ * fitFromSamples([]): what a session with neither a stored fit nor samples in hand is judged by. Always the same
+ * answer (a note, no fit), worked out once: a dashboard judges tens of thousands of such sessions.
+ */
+function noSamplesFit(): SessionFit {
+  return (noSamples ??= fitFromSamples([]));
 }
 
 /**
@@ -49,7 +64,7 @@ export function analyzeRunSession(
   options: SessionAnalysisOptions,
 ): SessionAnalysis {
   const confidence = options.confidence ?? DEFAULT_WARM_UP_CONFIDENCE;
-  const parts = partsFittedAt(components, session.startedAt);
+  const parts = options.parts ?? partsFittedAt(components, session.startedAt);
   const sw = parts.switches[0] ?? null;
   const switchesOnSink = Math.max(1, parts.switches.length);
   const junctionToSink = sw?.thermalResistanceJcKPerW != null ? sw.thermalResistanceJcKPerW + (sw.caseToSinkKPerW ?? TYPICAL_CASE_TO_SINK_K_PER_W) : undefined;
@@ -57,7 +72,7 @@ export function analyzeRunSession(
   const naturalSinkR = parts.sink?.sinkThermalResistanceKPerW ?? null;
   const sinkR = naturalSinkR === null ? null : sinkResistanceForRun({ naturalKPerW: naturalSinkR, fanFitted: parts.fan !== null, withFanKPerW: parts.fan?.sinkThermalResistanceKPerW });
 
-  const sessionFit: SessionFit = readStoredSinkFit(session) ?? fitFromSamples(samples ?? []);
+  const sessionFit: SessionFit = readStoredSinkFit(session) ?? (samples === null || samples.length === 0 ? noSamplesFit() : fitFromSamples(samples));
   let warmUp: WarmUpAnalysis | null = null;
   let warmUpNote: string | null = sessionFit.note;
   if (sessionFit.fit !== null) {

@@ -178,10 +178,12 @@ function datedSeries(
   sessions: readonly CoilSession[],
   pick: (s: CoilSession) => number | null | undefined,
 ): DatedValue[] {
-  return sessions.flatMap((s) => {
+  const series: DatedValue[] = [];
+  for (const s of sessions) {
     const value = pick(s);
-    return value == null ? [] : [{ at: s.startedAt, value }];
-  });
+    if (value != null) series.push({ at: s.startedAt, value });
+  }
+  return series;
 }
 
 

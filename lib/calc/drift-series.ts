@@ -68,15 +68,24 @@ export function findModalBand(
   values: readonly number[],
   bandFraction: number,
 ): { reference: number; members: number[] } | null {
-  let best: number[] = [];
-  values.forEach((centre) => {
-    const members: number[] = [];
-    values.forEach((w, i) => {
-      if (Math.abs(w - centre) <= bandFraction * centre) members.push(i);
-    });
-    if (members.length >= best.length) best = members;
-  });
-  if (best.length === 0) return null;
+  // Counted first and listed once for the winning centre: the O(n²) count allocates nothing (it runs twice per
+  // coil on every dashboard judgement).
+  const n = values.length;
+  let bestCentre = -1;
+  let bestCount = 0;
+  for (let c = 0; c < n; c++) {
+    const centre = values[c]!;
+    let count = 0;
+    for (let i = 0; i < n; i++) if (Math.abs(values[i]! - centre) <= bandFraction * centre) count++;
+    if (count >= bestCount) {
+      bestCount = count;
+      bestCentre = c;
+    }
+  }
+  if (bestCount === 0) return null;
+  const centre = values[bestCentre]!;
+  const best: number[] = [];
+  for (let i = 0; i < n; i++) if (Math.abs(values[i]! - centre) <= bandFraction * centre) best.push(i);
   return { reference: computeMedian(best.map((i) => values[i]!)), members: best };
 }
 
