@@ -43,9 +43,10 @@ export function selectPairwiseSlopes(
   xs: ArrayLike<number>,
   ys: ArrayLike<number>,
   ranks: readonly number[],
-  options: { storedLimit?: number } = {},
+  options: { storedLimit?: number; pairCount?: number } = {},
 ): number[] {
-  const pairCount = countDistinctXPairs(xs);
+  // The caller may pass countDistinctXPairs(xs) when it has worked it out already (theilSenTrend has).
+  const pairCount = options.pairCount ?? countDistinctXPairs(xs);
   const storedLimit = options.storedLimit ?? STORED_SLOPES_LIMIT;
   for (const rank of ranks) {
     if (!Number.isInteger(rank) || rank < 1 || rank > pairCount) {

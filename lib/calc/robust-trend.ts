@@ -75,7 +75,7 @@ export function theilSenTrend(
   const wanted = [...middle];
   if (lowRank >= 1) wanted.push(lowRank);
   if (highRank <= pairCount) wanted.push(highRank);
-  const picked = selectPairwiseSlopes(xs, ys, wanted);
+  const picked = selectPairwiseSlopes(xs, ys, wanted, { pairCount });
   const slope = middle.length === 1 ? picked[0]! : (picked[0]! + picked[1]!) / 2;
   if (!Number.isFinite(slope)) {
     throw new CalcInputError("points", "x and y differences within floating-point range", slope);
@@ -83,11 +83,12 @@ export function theilSenTrend(
   const slopeLow = lowRank >= 1 ? picked[middle.length]! : Number.NEGATIVE_INFINITY;
   const slopeHigh = highRank <= pairCount ? picked[picked.length - 1]! : Number.POSITIVE_INFINITY;
 
-  const residuals = points.map((p) => p.y - slope * p.x);
+  const residuals = new Float64Array(n);
+  for (let i = 0; i < n; i++) residuals[i] = ys[i]! - slope * xs[i]!;
   return {
     slope,
-    intercept: computeMedian(residuals),
-    xMedian: computeMedian(points.map((p) => p.x)),
+    intercept: medianInPlace(residuals),
+    xMedian: medianInPlace(xs),
     slopeLow,
     slopeHigh,
     confidence,
@@ -145,7 +146,12 @@ export function projectCrossing(
 /** Median of a non-empty list (the middle value, or the mean of the middle two). */
 export function computeMedian(values: readonly number[]): number {
   if (values.length === 0) throw new CalcInputError("values", "at least one value", 0);
-  const sorted = Float64Array.from(values).sort();
+  return medianInPlace(Float64Array.from(values));
+}
+
+/** computeMedian of an array of our own, sorted in place (no copy). */
+function medianInPlace(values: Float64Array): number {
+  const sorted = values.sort();
   const mid = sorted.length >> 1;
   return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
 }
