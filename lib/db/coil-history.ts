@@ -178,6 +178,12 @@ function toSessionRow(row: RawSessionRow): SessionRow {
   return { ...row, startedAt: rawDate(row.startedAt) };
 }
 
+/** The same in place, for rows this module read and owns (the dashboard's window: no copy of 31 500 rows). */
+function decodeSessionRow(row: RawSessionRow): SessionRow {
+  row.startedAt = rawDate(row.startedAt);
+  return row as SessionRow;
+}
+
 /**
  * What the fleet dashboard needs for every coil of the scope's site (or the listed ones among them; a listed coil of
  * another site is left out) without reading every session: each coil's
@@ -218,19 +224,22 @@ export async function getFleetHealthHistory(scope: SiteScope, coilIds?: readonly
     // both halves walk the (coilId, startedAt) index. Ties on startedAt may add a row; selectHealthWindow trims.
     // Portable SQL (SQLite and PostgreSQL): quoted identifiers, and a coil with fewer sessions than the window
     // starts from its first session (coalesce with its minimum) rather than from an empty-string sentinel.
+    // UNION ALL, ordered by coil: a session in both halves comes back twice, side by side, and is dropped below
+    // (UNION's de-duplication sorted every row once more, a third of the statement's time on SQLite).
     readRows<RawSessionRow>(Prisma.sql`
       SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "Coil" c JOIN "RunSession" s ON s."coilId" = c.id
         AND s."startedAt" >= coalesce(
           (SELECT r."startedAt" FROM "RunSession" r WHERE r."coilId" = c.id ORDER BY r."startedAt" DESC LIMIT 1 OFFSET ${recentSessions - 1}),
           (SELECT min(r."startedAt") FROM "RunSession" r WHERE r."coilId" = c.id))
       ${coilFilter}
-      UNION
+      UNION ALL
       SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "Coil" c JOIN "RunSession" s ON s."coilId" = c.id
         AND s."startedAt" <= (SELECT r."startedAt" FROM "RunSession" r WHERE r."coilId" = c.id ORDER BY r."startedAt" ASC LIMIT 1 OFFSET ${baselineSessions - 1})
       ${coilFilter}
-      ORDER BY "startedAt", "id"`),
+      ORDER BY "coilId", "startedAt", "id"`),
   ]);
-  const sessions = rawSessions.map(toSessionRow);
+  const sessions: SessionRow[] = [];
+  for (const row of rawSessions) if (row.id !== sessions.at(-1)?.id) sessions.push(decodeSessionRow(row));
   const s = group(sessions);
   const c = group(components);
   const w = group(sweeps);

@@ -163,7 +163,10 @@ export async function storeCoilFigures(scope: SiteScope, computed: readonly Comp
   return computed.filter((_, i) => counts[i] === 1).map((c) => c.coilId);
 }
 
-/** Reads each coil's health window and computes its figures (the slow path, kept for stale rows); coils of other sites are left out (the history read finds only the site's). */
+/**
+ * Reads each coil's health window and computes its figures (the slow path, kept for stale rows); coils of other sites
+ * are left out (the history read finds only the site's). In the listed order batch by batch, by tag within a batch.
+ */
 export async function computeFiguresFor(
   scope: SiteScope,
   coilIds: readonly string[],
@@ -171,10 +174,21 @@ export async function computeFiguresFor(
   policy: PolicyVersion,
   now: Date,
 ): Promise<ComputedFigures[]> {
-  if (coilIds.length === 0) return [];
-  const histories = await getFleetHealthHistory(scope, coilIds);
-  return histories.map((history) => ({ coilId: history.coil.id, fromRevision: revisions.get(history.coil.id) ?? 0, figures: computeCoilFigures(history, policy, now) }));
+  const computed: ComputedFigures[] = [];
+  // A batch of coils at a time: each batch's rows are judged and dropped while still young, where reading 500 coils'
+  // windows first kept 31 500 rows alive through the whole judgement and the garbage collector took a third of a
+  // cold dashboard's time promoting and then sweeping them.
+  for (let start = 0; start < coilIds.length; start += FIGURES_BATCH_COILS) {
+    const histories = await getFleetHealthHistory(scope, coilIds.slice(start, start + FIGURES_BATCH_COILS));
+    for (const history of histories) {
+      computed.push({ coilId: history.coil.id, fromRevision: revisions.get(history.coil.id) ?? 0, figures: computeCoilFigures(history, policy, now) });
+    }
+  }
+  return computed;
 }
+
+/** Coils read and judged together by computeFiguresFor (each batch is one set of statements). */
+const FIGURES_BATCH_COILS = 50;
 
 /**
  * Every listed coil's figures at `now`: stored ones where still current, the rest recomputed and stored.
