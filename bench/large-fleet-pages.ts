@@ -11,15 +11,20 @@ import { recordFigure, type RowKey } from "./figures";
 
 export const BUSY_TAG = "LF-042";
 
-function rawFloors(db: Database.Database) {
+export function rawFloors(db: Database.Database) {
   // Cold: nothing stored, so the floor is reading what the computation reads — each coil's health window and totals.
   const coilAggregates = db.prepare(`SELECT "coilId", count(*) AS n, sum("durationS") AS seconds, max("startedAt") AS "lastAt" FROM "RunSession" GROUP BY "coilId"`);
   // Each coil's health window, as the fastest raw SQL reads it: two index seeks per coil on (coilId, startedAt), the last
   // 60 and the first 3. (A single correlated UNION over all coils, the floor used before, took ~1.8 s: ×3 slower than
   // these seeks, which made the cold dashboard look closer to its floor than it is.)
+  // Only the columns the judgement reads (lib/db/coil-history.ts sessionSelect): `SELECT *` also read the notes, who
+  // logged it, the loan and the fit's other columns, and building those 26-column rows made the floor ~×2.5 slower
+  // than the reads the app must make.
   const coilIds = (db.prepare(`SELECT id FROM "Coil"`).all() as { id: string }[]).map((c) => c.id);
-  const windowEnd = db.prepare(`SELECT * FROM "RunSession" WHERE "coilId" = ? ORDER BY "startedAt" DESC, id DESC LIMIT 60`);
-  const windowStart = db.prepare(`SELECT * FROM "RunSession" WHERE "coilId" = ? ORDER BY "startedAt", id LIMIT 3`);
+  const windowColumns = `id, "coilId", "startedAt", "supplyVoltageV", "supplyCurrentA", "durationS", "ambientTempC", "heatSinkStartC", "heatSinkEndC",
+    "runningFrequencyHz", "peakSwitchVoltageV", "dutyCycle", outcome, "topLoadId", "sinkFitSampleCount", "sinkFitJson"`;
+  const windowEnd = db.prepare(`SELECT ${windowColumns} FROM "RunSession" WHERE "coilId" = ? ORDER BY "startedAt" DESC, id DESC LIMIT 60`);
+  const windowStart = db.prepare(`SELECT ${windowColumns} FROM "RunSession" WHERE "coilId" = ? ORDER BY "startedAt", id LIMIT 3`);
   const recentSessions = { all: () => coilIds.flatMap((id) => [...windowEnd.all(id), ...windowStart.all(id)]) };
   const coldOthers = [
     db.prepare(`SELECT * FROM "Coil" ORDER BY tag`),
