@@ -6,7 +6,9 @@
  * file handle or pool each time.
  */
 import { PrismaBetterSQLite3 } from "@prisma/adapter-better-sqlite3";
+import type Database from "better-sqlite3";
 import { createPostgresAdapter } from "./pg-adapter";
+import { cacheStatements } from "./sqlite-statement-cache";
 import { PrismaClient } from "./generated/client";
 import { PrismaClient as PostgresPrismaClient } from "./generated-postgresql/client";
 import { databaseProvider, databaseUrl, type DatabaseProvider } from "../config/database-url";
@@ -68,6 +70,19 @@ function rememberConnection<F>(factory: F, remember: (adapter: ConnectedAdapter 
   return factory;
 }
 
+/** The SQLite adapter's connection reuses its prepared statements (sqlite-statement-cache.ts says why). */
+function keepPreparedStatements<F>(factory: F): F {
+  const target = factory as unknown as AdapterFactory;
+  const connect = target.connect.bind(target);
+  target.connect = async () => {
+    const adapter = (await connect()) as { client?: Database.Database };
+    if (!adapter.client || typeof adapter.client.prepare !== "function") throw new Error("The SQLite adapter no longer exposes its connection: recheck lib/db/sqlite-statement-cache.ts against this Prisma version.");
+    cacheStatements(adapter.client);
+    return adapter;
+  };
+  return factory;
+}
+
 export function createPrismaClient(url: string = databaseUrl(), onConnect: (adapter: ConnectedAdapter | null) => void = () => undefined): PrismaClient {
   if (databaseProvider(url) === "postgresql") {
     // Both clients are generated from the same schema (prisma/postgresql/derive-schema.ts), so they answer the same
@@ -76,7 +91,7 @@ export function createPrismaClient(url: string = databaseUrl(), onConnect: (adap
     return new PostgresPrismaClient({ adapter }) as unknown as PrismaClient;
   }
   // timeout: how long a writer waits for SQLite's lock before giving up (ms).
-  const adapter = rememberConnection(new PrismaBetterSQLite3({ url, timeout: 10_000 }), onConnect);
+  const adapter = rememberConnection(keepPreparedStatements(new PrismaBetterSQLite3({ url, timeout: 10_000 })), onConnect);
   return new PrismaClient({ adapter });
 }
 
