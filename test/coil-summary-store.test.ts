@@ -103,4 +103,24 @@ describe("storeCoilFigures (raw) against the query API's conditional update", ()
     expect(await storeCoilFigures(siteScope(north.id, null), [computed!], policy.version, now)).toEqual([theirs.id]);
     expect((await summaryRow(theirs.id)).health).toBe(computed!.figures.health);
   });
+
+  it("computes the same figures batch by batch as coil by coil, in the listed order, leaving another site's coil out", async () => {
+    const north = await createSite("batch-north");
+    const coils = [];
+    for (const tag of ["BT-03", "BT-01", "BT-05", "BT-02", "BT-04"]) coils.push(await makeCleanCoil(tag, now));
+    const theirs = await makeCleanCoil("BT-09", now, undefined, north.id);
+    const policy = await getCurrentPolicy(main);
+    const ids = [...coils.map((c) => c.id), theirs.id];
+    const revisions = new Map(ids.map((id, i) => [id, i]));
+    const oneByOne = (await Promise.all(coils.map((c) => computeFiguresFor(main, [c.id], revisions, policy, now)))).flat();
+    expect(oneByOne).toHaveLength(coils.length);
+    // Batches of two: the listed order batch by batch, by tag within a batch.
+    const byTwo = await computeFiguresFor(main, ids, revisions, policy, now, { batchCoils: 2 });
+    expect(byTwo.map((c) => c.coilId)).toEqual([coils[1]!.id, coils[0]!.id, coils[3]!.id, coils[2]!.id, coils[4]!.id]);
+    expect([...byTwo].sort((a, b) => (a.coilId < b.coilId ? -1 : 1))).toEqual([...oneByOne].sort((a, b) => (a.coilId < b.coilId ? -1 : 1)));
+    // One batch for all: the same figures, by tag.
+    const whole = await computeFiguresFor(main, ids, revisions, policy, now);
+    expect(whole.map((c) => c.coilId)).toEqual([...coils].sort((a, b) => (a.tag < b.tag ? -1 : 1)).map((c) => c.id));
+    expect([...whole].sort((a, b) => (a.coilId < b.coilId ? -1 : 1))).toEqual([...oneByOne].sort((a, b) => (a.coilId < b.coilId ? -1 : 1)));
+  });
 });

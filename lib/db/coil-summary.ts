@@ -173,13 +173,14 @@ export async function computeFiguresFor(
   revisions: ReadonlyMap<string, number>,
   policy: PolicyVersion,
   now: Date,
+  { batchCoils = FIGURES_BATCH_COILS }: { batchCoils?: number } = {},
 ): Promise<ComputedFigures[]> {
   const computed: ComputedFigures[] = [];
   // A batch of coils at a time: each batch's rows are judged and dropped while still young, where reading 500 coils'
   // windows first kept 31 500 rows alive through the whole judgement and the garbage collector took a third of a
   // cold dashboard's time promoting and then sweeping them.
-  for (let start = 0; start < coilIds.length; start += FIGURES_BATCH_COILS) {
-    const histories = await getFleetHealthHistory(scope, coilIds.slice(start, start + FIGURES_BATCH_COILS));
+  for (let start = 0; start < coilIds.length; start += batchCoils) {
+    const histories = await getFleetHealthHistory(scope, coilIds.slice(start, start + batchCoils));
     for (const history of histories) {
       computed.push({ coilId: history.coil.id, fromRevision: revisions.get(history.coil.id) ?? 0, figures: computeCoilFigures(history, policy, now) });
     }
