@@ -5,9 +5,10 @@
  * the scope's site, so a coil of another site has an empty timeline and no counts, as one that does not exist.
  */
 import { prisma } from "./client";
-import { Prisma } from "./generated/client";
+import { Prisma, type Clearance, type Failure } from "./generated/client";
 import type { SiteScope } from "./site-scope";
 import type { TimelineFilter } from "../validation/timeline";
+import type { KnownStandingRecords } from "./coil-standing";
 
 export type TimelineKind = "session" | "sweep" | "failure" | "part-fitted" | "part-removed" | "clearance" | "loan-out" | "loan-back";
 
@@ -117,7 +118,7 @@ export async function getCoilTimeline(scope: SiteScope, coilId: string, limit = 
           SELECT w.id, w."takenAt", w."firstSeriesResonanceHz", w."topLoadId", t.name AS "topLoadName" FROM "Sweep" w
           JOIN "Coil" ON "Coil".id = w."coilId" LEFT JOIN "TopLoad" t ON t.id = w."topLoadId"
           WHERE w."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY w."takenAt" DESC, w.id DESC LIMIT ${take}`,
-    prisma.$queryRaw<{ id: string; occurredAt: Date; mode: string; symptoms: string; status: string }[]>`
+    prisma.$queryRaw<{ id: string; occurredAt: Date; mode: Failure["mode"]; symptoms: string; status: string }[]>`
       SELECT r.id, r."occurredAt", r.mode, r.symptoms, r.status FROM "Failure" r JOIN "Coil" ON "Coil".id = r."coilId"
       WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."occurredAt" DESC, r.id DESC LIMIT ${take}`,
     knownParts
@@ -130,11 +131,11 @@ export async function getCoilTimeline(scope: SiteScope, coilId: string, limit = 
       : prisma.$queryRaw<PartRow[]>`
           SELECT r.id, r."installedAt", r."removedAt", r."partNumber", r.kind, r."removalReason" FROM "Component" r JOIN "Coil" ON "Coil".id = r."coilId"
           WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND r."removedAt" IS NOT NULL ORDER BY r."removedAt" DESC, r.id DESC LIMIT ${take}`,
-    prisma.$queryRaw<{ id: string; decidedAt: Date; verdict: string; validUntil: Date; lapsedAt: Date | null }[]>`
-      SELECT r.id, r."decidedAt", r.verdict, r."validUntil", r."lapsedAt" FROM "Clearance" r JOIN "Coil" ON "Coil".id = r."coilId"
+    prisma.$queryRaw<{ id: string; coilId: string; decidedAt: Date; verdict: Clearance["verdict"]; validUntil: Date; lapsedAt: Date | null }[]>`
+      SELECT r.id, r."coilId", r."decidedAt", r.verdict, r."validUntil", r."lapsedAt" FROM "Clearance" r JOIN "Coil" ON "Coil".id = r."coilId"
       WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."decidedAt" DESC, r.id DESC LIMIT ${take}`,
-    prisma.$queryRaw<{ id: string; outAt: Date; borrower: string; event: string }[]>`
-      SELECT r.id, r."outAt", r.borrower, r.event FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
+    prisma.$queryRaw<{ id: string; outAt: Date; borrower: string; event: string; expectedBackAt: Date; returnedAt: Date | null }[]>`
+      SELECT r.id, r."outAt", r.borrower, r.event, r."expectedBackAt", r."returnedAt" FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
       WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."outAt" DESC, r.id DESC LIMIT ${take}`,
     prisma.$queryRaw<{ id: string; returnedAt: Date; borrower: string; returnCondition: string | null }[]>`
       SELECT r.id, r."returnedAt", r.borrower, r."returnCondition" FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
@@ -157,5 +158,15 @@ export async function getCoilTimeline(scope: SiteScope, coilId: string, limit = 
   const shown = kept.slice(0, limit);
   // More than shown: more events were read than fit, or more records exist than events shown (each gives at least one).
   const truncated = kept.length > limit || (counts !== null && countEvents(counts, filter) > shown.length);
-  return { events: shown, counts, truncated };
+  // The newest clearances, failures and loans as read (newest first), with how many exist: the coil page's standing
+  // (lib/db/coil-standing.ts) takes what it needs from them instead of reading them again.
+  const standingRecords: KnownStandingRecords | undefined = counts === null ? undefined : {
+    clearancesNewestFirst: clearances,
+    clearanceCount: counts.clearances,
+    failures,
+    failureCount: counts.failures,
+    loansNewestFirst: loansOut,
+    loanCount: counts.loans,
+  };
+  return { events: shown, counts, truncated, standingRecords };
 }
