@@ -188,6 +188,8 @@ const SCOPED_HELPERS: Record<string, string> = {
 
 /** Exported functions that take no scope, and why none is needed. */
 const UNSCOPED: Record<string, string> = {
+  "adapter-read.ts#readRows": "runs the statement its scoped caller built (every caller narrows by the scope's site in its SQL)",
+  "adapter-read.ts#adapterQuery": "pure: a statement in the driver adapter's form",
   "audit.ts#recordAudit": "writes inside a caller's transaction; the entry names its site",
   "clearances.ts#describeClearRefusal": "pure: words for failed rules",
   "client.ts#createPrismaClient": "the connection itself",

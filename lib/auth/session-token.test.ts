@@ -32,6 +32,22 @@ describe("decodeSessionUserId with sessionTokenFrom", () => {
     expect(await bothAnswers([{ name: "next-auth.session-token", value }])).toEqual({ ours: null, nextAuth: null });
   });
 
+  it("accepts a token expired within next-auth's 15 s clock tolerance, as next-auth does", async () => {
+    const value = await encode({ token: { sub: "user-1" }, secret: SECRET, maxAge: -5 });
+    expect(await bothAnswers([{ name: "next-auth.session-token", value }])).toEqual({ ours: "user-1", nextAuth: "user-1" });
+  });
+
+  it("keeps each secret's key apart when decodes with two secrets alternate", async () => {
+    const mine = await encode({ token: { sub: "user-a" }, secret: SECRET });
+    const theirs = await encode({ token: { sub: "user-b" }, secret: OTHER_SECRET });
+    for (let round = 0; round < 2; round++) {
+      expect(await decodeSessionUserId(mine, SECRET)).toBe("user-a");
+      expect(await decodeSessionUserId(theirs, OTHER_SECRET)).toBe("user-b");
+      expect(await decodeSessionUserId(mine, OTHER_SECRET)).toBeNull();
+      expect(await decodeSessionUserId(theirs, SECRET)).toBeNull();
+    }
+  });
+
   it("refuses a token made with another secret, a tampered one and plain garbage", async () => {
     const value = await encode({ token: { sub: "user-1" }, secret: OTHER_SECRET });
     expect(await bothAnswers([{ name: "next-auth.session-token", value }])).toEqual({ ours: null, nextAuth: null });

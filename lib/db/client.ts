@@ -22,6 +22,14 @@ export type Tx = Parameters<Parameters<PrismaClient["$transaction"]>[0]>[0];
  */
 export interface ConnectedAdapter {
   startTransaction(isolationLevel?: string): Promise<AdapterTransaction>;
+  /** A read outside any transaction (adapter-read.ts). */
+  queryRaw(query: AdapterQuery): Promise<AdapterResultSet>;
+}
+/** A read's answer: column names, the driver's column types (@prisma/driver-adapter-utils ColumnTypeEnum) and the rows. */
+export interface AdapterResultSet {
+  columnNames: string[];
+  columnTypes: number[];
+  rows: unknown[][];
 }
 export interface AdapterQuery {
   sql: string;
@@ -30,7 +38,7 @@ export interface AdapterQuery {
 }
 export interface AdapterTransaction {
   readonly options: { usePhantomQuery: boolean };
-  queryRaw(query: AdapterQuery): Promise<{ columnNames: string[]; rows: unknown[][] }>;
+  queryRaw(query: AdapterQuery): Promise<AdapterResultSet>;
   executeRaw(query: AdapterQuery): Promise<number>;
   commit(): Promise<void>;
   rollback(): Promise<void>;

@@ -1,10 +1,11 @@
 /** Coils: reads and writes. */
 import { prisma } from "./client";
+import { readRows } from "./adapter-read";
 import { recordAudit } from "./audit";
 import { markCoilChanged } from "./coil-summary";
 import { serializableTransaction } from "./serializable";
 import { normalizePage, toPage, type PageRequest } from "./pagination";
-import type { Coil, Component, Prisma, TopLoad } from "./generated/client";
+import { Prisma, type Coil, type Component, type TopLoad } from "./generated/client";
 import { textContains } from "./text-search";
 import { coilOfSite, type SiteScope } from "./site-scope";
 import type { CoilInput, CoilUpdateInput } from "../validation/coil";
@@ -48,16 +49,16 @@ export function listCoilChoices(scope: SiteScope) {
  * (lib/db/raw-read.ts says why).
  */
 export async function getCoilByTag(scope: SiteScope, tag: string): Promise<CoilWithParts | null> {
-  const [row] = await prisma.$queryRaw<(Coil & { createdByName: string | null })[]>`
+  const [row] = await readRows<Coil & { createdByName: string | null }>(Prisma.sql`
     SELECT c.*, u.name AS "createdByName" FROM "Coil" c LEFT JOIN "User" u ON u.id = c."createdById"
-    WHERE c."siteId" = ${scope.siteId} AND c.tag = ${tag}`;
+    WHERE c."siteId" = ${scope.siteId} AND c.tag = ${tag}`);
   if (!row) return null;
   // By the id just read at the scope's site, so these can only be that coil's rows.
   const [topLoads, components] = await Promise.all([
-    prisma.$queryRaw<TopLoad[]>`SELECT * FROM "TopLoad" WHERE "coilId" = ${row.id} ORDER BY "createdAt", id`,
+    readRows<TopLoad>(Prisma.sql`SELECT * FROM "TopLoad" WHERE "coilId" = ${row.id} ORDER BY "createdAt", id`),
     // Written out rather than left to the database: SQLite sorts NULL first and PostgreSQL last.
-    prisma.$queryRaw<Component[]>`
-      SELECT * FROM "Component" WHERE "coilId" = ${row.id} ORDER BY ("removedAt" IS NOT NULL), "removedAt", "installedAt" DESC, id`,
+    readRows<Component>(Prisma.sql`
+      SELECT * FROM "Component" WHERE "coilId" = ${row.id} ORDER BY ("removedAt" IS NOT NULL), "removedAt", "installedAt" DESC, id`),
   ]);
   const { createdByName, ...coil } = row;
   return { ...coil, createdBy: createdByName === null ? null : { name: createdByName }, topLoads, components };

@@ -9,6 +9,8 @@
  * site's dashboard brings them up to date. Open failures, loans and clearances are worked out now, from the records.
  */
 import { prisma } from "./client";
+import { readRows } from "./adapter-read";
+import { Prisma } from "./generated/client";
 import type { SiteScope } from "./site-scope";
 import type { SiteRef } from "./site-access";
 import { isOrganisationAdmin, SiteAccessError } from "./users";
@@ -36,28 +38,28 @@ export async function getDistrictHealth(scope: SiteScope, now: Date = new Date()
   if (!(await isOrganisationAdmin(prisma, scope.actorId))) throw new SiteAccessError("The district view needs an organisation admin.");
   const [sites, health, failures, loans, cleared] = await Promise.all([
     prisma.site.findMany({ select: { id: true, slug: true, name: true }, orderBy: { name: "asc" } }),
-    prisma.$queryRaw<{ siteId: string; health: string | null; coils: Count; outOfDate: Count; oldest: Date | null }[]>`
+    readRows<{ siteId: string; health: string | null; coils: Count; outOfDate: Count; oldest: Date | null }>(Prisma.sql`
       SELECT c."siteId" AS "siteId", s.health AS health, COUNT(*) AS coils,
              SUM(CASE WHEN s."computedRevision" IS NULL OR s."computedRevision" <> s.revision
                         OR (s."validUntil" IS NOT NULL AND s."validUntil" <= ${now}) THEN 1 ELSE 0 END) AS "outOfDate",
              MIN(s."computedAt") AS oldest
       FROM "Coil" c LEFT JOIN "CoilSummary" s ON s."coilId" = c.id
-      GROUP BY c."siteId", s.health`,
-    prisma.$queryRaw<{ siteId: string; open: Count }[]>`
+      GROUP BY c."siteId", s.health`),
+    readRows<{ siteId: string; open: Count }>(Prisma.sql`
       SELECT c."siteId" AS "siteId", COUNT(*) AS open
       FROM "Failure" f JOIN "Coil" c ON c.id = f."coilId"
       WHERE f.status = 'open'
-      GROUP BY c."siteId"`,
+      GROUP BY c."siteId"`),
     // Counted at the lending site (the coil's), where the steward answers for it.
-    prisma.$queryRaw<{ siteId: string; out: Count; overdue: Count }[]>`
+    readRows<{ siteId: string; out: Count; overdue: Count }>(Prisma.sql`
       SELECT c."siteId" AS "siteId", COUNT(*) AS out, SUM(CASE WHEN l."expectedBackAt" < ${now} THEN 1 ELSE 0 END) AS overdue
       FROM "Loan" l JOIN "Coil" c ON c.id = l."coilId"
       WHERE l."returnedAt" IS NULL
-      GROUP BY c."siteId"`,
+      GROUP BY c."siteId"`),
     // The rule of lib/calc/clearance-lapse.ts in SQL: the latest decision (ties on the instant broken by id, as the
     // dashboard's readLatestClearances), cleared, before its expiry, with no failure and no part fitted after the
     // coil's first parts between signing and now.
-    prisma.$queryRaw<{ siteId: string; cleared: Count }[]>`
+    readRows<{ siteId: string; cleared: Count }>(Prisma.sql`
       SELECT c."siteId" AS "siteId", COUNT(*) AS cleared
       FROM "Clearance" k JOIN "Coil" c ON c.id = k."coilId"
       WHERE k.verdict = 'cleared' AND k."validUntil" > ${now}
@@ -66,7 +68,7 @@ export async function getDistrictHealth(scope: SiteScope, now: Date = new Date()
         AND NOT EXISTS (SELECT 1 FROM "Failure" f WHERE f."coilId" = k."coilId" AND f."occurredAt" >= k."decidedAt" AND f."occurredAt" <= ${now})
         AND NOT EXISTS (SELECT 1 FROM "Component" p WHERE p."coilId" = k."coilId" AND p."installedAt" >= k."decidedAt" AND p."installedAt" <= ${now}
                           AND p."installedAt" > (SELECT MIN(q."installedAt") FROM "Component" q WHERE q."coilId" = k."coilId"))
-      GROUP BY c."siteId"`,
+      GROUP BY c."siteId"`),
   ]);
   const bySite = new Map<string, SiteFleetHealth>(
     sites.map((site) => [

@@ -9,7 +9,7 @@
  * coil's rows. The statement is portable (quoted identifiers, no provider-only functions); test/export-stream.test.ts
  * checks it against the whole-logbook answer (exportFleet + fleetSummaryCsv) on SQLite and PostgreSQL.
  */
-import { prisma } from "./client";
+import { readRows } from "./adapter-read";
 import { Prisma } from "./generated/client";
 import { rawCount, rawDateOrNull } from "./raw-read";
 import type { SiteScope } from "./site-scope";
@@ -58,7 +58,7 @@ export function fleetSummaryStatement(siteId: string): Prisma.Sql {
 export async function readFleetSummaryRows(scope: SiteScope): Promise<FleetSummaryRow[]> {
   // "Last session" is the latest startedAt (the logbook file orders by startedAt, then id); "last sweep" is the
   // latest takenAt with the id breaking a tie, as the file orders them.
-  const rows = await prisma.$queryRaw<FleetSummaryRaw[]>(fleetSummaryStatement(scope.siteId));
+  const rows = await readRows<FleetSummaryRaw>(fleetSummaryStatement(scope.siteId));
   return rows.map((r) => ({
     tag: r.tag,
     name: r.name,

@@ -22,18 +22,9 @@
  * INSERT, the transaction rolls back whole, and only then is the stored session looked up (replay or refusal).
  */
 import { randomBytes } from "node:crypto";
-import { connectedAdapter, provider, type AdapterQuery, type AdapterTransaction } from "./client";
+import { adapterQuery } from "./adapter-read";
+import { connectedAdapter, type AdapterTransaction } from "./client";
 import type { Prisma } from "./generated/client";
-
-/** One statement's text and values, as Prisma.sql writes them (`?` placeholders, `$n` on PostgreSQL). */
-function adapterQuery(statement: Prisma.Sql): AdapterQuery {
-  return {
-    sql: provider === "postgresql" ? statement.text : statement.sql,
-    args: statement.values,
-    // Only dates need a type: the adapters turn them into the stored text (SQLite) or timestamp literal (PostgreSQL).
-    argTypes: statement.values.map((value) => ({ scalarType: value instanceof Date ? "datetime" : "unknown", arity: "scalar" as const })),
-  };
-}
 
 /** Runs statements inside one adapter transaction. */
 export interface StatementRunner {

@@ -82,3 +82,9 @@ export const openDatabase = createPrismaClient;
 
 /** Every model (table) of the schema. */
 export const MODEL_NAMES: readonly string[] = Object.values(Prisma.ModelName);
+
+/** Prisma's SQL template helpers, for tests that compare two ways of running one statement. */
+export const sql = Prisma.sql;
+export const rawSql = Prisma.raw;
+export const joinSql = Prisma.join;
+export type Sql = Prisma.Sql;
