@@ -5,9 +5,9 @@
  * page has read already. Each statement joins the coil at the scope's site, so a coil of another site reads as one
  * with nothing recorded, exactly as an id that does not exist.
  */
-import { prisma } from "./client";
+import { readRows } from "./adapter-read";
 import type { SiteScope } from "./site-scope";
-import type { Clearance, Failure, Loan } from "./generated/client";
+import { Prisma, type Clearance, type Failure, type Loan } from "./generated/client";
 import { findPartReplacements } from "../analysis/clearance-facts";
 import { describeClearanceState, type ClearanceState } from "../analysis/clearance-state";
 import type { ComponentRecord } from "../analysis/records";
@@ -67,16 +67,16 @@ export async function readCoilStanding(
 ): Promise<CoilStanding> {
   const [clearances, failures, loans] = await Promise.all([
     knownLatestClearance(known) ??
-      prisma.$queryRaw<LatestClearance[]>`
+      readRows<LatestClearance>(Prisma.sql`
       SELECT r.id, r."coilId", r.verdict, r."decidedAt", r."validUntil" FROM "Clearance" r JOIN "Coil" ON "Coil".id = r."coilId"
-      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${scope.siteId} ORDER BY r."decidedAt" DESC, r.id DESC LIMIT 1`,
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${scope.siteId} ORDER BY r."decidedAt" DESC, r.id DESC LIMIT 1`),
     knownFailures(known) ??
-      prisma.$queryRaw<Pick<Failure, "occurredAt" | "mode">[]>`
-      SELECT r."occurredAt", r.mode FROM "Failure" r JOIN "Coil" ON "Coil".id = r."coilId" WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${scope.siteId}`,
+      readRows<Pick<Failure, "occurredAt" | "mode">>(Prisma.sql`
+      SELECT r."occurredAt", r.mode FROM "Failure" r JOIN "Coil" ON "Coil".id = r."coilId" WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${scope.siteId}`),
     knownOpenLoan(known) ??
-      prisma.$queryRaw<OpenLoan[]>`
+      readRows<OpenLoan>(Prisma.sql`
       SELECT r.id, r.borrower, r.event, r."expectedBackAt" FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
-      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${scope.siteId} AND r."returnedAt" IS NULL ORDER BY r."outAt" DESC, r.id DESC LIMIT 1`,
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${scope.siteId} AND r."returnedAt" IS NULL ORDER BY r."outAt" DESC, r.id DESC LIMIT 1`),
   ]);
   const loan = loans[0];
   return {

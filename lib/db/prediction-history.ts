@@ -7,6 +7,8 @@
  * whose sweep before it falls outside the window is left out, as one with no sweep before it always was.
  */
 import { prisma } from "./client";
+import { readRows } from "./adapter-read";
+import { Prisma } from "./generated/client";
 import { rawDate } from "./raw-read";
 import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 import { compareCoil, type CoilComparison } from "../analysis/coil-comparison";
@@ -40,10 +42,10 @@ type RunningRow = { id: string; coilId: string; startedAt: Date; topLoadId: stri
  * test/raw-reads.test.ts checks it against the query API's answer on both databases).
  */
 export async function readRunningFrequencies(scope: SiteScope, coilId: string): Promise<RunningRow[]> {
-  const rows = await prisma.$queryRaw<(Omit<RunningRow, "startedAt"> & { startedAt: Date | string })[]>`
+  const rows = await readRows<(Omit<RunningRow, "startedAt"> & { startedAt: Date | string })>(Prisma.sql`
     SELECT s.id, s."coilId", s."startedAt", s."topLoadId", s."runningFrequencyHz" FROM "RunSession" s JOIN "Coil" ON "Coil".id = s."coilId"
     WHERE s."coilId" = ${coilId} AND "Coil"."siteId" = ${scope.siteId} AND s."runningFrequencyHz" IS NOT NULL
-    ORDER BY s."startedAt", s.id`;
+    ORDER BY s."startedAt", s.id`);
   return rows.map((row) => ({ ...row, startedAt: rawDate(row.startedAt) }));
 }
 
