@@ -4,10 +4,11 @@
  * the page costs a handful of small queries however long the coil's history is. Every statement joins the coil at
  * the scope's site, so a coil of another site has an empty timeline and no counts, as one that does not exist.
  */
-import { prisma } from "./client";
-import { Prisma } from "./generated/client";
+import { readRows } from "./adapter-read";
+import { Prisma, type Clearance, type Failure } from "./generated/client";
 import type { SiteScope } from "./site-scope";
 import type { TimelineFilter } from "../validation/timeline";
+import type { KnownStandingRecords } from "./coil-standing";
 
 export type TimelineKind = "session" | "sweep" | "failure" | "part-fitted" | "part-removed" | "clearance" | "loan-out" | "loan-back";
 
@@ -57,10 +58,10 @@ export interface TimelineEvent {
  */
 async function countRecords(scope: SiteScope, coilId: string) {
   const count = (table: string) => Prisma.raw(`(SELECT count(*) FROM "${table}" t WHERE t."coilId" = c.id)`);
-  const [row] = await prisma.$queryRaw<Record<"sessions" | "sweeps" | "failures" | "components" | "clearances" | "loans", bigint | number>[]>`
+  const [row] = await readRows<Record<"sessions" | "sweeps" | "failures" | "components" | "clearances" | "loans", bigint | number>>(Prisma.sql`
     SELECT ${count("RunSession")} AS "sessions", ${count("Sweep")} AS "sweeps", ${count("Failure")} AS "failures",
            ${count("Component")} AS "components", ${count("Clearance")} AS "clearances", ${count("Loan")} AS "loans"
-    FROM "Coil" c WHERE c.id = ${coilId} AND c."siteId" = ${scope.siteId}`;
+    FROM "Coil" c WHERE c.id = ${coilId} AND c."siteId" = ${scope.siteId}`);
   if (!row) return null;
   return {
     sessions: Number(row.sessions),
@@ -108,37 +109,37 @@ export async function getCoilTimeline(scope: SiteScope, coilId: string, limit = 
   const [sessions, sweeps, failures, fitted, removed, clearances, loansOut, loansBack, counts] = await Promise.all([
     known?.sessionsIncludingNewest
       ? newestFirst(known.sessionsIncludingNewest, (s) => s.startedAt, take)
-      : prisma.$queryRaw<SessionRow[]>`
+      : readRows<SessionRow>(Prisma.sql`
           SELECT r.id, r."startedAt", r."supplyVoltageV", r."supplyCurrentA", r."durationS", r.outcome FROM "RunSession" r JOIN "Coil" ON "Coil".id = r."coilId"
-          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."startedAt" DESC, r.id DESC LIMIT ${take}`,
+          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."startedAt" DESC, r.id DESC LIMIT ${take}`),
     knownSweeps
       ? newestFirst(knownSweeps.sweeps, (s) => s.takenAt, take).map((s) => ({ ...s, topLoadName: s.topLoadId === null ? null : (knownSweeps.topLoadName.get(s.topLoadId) ?? null) }))
-      : prisma.$queryRaw<(SweepRow & { topLoadName: string | null })[]>`
+      : readRows<(SweepRow & { topLoadName: string | null })>(Prisma.sql`
           SELECT w.id, w."takenAt", w."firstSeriesResonanceHz", w."topLoadId", t.name AS "topLoadName" FROM "Sweep" w
           JOIN "Coil" ON "Coil".id = w."coilId" LEFT JOIN "TopLoad" t ON t.id = w."topLoadId"
-          WHERE w."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY w."takenAt" DESC, w.id DESC LIMIT ${take}`,
-    prisma.$queryRaw<{ id: string; occurredAt: Date; mode: string; symptoms: string; status: string }[]>`
+          WHERE w."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY w."takenAt" DESC, w.id DESC LIMIT ${take}`),
+    readRows<{ id: string; occurredAt: Date; mode: Failure["mode"]; symptoms: string; status: string }>(Prisma.sql`
       SELECT r.id, r."occurredAt", r.mode, r.symptoms, r.status FROM "Failure" r JOIN "Coil" ON "Coil".id = r."coilId"
-      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."occurredAt" DESC, r.id DESC LIMIT ${take}`,
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."occurredAt" DESC, r.id DESC LIMIT ${take}`),
     knownParts
       ? newestFirst(knownParts, (c) => c.installedAt, take)
-      : prisma.$queryRaw<PartRow[]>`
+      : readRows<PartRow>(Prisma.sql`
           SELECT r.id, r."installedAt", r."removedAt", r."partNumber", r.kind, r."removalReason" FROM "Component" r JOIN "Coil" ON "Coil".id = r."coilId"
-          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."installedAt" DESC, r.id DESC LIMIT ${take}`,
+          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."installedAt" DESC, r.id DESC LIMIT ${take}`),
     knownParts
       ? newestFirst(knownParts, (c) => c.removedAt, take)
-      : prisma.$queryRaw<PartRow[]>`
+      : readRows<PartRow>(Prisma.sql`
           SELECT r.id, r."installedAt", r."removedAt", r."partNumber", r.kind, r."removalReason" FROM "Component" r JOIN "Coil" ON "Coil".id = r."coilId"
-          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND r."removedAt" IS NOT NULL ORDER BY r."removedAt" DESC, r.id DESC LIMIT ${take}`,
-    prisma.$queryRaw<{ id: string; decidedAt: Date; verdict: string; validUntil: Date; lapsedAt: Date | null }[]>`
-      SELECT r.id, r."decidedAt", r.verdict, r."validUntil", r."lapsedAt" FROM "Clearance" r JOIN "Coil" ON "Coil".id = r."coilId"
-      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."decidedAt" DESC, r.id DESC LIMIT ${take}`,
-    prisma.$queryRaw<{ id: string; outAt: Date; borrower: string; event: string }[]>`
-      SELECT r.id, r."outAt", r.borrower, r.event FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
-      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."outAt" DESC, r.id DESC LIMIT ${take}`,
-    prisma.$queryRaw<{ id: string; returnedAt: Date; borrower: string; returnCondition: string | null }[]>`
+          WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND r."removedAt" IS NOT NULL ORDER BY r."removedAt" DESC, r.id DESC LIMIT ${take}`),
+    readRows<{ id: string; coilId: string; decidedAt: Date; verdict: Clearance["verdict"]; validUntil: Date; lapsedAt: Date | null }>(Prisma.sql`
+      SELECT r.id, r."coilId", r."decidedAt", r.verdict, r."validUntil", r."lapsedAt" FROM "Clearance" r JOIN "Coil" ON "Coil".id = r."coilId"
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."decidedAt" DESC, r.id DESC LIMIT ${take}`),
+    readRows<{ id: string; outAt: Date; borrower: string; event: string; expectedBackAt: Date; returnedAt: Date | null }>(Prisma.sql`
+      SELECT r.id, r."outAt", r.borrower, r.event, r."expectedBackAt", r."returnedAt" FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} ORDER BY r."outAt" DESC, r.id DESC LIMIT ${take}`),
+    readRows<{ id: string; returnedAt: Date; borrower: string; returnCondition: string | null }>(Prisma.sql`
       SELECT r.id, r."returnedAt", r.borrower, r."returnCondition" FROM "Loan" r JOIN "Coil" ON "Coil".id = r."coilId"
-      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND r."returnedAt" IS NOT NULL ORDER BY r."returnedAt" DESC, r.id DESC LIMIT ${take}`,
+      WHERE r."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND r."returnedAt" IS NOT NULL ORDER BY r."returnedAt" DESC, r.id DESC LIMIT ${take}`),
     countRecords(scope, coilId),
   ]);
 
@@ -157,5 +158,15 @@ export async function getCoilTimeline(scope: SiteScope, coilId: string, limit = 
   const shown = kept.slice(0, limit);
   // More than shown: more events were read than fit, or more records exist than events shown (each gives at least one).
   const truncated = kept.length > limit || (counts !== null && countEvents(counts, filter) > shown.length);
-  return { events: shown, counts, truncated };
+  // The newest clearances, failures and loans as read (newest first), with how many exist: the coil page's standing
+  // (lib/db/coil-standing.ts) takes what it needs from them instead of reading them again.
+  const standingRecords: KnownStandingRecords | undefined = counts === null ? undefined : {
+    clearancesNewestFirst: clearances,
+    clearanceCount: counts.clearances,
+    failures,
+    failureCount: counts.failures,
+    loansNewestFirst: loansOut,
+    loanCount: counts.loans,
+  };
+  return { events: shown, counts, truncated, standingRecords };
 }

@@ -8,7 +8,8 @@
  * site stays in its own site's fleet (with its loan) and never appears in the borrowing site's.
  */
 import { prisma } from "./client";
-import type { Clearance, Coil, Component, Failure, Loan } from "./generated/client";
+import { readRows } from "./adapter-read";
+import { Prisma, type Clearance, type Coil, type Component, type Failure, type Loan } from "./generated/client";
 import { getCoilFigures } from "./coil-summary";
 import { getCurrentPolicy } from "./policy";
 import { findPartReplacements } from "../analysis/clearance-facts";
@@ -54,11 +55,11 @@ function groupByCoil<T extends { coilId: string }>(rows: readonly T[]): Map<stri
  * (coilId, decidedAt) index. Prisma's `distinct` would read every clearance ever signed and drop the rest in memory.
  */
 export function readLatestClearances(scope: SiteScope) {
-  return prisma.$queryRaw<Pick<Clearance, "id" | "coilId" | "verdict" | "decidedAt" | "validUntil">[]>`
+  return readRows<Pick<Clearance, "id" | "coilId" | "verdict" | "decidedAt" | "validUntil">>(Prisma.sql`
     SELECT c.id, c."coilId", c.verdict, c."decidedAt", c."validUntil" FROM "Clearance" c JOIN "Coil" ON "Coil".id = c."coilId"
     WHERE "Coil"."siteId" = ${scope.siteId}
       AND NOT EXISTS (SELECT 1 FROM "Clearance" d WHERE d."coilId" = c."coilId"
-                        AND (d."decidedAt" > c."decidedAt" OR (d."decidedAt" = c."decidedAt" AND d.id > c.id)))`;
+                        AND (d."decidedAt" > c."decidedAt" OR (d."decidedAt" = c."decidedAt" AND d.id > c.id)))`);
 }
 
 /**
@@ -68,19 +69,19 @@ export function readLatestClearances(scope: SiteScope) {
 export async function getFleetOverview(scope: SiteScope, now: Date = new Date()): Promise<FleetRow[]> {
   const site = scope.siteId;
   const [coils, policy, failures, clearances, loans, components] = await Promise.all([
-    prisma.$queryRaw<Pick<Coil, "id" | "tag" | "name" | "status">[]>`SELECT id, tag, name, status FROM "Coil" WHERE "siteId" = ${site} ORDER BY tag`,
+    readRows<Pick<Coil, "id" | "tag" | "name" | "status">>(Prisma.sql`SELECT id, tag, name, status FROM "Coil" WHERE "siteId" = ${site} ORDER BY tag`),
     getCurrentPolicy(scope),
-    prisma.$queryRaw<Pick<Failure, "coilId" | "occurredAt" | "mode" | "status">[]>`
-      SELECT f."coilId", f."occurredAt", f.mode, f.status FROM "Failure" f JOIN "Coil" ON "Coil".id = f."coilId" WHERE "Coil"."siteId" = ${site}`,
+    readRows<Pick<Failure, "coilId" | "occurredAt" | "mode" | "status">>(Prisma.sql`
+      SELECT f."coilId", f."occurredAt", f.mode, f.status FROM "Failure" f JOIN "Coil" ON "Coil".id = f."coilId" WHERE "Coil"."siteId" = ${site}`),
     readLatestClearances(scope),
-    prisma.$queryRaw<Pick<Loan, "id" | "coilId" | "borrower" | "event" | "expectedBackAt">[]>`
+    readRows<Pick<Loan, "id" | "coilId" | "borrower" | "event" | "expectedBackAt">>(Prisma.sql`
       SELECT l.id, l."coilId", l.borrower, l.event, l."expectedBackAt" FROM "Loan" l JOIN "Coil" ON "Coil".id = l."coilId"
-      WHERE "Coil"."siteId" = ${site} AND l."returnedAt" IS NULL`,
+      WHERE "Coil"."siteId" = ${site} AND l."returnedAt" IS NULL`),
     // Parts only for the clearance lapse check (a part fitted since signing), so only for coils that have a
     // clearance: a coil never cleared shows "none" whatever its parts.
-    prisma.$queryRaw<Pick<Component, "id" | "coilId" | "kind" | "partNumber" | "installedAt" | "removedAt">[]>`
+    readRows<Pick<Component, "id" | "coilId" | "kind" | "partNumber" | "installedAt" | "removedAt">>(Prisma.sql`
       SELECT p.id, p."coilId", p.kind, p."partNumber", p."installedAt", p."removedAt" FROM "Component" p JOIN "Coil" ON "Coil".id = p."coilId"
-      WHERE "Coil"."siteId" = ${site} AND p."coilId" IN (SELECT "coilId" FROM "Clearance") ORDER BY p."installedAt", p.id`,
+      WHERE "Coil"."siteId" = ${site} AND p."coilId" IN (SELECT "coilId" FROM "Clearance") ORDER BY p."installedAt", p.id`),
   ]);
   const figuresByCoil = await getCoilFigures(
     scope,

@@ -16,7 +16,8 @@
  *    the decision hold the thresholds themselves.
  */
 import { prisma, type Tx } from "./client";
-import type { ClearancePolicy } from "./generated/client";
+import { readRows } from "./adapter-read";
+import { Prisma, type ClearancePolicy } from "./generated/client";
 import { recordAudit } from "./audit";
 import { serializableTransaction } from "./serializable";
 import type { SiteScope } from "./site-scope";
@@ -51,8 +52,27 @@ export class PolicyRefusedError extends Error {
   }
 }
 
+/**
+ * Stored rules parsed once per distinct text: a version is never edited, and nearly every page reads the current
+ * policy, whose zod parse was a measurable part of a page's work. Frozen, because one parse is shared by every request.
+ */
+const parsedRules = new Map<string, Readonly<ClearancePolicyRules>>();
+const PARSED_RULES_KEPT = 64;
+
+function parseRulesOnce(rulesJson: string): ClearancePolicyRules {
+  const known = parsedRules.get(rulesJson);
+  if (known) return known;
+  const rules = parseStoredPolicyRules(rulesJson);
+  for (const item of rules.requiredChecklist) Object.freeze(item);
+  Object.freeze(rules.requiredChecklist);
+  Object.freeze(rules);
+  if (parsedRules.size >= PARSED_RULES_KEPT) parsedRules.clear();
+  parsedRules.set(rulesJson, rules);
+  return rules;
+}
+
 function toVersion(row: ClearancePolicy): PolicyVersion {
-  return { id: row.id, siteId: row.siteId, version: row.version, rules: parseStoredPolicyRules(row.rulesJson), note: row.note, createdAt: row.createdAt };
+  return { id: row.id, siteId: row.siteId, version: row.version, rules: parseRulesOnce(row.rulesJson), note: row.note, createdAt: row.createdAt };
 }
 
 /** Combines the default and the site's own version into the effective policy. */
@@ -76,7 +96,7 @@ async function latestDefaultIn(tx: Tx): Promise<ClearancePolicy> {
 
 /** The organisation's default policy (no site's record: every site lends by it or stricter). */
 export async function getDefaultPolicy(): Promise<PolicyVersion> {
-  const [latest] = await prisma.$queryRaw<ClearancePolicy[]>`SELECT * FROM "ClearancePolicy" WHERE "siteId" IS NULL AND "recordOnly" = false ORDER BY version DESC LIMIT 1`;
+  const [latest] = await readRows<ClearancePolicy>(Prisma.sql`SELECT * FROM "ClearancePolicy" WHERE "siteId" IS NULL AND "recordOnly" = false ORDER BY version DESC LIMIT 1`);
   if (latest) return toVersion(latest);
   // Serializable and checked again inside, so two first requests cannot both create it.
   return toVersion(await serializableTransaction(latestDefaultIn));
@@ -85,10 +105,10 @@ export async function getDefaultPolicy(): Promise<PolicyVersion> {
 /** The policy the scope's site lends by now. */
 export async function getCurrentPolicy(scope: SiteScope): Promise<EffectivePolicy> {
   // Raw and one statement: nearly every page asks (lib/db/raw-read.ts says why).
-  const rows = await prisma.$queryRaw<ClearancePolicy[]>`
+  const rows = await readRows<ClearancePolicy>(Prisma.sql`
     SELECT * FROM (SELECT * FROM "ClearancePolicy" WHERE "siteId" IS NULL AND "recordOnly" = false ORDER BY version DESC LIMIT 1) AS organisation_default
     UNION ALL
-    SELECT * FROM (SELECT * FROM "ClearancePolicy" WHERE "siteId" = ${scope.siteId} AND "recordOnly" = false ORDER BY version DESC LIMIT 1) AS site_own`;
+    SELECT * FROM (SELECT * FROM "ClearancePolicy" WHERE "siteId" = ${scope.siteId} AND "recordOnly" = false ORDER BY version DESC LIMIT 1) AS site_own`);
   const defaultRow = rows.find((row) => row.siteId === null);
   const siteRow = rows.find((row) => row.siteId === scope.siteId) ?? null;
   const organisationDefault = defaultRow ? toVersion(defaultRow) : await getDefaultPolicy();

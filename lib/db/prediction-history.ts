@@ -7,6 +7,9 @@
  * whose sweep before it falls outside the window is left out, as one with no sweep before it always was.
  */
 import { prisma } from "./client";
+import { readRows } from "./adapter-read";
+import { Prisma } from "./generated/client";
+import { rawDate } from "./raw-read";
 import { coilOfSite, recordOfSite, type SiteScope } from "./site-scope";
 import { compareCoil, type CoilComparison } from "../analysis/coil-comparison";
 import { needsFleetObservations, pairFleetRunning, pairRunningWithSweeps } from "../analysis/running-offset";
@@ -31,13 +34,19 @@ const runningSelect = { id: true, coilId: true, startedAt: true, topLoadId: true
 /** How many of the site's latest sweeps, and of its latest sessions, the fleet-wide figures look at. */
 export const FLEET_PREDICTION_WINDOW = 2_000;
 
-/** A coil's sessions that logged a running frequency, oldest first (what its own offset is learnt from). */
-export function readRunningFrequencies(scope: SiteScope, coilId: string) {
-  return prisma.runSession.findMany({
-    where: { runningFrequencyHz: { not: null }, ...recordOfSite(scope), coilId },
-    select: runningSelect,
-    orderBy: [{ startedAt: "asc" }, { id: "asc" }],
-  });
+type RunningRow = { id: string; coilId: string; startedAt: Date; topLoadId: string | null; runningFrequencyHz: number | null };
+
+/**
+ * A coil's sessions that logged a running frequency, oldest first (what its own offset is learnt from). Raw and one
+ * statement on the (coilId, startedAt) index: the coil page asks on every view (lib/db/raw-read.ts says why raw;
+ * test/raw-reads.test.ts checks it against the query API's answer on both databases).
+ */
+export async function readRunningFrequencies(scope: SiteScope, coilId: string): Promise<RunningRow[]> {
+  const rows = await readRows<(Omit<RunningRow, "startedAt"> & { startedAt: Date | string })>(Prisma.sql`
+    SELECT s.id, s."coilId", s."startedAt", s."topLoadId", s."runningFrequencyHz" FROM "RunSession" s JOIN "Coil" ON "Coil".id = s."coilId"
+    WHERE s."coilId" = ${coilId} AND "Coil"."siteId" = ${scope.siteId} AND s."runningFrequencyHz" IS NOT NULL
+    ORDER BY s."startedAt", s.id`);
+  return rows.map((row) => ({ ...row, startedAt: rawDate(row.startedAt) }));
 }
 
 /** The site's latest sessions that logged a running frequency, oldest first. */
@@ -83,10 +92,21 @@ export async function readFleetRunningInputs(scope: SiteScope, window = FLEET_PR
 
 /**
  * The coil page's prediction table from its history: the coil's running frequencies read in full (the offset is
- * learnt from every earlier session), the site's fleet's only when the coil has too few of its own.
+ * learnt from every earlier session), the site's fleet's only when the coil has too few of its own. When the caller
+ * knows the coil's session count and the history's sessions are all of them (a logbook no longer than the health
+ * window, as every demo coil's is), the running frequencies are taken from the history instead of read again.
  */
-export async function readCoilComparison(scope: SiteScope, history: NonNullable<Awaited<ReturnType<typeof getCoilPageHistory>>>): Promise<CoilComparison> {
-  const runningSessions = await readRunningFrequencies(scope, history.coil.id);
+export async function readCoilComparison(
+  scope: SiteScope,
+  history: NonNullable<Awaited<ReturnType<typeof getCoilPageHistory>>>,
+  knownSessionCount?: number,
+): Promise<CoilComparison> {
+  const runningSessions =
+    knownSessionCount === history.sessions.length
+      ? history.sessions
+          .filter((s) => s.runningFrequencyHz !== null)
+          .map(({ id, coilId, startedAt, topLoadId, runningFrequencyHz }) => ({ id, coilId, startedAt, topLoadId, runningFrequencyHz }))
+      : await readRunningFrequencies(scope, history.coil.id);
   let fleetObservations: ReturnType<typeof pairFleetRunning> = [];
   if (needsFleetObservations(pairRunningWithSweeps(runningSessions, history.sweeps))) {
     const { sweeps, sessions } = await readFleetRunningInputs(scope);

@@ -72,8 +72,8 @@ export default async function CoilPage({ params, searchParams }: Props) {
   const { coil, history, timeline, policy } = records;
   const latestSweepId = history.sweeps.at(-1)?.id;
   const [comparison, standing, latestSweep] = await Promise.all([
-    readCoilComparison(user.scope, history),
-    readCoilStanding(user.scope, coil.id, coil.components),
+    readCoilComparison(user.scope, history, timeline.counts?.sessions),
+    readCoilStanding(user.scope, coil.id, coil.components, undefined, timeline.standingRecords),
     latestSweepId ? readSweepThumbnail(user.scope, latestSweepId) : null,
   ]);
   const { health, reasons, latest, trend } = assess(history, policy.rules);
