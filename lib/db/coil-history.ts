@@ -97,29 +97,29 @@ export async function getCoilPageHistory(scope: SiteScope, coilId: string, known
   const site = scope.siteId;
   // Raw statements (lib/db/raw-read.ts says why): this is the coil page's main read.
   const [coils, components, windowRows, sweeps, topLoads, openFailures] = await Promise.all([
-    known ? [known.coil] : prisma.$queryRaw<Coil[]>`SELECT * FROM "Coil" WHERE id = ${coilId} AND "siteId" = ${site}`,
+    known ? [known.coil] : readRows<Coil>(Prisma.sql`SELECT * FROM "Coil" WHERE id = ${coilId} AND "siteId" = ${site}`),
     known
       ? [...known.components].sort((a, b) => a.installedAt.getTime() - b.installedAt.getTime() || compareIds(a, b))
-      : prisma.$queryRaw<Component[]>`
+      : readRows<Component>(Prisma.sql`
           SELECT p.* FROM "Component" p JOIN "Coil" ON "Coil".id = p."coilId" WHERE p."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
-          ORDER BY p."installedAt", p.id`,
+          ORDER BY p."installedAt", p.id`),
     // Both ends of the (coilId, startedAt) index in one statement; a session in both halves comes back twice.
-    prisma.$queryRaw<RawSessionRow[]>`
+    readRows<RawSessionRow>(Prisma.sql`
       SELECT * FROM (SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s JOIN "Coil" ON "Coil".id = s."coilId"
                      WHERE s."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
                      ORDER BY s."startedAt", s.id LIMIT ${baselineSessions}) AS baseline
       UNION ALL
       SELECT * FROM (SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s JOIN "Coil" ON "Coil".id = s."coilId"
                      WHERE s."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
-                     ORDER BY s."startedAt" DESC, s.id DESC LIMIT ${recentSessions}) AS recent`,
-    prisma.$queryRaw<SweepRow[]>`
+                     ORDER BY s."startedAt" DESC, s.id DESC LIMIT ${recentSessions}) AS recent`),
+    readRows<SweepRow>(Prisma.sql`
       SELECT ${Prisma.raw(SWEEP_COLUMNS)} FROM "Sweep" w JOIN "Coil" ON "Coil".id = w."coilId" WHERE w."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
-      ORDER BY w."takenAt", w.id`,
+      ORDER BY w."takenAt", w.id`),
     known
       ? [...known.topLoads].sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || compareIds(a, b))
-      : prisma.$queryRaw<TopLoad[]>`
+      : readRows<TopLoad>(Prisma.sql`
           SELECT t.* FROM "TopLoad" t JOIN "Coil" ON "Coil".id = t."coilId" WHERE t."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
-          ORDER BY t."createdAt", t.id`,
+          ORDER BY t."createdAt", t.id`),
     // Usually none: the query API's cost is paid on an index probe that finds nothing.
     prisma.failure.findMany({ where: openFailuresWhere(scope, coilId), select: openFailureSelect, orderBy: openFailureOrder }),
   ]);
@@ -128,10 +128,10 @@ export async function getCoilPageHistory(scope: SiteScope, coilId: string, known
   const byId = new Map(windowRows.map((row) => [row.id, toSessionRow(row)]));
   const sessions = [...byId.values()].sort((a, b) => a.startedAt.getTime() - b.startedAt.getTime() || compareIds(a, b));
   const topLoadId = findCurrentTopLoad(topLoads, sweeps, sessions)?.id ?? null;
-  const [running] = await prisma.$queryRaw<SessionRow[]>`
+  const [running] = await readRows<SessionRow>(Prisma.sql`
     SELECT ${Prisma.raw(SESSION_COLUMNS)} FROM "RunSession" s JOIN "Coil" ON "Coil".id = s."coilId"
     WHERE s."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND s."topLoadId" ${topLoadId === null ? Prisma.sql`IS NULL` : Prisma.sql`= ${topLoadId}`} AND s."runningFrequencyHz" IS NOT NULL
-    ORDER BY s."startedAt" DESC, s.id DESC LIMIT 1`;
+    ORDER BY s."startedAt" DESC, s.id DESC LIMIT 1`);
   const comparisonSessions = running && !byId.has(running.id) ? [running, ...sessions] : sessions;
   return { coil, components, sessions, comparisonSessions, sweeps, topLoads, openFailures };
 }
