@@ -1,6 +1,7 @@
 /**
- * Transactions on the client's own driver adapter, for the session write (createSession; sessions.ts insertSession
- * writes the four statements below).
+ * Transactions on the client's own driver adapter: the session write (createSession; sessions.ts insertSession
+ * writes the four statements below) and the summary stores of a cold dashboard (coil-summary.ts storeCoilFigures and
+ * the missing-row insert), the two writes hot enough for the query API's per-call compilation to matter.
  *
  * Why not the query API: Prisma 6.19 compiles every call, `$executeRaw` included, into a plan on the main thread
  * (~0.3–0.5 ms each here; lib/db/raw-read.ts), and the write took ten of them for ~0.2 ms of statements
