@@ -65,6 +65,19 @@ describe("cacheStatements", () => {
     expect(cached.prepare(sql).bind(["A"]).all()).toEqual([{ coil: "A" }]);
   });
 
+  it("describes a kept statement's columns once, as a fresh statement describes them, whatever the call's arguments", () => {
+    const sql = `SELECT id, coil AS tag, volts * 2 AS doubled FROM "Reading" WHERE coil = ?`;
+    const first = cached.prepare(sql).bind(["A"]).columns();
+    const again = cached.prepare(sql).bind(["B"]).columns();
+    expect(again).toBe(first);
+    expect(first).toEqual(plain.prepare(sql).columns());
+    expect(first.map((c) => [c.name, c.type])).toEqual([
+      ["id", "INTEGER"],
+      ["tag", "TEXT"],
+      ["doubled", null],
+    ]);
+  });
+
   it("runs statements without arguments (the adapter's BEGIN) and keeps no more statements than its bound", () => {
     const small = openDatabase();
     const smallCounter = cacheStatements(small, 2);
