@@ -86,7 +86,16 @@ describe("raw page reads", () => {
 
   it("getCoilPageHistory: the coil, parts, sweeps and the health window exactly as the whole-logbook read gives them", async () => {
     const { coil } = await makeBusyCoil("RR-02");
+    // Two open failures besides the busy coil's closed one, one at the same instant as another (ties go by id).
+    for (const [id, mode] of [["rr02-open-b", "over_temperature"], ["rr02-open-a", "over_current"]] as const) {
+      await testDb.failure.create({ data: { id, coilId: coil.id, occurredAt: daysAgo(2), mode, symptoms: "Switch hot and shorted", status: "open" } });
+    }
     const [page, full] = await Promise.all([getCoilPageHistory(main, coil.id), getCoilHistory(main, coil.id)]);
+    expect(page!.openFailures.map((f) => [f.mode, f.occurredAt.getTime()])).toEqual([
+      ["over_current", daysAgo(2).getTime()],
+      ["over_temperature", daysAgo(2).getTime()],
+    ]);
+    expect(page!.openFailures).toEqual(full!.openFailures);
     expect(page!.coil).toEqual(full!.coil);
     expect(page!.components).toEqual(full!.components);
     expect(page!.topLoads).toEqual(full!.topLoads);

@@ -96,7 +96,7 @@ export async function getCoilPageHistory(scope: SiteScope, coilId: string, known
   const known = knownCoil && splitKnown(knownCoil);
   const site = scope.siteId;
   // Raw statements (lib/db/raw-read.ts says why): this is the coil page's main read.
-  const [coils, components, windowRows, sweeps, topLoads, openFailures] = await Promise.all([
+  const [coils, components, windowRows, sweeps, topLoads, openFailureRows] = await Promise.all([
     known ? [known.coil] : readRows<Coil>(Prisma.sql`SELECT * FROM "Coil" WHERE id = ${coilId} AND "siteId" = ${site}`),
     known
       ? [...known.components].sort((a, b) => a.installedAt.getTime() - b.installedAt.getTime() || compareIds(a, b))
@@ -120,11 +120,16 @@ export async function getCoilPageHistory(scope: SiteScope, coilId: string, known
       : readRows<TopLoad>(Prisma.sql`
           SELECT t.* FROM "TopLoad" t JOIN "Coil" ON "Coil".id = t."coilId" WHERE t."coilId" = ${coilId} AND "Coil"."siteId" = ${site}
           ORDER BY t."createdAt", t.id`),
-    // Usually none: the query API's cost is paid on an index probe that finds nothing.
-    prisma.failure.findMany({ where: openFailuresWhere(scope, coilId), select: openFailureSelect, orderBy: openFailureOrder }),
+    // Usually none, but through the query API even an index probe that finds nothing cost ~1 ms of plan compilation.
+    // A literal status: PostgreSQL compares its enum with a literal, not with a text parameter.
+    readRows<OpenFailureRow>(Prisma.sql`
+      SELECT f."coilId" AS "coilId", f."occurredAt" AS "occurredAt", f.mode AS mode FROM "Failure" f JOIN "Coil" ON "Coil".id = f."coilId"
+      WHERE f."coilId" = ${coilId} AND "Coil"."siteId" = ${site} AND f.status = 'open'
+      ORDER BY f."occurredAt", f.id`),
   ]);
   const coil = coils[0];
   if (!coil) return null;
+  const openFailures = openFailureRows.map(toOpenFailure);
   const byId = new Map(windowRows.map((row) => [row.id, toSessionRow(row)]));
   const sessions = [...byId.values()].sort((a, b) => a.startedAt.getTime() - b.startedAt.getTime() || compareIds(a, b));
   const topLoadId = findCurrentTopLoad(topLoads, sweeps, sessions)?.id ?? null;
@@ -172,6 +177,7 @@ export type CoilHealthHistory = CoilHistory & { totals: CoilSessionTotals };
 
 type RawSessionRow = Omit<SessionRow, "startedAt"> & { startedAt: Date | string };
 type OpenFailureRow = { coilId: string; occurredAt: Date | string; mode: Failure["mode"] };
+const toOpenFailure = (row: OpenFailureRow) => ({ coilId: row.coilId, occurredAt: rawDate(row.occurredAt), mode: row.mode });
 
 /** A session from a compound raw statement, whose startedAt may be the stored text on SQLite (lib/db/raw-read.ts). */
 function toSessionRow(row: RawSessionRow): SessionRow {
@@ -244,7 +250,7 @@ export async function getFleetHealthHistory(scope: SiteScope, coilIds?: readonly
   const c = group(components);
   const w = group(sweeps);
   const t = group(topLoads);
-  const f = group(openFailures.map((row) => ({ coilId: row.coilId, occurredAt: rawDate(row.occurredAt), mode: row.mode })));
+  const f = group(openFailures.map(toOpenFailure));
   const totalsByCoil = new Map(totals.map((row) => [row.coilId, row]));
   return coils.map((coil) => {
     const total = totalsByCoil.get(coil.id);
