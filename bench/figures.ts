@@ -47,6 +47,13 @@ const ROWS = {
     goal: 4,
     flag: "--write",
   },
+  emptyPageCpu: {
+    figure: "empty signed-in page, server CPU per request (8 in flight): the framework's part of any page",
+    unit: "ms",
+    floor: "trivial route, same load",
+    goal: null,
+    flag: "--load",
+  },
   dashboardCpu: {
     figure: "dashboard page, server CPU per request (8 in flight, demo club)",
     unit: "ms",

@@ -37,6 +37,8 @@ const BLOCKS = 5;
 // 100 a block: the server's CPU is counted in 10 ms ticks, so a block of the trivial route must take a good many of them.
 const PAGE_REQUESTS = Number(process.env.BENCH_PAGE_REQUESTS ?? 400);
 const FLOOR_PATH = "/api/bench-floor";
+/** The page floor: an empty page in the signed-in layout (app/(app)/bench-floor/page.tsx), under the same flag. */
+const PAGE_FLOOR_PATH = "/bench-floor";
 /** Page requests over which sign-in checks and token decodes are counted. */
 const AUTH_COUNT_REQUESTS = 40;
 /** A demo coil with sessions, sweeps, parts and a top load (prisma/demo). */
@@ -189,6 +191,33 @@ export async function alternateWithFloor(pairs: number, work: () => Promise<Bloc
   };
 }
 
+interface Series {
+  /** Server CPU ms per request, one per round. */
+  cpuMs: number[];
+  throughput: number;
+  p50: number;
+  statuses: Map<number, number>;
+}
+
+/** Several kinds of block, one of each per round in the listed order, for `rounds` rounds. */
+export async function alternateBlocks(rounds: number, kinds: (() => Promise<Block>)[]): Promise<Series[]> {
+  const blocks: Block[][] = kinds.map(() => []);
+  for (let round = 0; round < rounds; round++) for (const [i, kind] of kinds.entries()) blocks[i]!.push(await kind());
+  return blocks.map((series) => {
+    const statuses = new Map<number, number>();
+    for (const b of series) for (const [status, n] of b.statuses) statuses.set(status, (statuses.get(status) ?? 0) + n);
+    return {
+      cpuMs: series.map((b) => b.cpuMs),
+      throughput: series.reduce((n, b) => n + b.requests, 0) / series.reduce((sum, b) => sum + b.seconds, 0),
+      p50: quantile(series.flatMap((b) => b.latencies).sort((a, b) => a - b), 0.5),
+      statuses,
+    };
+  });
+}
+
+/** The median over rounds of one series' CPU against another's in the same round. */
+const roundRatio = (work: Series, floor: Series) => median(work.cpuMs.map((cpu, round) => cpu / floor.cpuMs[round]!));
+
 function sessionBody(i: number) {
   return {
     coilId: COIL_IDS[i % COIL_IDS.length],
@@ -251,13 +280,19 @@ export async function benchSessionLoad(): Promise<void> {
     recordFigure({ key: "postSessionsLatency", value: posts.p50, floor: posts.floorP50, note: `p99 ${posts.p99.toFixed(0)} ms` });
     if (serverErrors > 0 || found !== acknowledged.length) process.exitCode = 1;
 
+    // Every page block is measured beside two floors, all in one alternation (trivial route, empty page, dashboard,
+    // coil page, round after round): the trivial route issue 13 names, and an empty signed-in page (app/(app)/bench-floor)
+    // that pays what Next and React spend on any page, so a page's own part shows apart from the framework's.
     const pageRounds = 4;
+    const perBlock = PAGE_REQUESTS / pageRounds;
+    const pages = [
+      { key: "emptyPageCpu", name: "empty signed-in page", pagePath: PAGE_FLOOR_PATH },
+      { key: "dashboardCpu", name: "dashboard", pagePath: "/" },
+      { key: "coilPageCpu", name: `coil page ${PAGE_COIL}`, pagePath: `/coils/${PAGE_COIL}` },
+    ] as const;
+    const pageBlock = (pagePath: string) => () => runBlock(perBlock, groups, (i) => fetch(`${base(i)}${pagePath}`, { headers: { cookie }, redirect: "manual" }));
     const authCounts: { name: string; checksPerRequest: number; decodesPerRequest: number }[] = [];
-    for (const [key, name, pagePath] of [
-      ["dashboardCpu", "dashboard", "/"],
-      ["coilPageCpu", `coil page ${PAGE_COIL}`, `/coils/${PAGE_COIL}`],
-    ] as const) {
-      const pageBlock = () => runBlock(PAGE_REQUESTS / pageRounds, groups, (i) => fetch(`${base(i)}${pagePath}`, { headers: { cookie }, redirect: "manual" }));
+    for (const { name, pagePath } of pages.slice(1)) {
       // Sign-in checks and token decodes per page request, counted by the server over a block of its own.
       const countsBefore = await readAuthCounts();
       await runBlock(AUTH_COUNT_REQUESTS, groups, (i) => fetch(`${base(i)}${pagePath}`, { headers: { cookie }, redirect: "manual" }));
@@ -267,12 +302,19 @@ export async function benchSessionLoad(): Promise<void> {
         const decodesPerRequest = (countsAfter.tokenDecodes - countsBefore.tokenDecodes) / AUTH_COUNT_REQUESTS;
         authCounts.push({ name, checksPerRequest, decodesPerRequest });
       }
-      const page = await alternateWithFloor(pageRounds, pageBlock, floorBlock(PAGE_REQUESTS / pageRounds));
+    }
+    const measured = await alternateBlocks(pageRounds, [floorBlock(perBlock), ...pages.map(({ pagePath }) => pageBlock(pagePath))]);
+    const [floor, emptyPage] = measured;
+    for (const [index, { key, name, pagePath }] of pages.entries()) {
+      const page = measured[index + 1]!;
       const notOk = [...page.statuses].filter(([status]) => status !== 200).reduce((n, [, count]) => n + count, 0);
+      const ratio = roundRatio(page, floor!);
+      const againstEmpty = key === "emptyPageCpu" ? "" : `; empty signed-in page ${median(emptyPage!.cpuMs).toFixed(2)} ms   ×${roundRatio(page, emptyPage!).toFixed(1)}`;
       console.log(
-        `  ${name} (GET ${pagePath}, ${PAGE_REQUESTS} requests, ${IN_FLIGHT} in flight): ${page.throughput.toFixed(0)} req/s, p50 ${page.p50.toFixed(1)} ms, server CPU ${page.cpuMs.toFixed(2)} ms/request; trivial route ${page.floorCpuMs.toFixed(2)} ms   ×${page.cpuRatio.toFixed(1)}${notOk ? `   ${notOk} answers not 200: ${JSON.stringify(Object.fromEntries(page.statuses))}` : ""}`,
+        `  ${name} (GET ${pagePath}, ${PAGE_REQUESTS} requests, ${IN_FLIGHT} in flight): ${page.throughput.toFixed(0)} req/s, p50 ${page.p50.toFixed(1)} ms, server CPU ${median(page.cpuMs).toFixed(2)} ms/request; trivial route ${median(floor!.cpuMs).toFixed(2)} ms   ×${ratio.toFixed(1)}${againstEmpty}${notOk ? `   ${notOk} answers not 200: ${JSON.stringify(Object.fromEntries(page.statuses))}` : ""}`,
       );
-      recordFigure({ key, value: page.cpuMs, floor: page.floorCpuMs, ratio: page.cpuRatio, note: `${page.throughput.toFixed(0)} req/s vs ${page.floorThroughput.toFixed(0)}` });
+      const note = key === "emptyPageCpu" ? "the framework's part of every page" : `×${roundRatio(page, emptyPage!).toFixed(1)} the empty signed-in page`;
+      recordFigure({ key, value: median(page.cpuMs), floor: median(floor!.cpuMs), ratio, note: `${note}; ${page.throughput.toFixed(0)} req/s` });
       if (notOk) process.exitCode = 1;
     }
     for (const counted of authCounts) console.log(`  ${counted.name}: ${counted.checksPerRequest} sign-in checks and ${counted.decodesPerRequest} token decodes per request (${AUTH_COUNT_REQUESTS} requests; the proxy's decode included)`);

@@ -124,3 +124,14 @@ test.describe("cross-site requests to the JSON routes", () => {
     expect(status).toBe(422);
   });
 });
+
+test.describe("the benchmark's floors", () => {
+  test("answer not found, to a signed-in admin too, on a server the benchmark did not start", async ({ page }) => {
+    await signInAs(page, "admin");
+    expect((await page.request.get("/api/bench-floor")).status()).toBe(404);
+    expect((await page.request.get("/api/bench-floor?authCounts")).status()).toBe(404);
+    const pageFloor = await page.goto("/bench-floor");
+    expect(pageFloor!.status()).toBe(404);
+    await expect(page.getByRole("heading", { level: 1 })).toHaveText("Not found");
+  });
+});

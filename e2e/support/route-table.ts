@@ -89,6 +89,8 @@ export const ROUTE_TABLE: AuditRoute[] = [
   { name: "admin: policy", file: "app/(app)/admin/policy/page.tsx", role: "admin", path: "/admin/policy" },
   { name: "admin: sites", file: "app/(app)/admin/sites/page.tsx", role: "organiser", path: "/admin/sites" },
   { name: "district", file: "app/(app)/district/page.tsx", role: "organiser", path: "/district" },
+  // Served only to the benchmark (COILYARD_BENCH_FLOOR=1); everywhere else, this test server included, the not-found page.
+  { name: "benchmark page floor", file: "app/(app)/bench-floor/page.tsx", role: "member", path: "/bench-floor" },
 ];
 
 /** The page.tsx files under app/ that the table does not list (should be none). */

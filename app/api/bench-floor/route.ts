@@ -1,5 +1,5 @@
 /**
- * GET /api/bench-floor: the benchmark's floor for one request (bench/http-load.ts): Next's routing and a small JSON
+ * GET /api/bench-floor: the benchmark's floor for one request (bench/session-load.ts): Next's routing and a small JSON
  * answer, with no sign-in check, no database and no rendering, measured under the same load as the routes and pages
  * it is compared with. It answers 404 unless the server process was started with COILYARD_BENCH_FLOOR=1, which only
  * the benchmark does, so a deployment exposes nothing here; it reads no data and writes none either way.
