@@ -215,6 +215,11 @@ export async function alternateBlocks(rounds: number, kinds: (() => Promise<Bloc
   });
 }
 
+/** Elements in a page's HTML (its inline payload escapes "<", so only real tags count). */
+export function countElements(html: string): number {
+  return html.match(/<[a-zA-Z]/g)?.length ?? 0;
+}
+
 /** The median over rounds of one series' CPU against another's in the same round. */
 const roundRatio = (work: Series, floor: Series) => median(work.cpuMs.map((cpu, round) => cpu / floor.cpuMs[round]!));
 
@@ -285,14 +290,22 @@ export async function benchSessionLoad(): Promise<void> {
     // that pays what Next and React spend on any page, so a page's own part shows apart from the framework's.
     const pageRounds = 4;
     const perBlock = PAGE_REQUESTS / pageRounds;
+    // The third floor: the empty page with as many plain elements as the dashboard's markup has (counted now, so it
+    // follows the dashboard as it changes): what rendering a page of that size costs, whatever it shows.
+    const elementCount = async (pagePath: string) => countElements(await (await fetch(`${BASE}${pagePath}`, { headers: { cookie } })).text());
+    const dashboardElements = await elementCount("/");
+    const coilPageElements = await elementCount(`/coils/${PAGE_COIL}`);
+    const emptyPageElements = await elementCount(PAGE_FLOOR_PATH);
+    console.log(`  page sizes: dashboard ${dashboardElements} elements, coil page ${PAGE_COIL} ${coilPageElements}, empty signed-in page ${emptyPageElements} (the layout's)`);
     const pages = [
       { key: "emptyPageCpu", name: "empty signed-in page", pagePath: PAGE_FLOOR_PATH },
+      { key: "plainPageCpu", name: `signed-in page of ${dashboardElements} plain elements`, pagePath: `${PAGE_FLOOR_PATH}?elements=${dashboardElements - emptyPageElements}` },
       { key: "dashboardCpu", name: "dashboard", pagePath: "/" },
       { key: "coilPageCpu", name: `coil page ${PAGE_COIL}`, pagePath: `/coils/${PAGE_COIL}` },
     ] as const;
     const pageBlock = (pagePath: string) => () => runBlock(perBlock, groups, (i) => fetch(`${base(i)}${pagePath}`, { headers: { cookie }, redirect: "manual" }));
     const authCounts: { name: string; checksPerRequest: number; decodesPerRequest: number }[] = [];
-    for (const { name, pagePath } of pages.slice(1)) {
+    for (const { name, pagePath } of pages.slice(2)) {
       // Sign-in checks and token decodes per page request, counted by the server over a block of its own.
       const countsBefore = await readAuthCounts();
       await runBlock(AUTH_COUNT_REQUESTS, groups, (i) => fetch(`${base(i)}${pagePath}`, { headers: { cookie }, redirect: "manual" }));
@@ -304,16 +317,23 @@ export async function benchSessionLoad(): Promise<void> {
       }
     }
     const measured = await alternateBlocks(pageRounds, [floorBlock(perBlock), ...pages.map(({ pagePath }) => pageBlock(pagePath))]);
-    const [floor, emptyPage] = measured;
+    const [floor, emptyPage, plainPage] = measured;
     for (const [index, { key, name, pagePath }] of pages.entries()) {
       const page = measured[index + 1]!;
       const notOk = [...page.statuses].filter(([status]) => status !== 200).reduce((n, [, count]) => n + count, 0);
       const ratio = roundRatio(page, floor!);
+      const isPage = key === "dashboardCpu" || key === "coilPageCpu";
       const againstEmpty = key === "emptyPageCpu" ? "" : `; empty signed-in page ${median(emptyPage!.cpuMs).toFixed(2)} ms   ×${roundRatio(page, emptyPage!).toFixed(1)}`;
+      const againstPlain = isPage ? `; ${dashboardElements} plain elements ${median(plainPage!.cpuMs).toFixed(2)} ms   ×${roundRatio(page, plainPage!).toFixed(1)}` : "";
       console.log(
-        `  ${name} (GET ${pagePath}, ${PAGE_REQUESTS} requests, ${IN_FLIGHT} in flight): ${page.throughput.toFixed(0)} req/s, p50 ${page.p50.toFixed(1)} ms, server CPU ${median(page.cpuMs).toFixed(2)} ms/request; trivial route ${median(floor!.cpuMs).toFixed(2)} ms   ×${ratio.toFixed(1)}${againstEmpty}${notOk ? `   ${notOk} answers not 200: ${JSON.stringify(Object.fromEntries(page.statuses))}` : ""}`,
+        `  ${name} (GET ${pagePath}, ${PAGE_REQUESTS} requests, ${IN_FLIGHT} in flight): ${page.throughput.toFixed(0)} req/s, p50 ${page.p50.toFixed(1)} ms, server CPU ${median(page.cpuMs).toFixed(2)} ms/request; trivial route ${median(floor!.cpuMs).toFixed(2)} ms   ×${ratio.toFixed(1)}${againstEmpty}${againstPlain}${notOk ? `   ${notOk} answers not 200: ${JSON.stringify(Object.fromEntries(page.statuses))}` : ""}`,
       );
-      const note = key === "emptyPageCpu" ? "the framework's part of every page" : `×${roundRatio(page, emptyPage!).toFixed(1)} the empty signed-in page`;
+      const note =
+        key === "emptyPageCpu"
+          ? "what any signed-in page costs"
+          : key === "plainPageCpu"
+            ? `×${roundRatio(page, emptyPage!).toFixed(1)} the empty page: rendering a page of the dashboard's size`
+            : `×${roundRatio(page, emptyPage!).toFixed(1)} the empty signed-in page, ×${roundRatio(page, plainPage!).toFixed(1)} a page of ${dashboardElements} plain elements`;
       recordFigure({ key, value: median(page.cpuMs), floor: median(floor!.cpuMs), ratio, note: `${note}; ${page.throughput.toFixed(0)} req/s` });
       if (notOk) process.exitCode = 1;
     }
