@@ -7,9 +7,11 @@ import { assessCoilHealth, type CoilHealth, type OpenFailure } from "../calc/coi
 import type { CoilSession, CoilSweep } from "../calc/coil-logbook";
 import { findCurrentTopLoadId } from "./current-top-load";
 import { CalcInputError } from "../calc/errors";
-import { analyzeRunSession, type SessionAnalysis } from "./session-analysis";
-import { isFittedAt, partsFittedAt, type FittedParts } from "./fitted-parts";
-import type { ClearancePolicyRules } from "../calc/clearance-policy";
+import { analyzeRunSession, analyzeRunSessionHeadrooms, sessionRigOf, type SessionAnalysis, type SessionPolicy, type SessionRig } from "./session-analysis";
+import { isFittedAt, partsFittedAt } from "./fitted-parts";
+import { marginThresholdsOf, type ClearancePolicyRules } from "../calc/clearance-policy";
+import type { SessionHeadrooms } from "../calc/session-headrooms";
+import type { SessionMargins } from "../calc/session-margins";
 import { selectHealthWindow } from "./health-window";
 import type { StoredSinkFit } from "./session-fit";
 import type { CoilRecord, ComponentRecord, SessionRecord, SweepRecord } from "./records";
@@ -22,6 +24,24 @@ export interface AnalyzedSession {
 /** A session as the health path reads it: the row with its stored warm-up fit (no samples). */
 export type StoredSessionRecord = SessionRecord & Partial<StoredSinkFit>;
 
+/**
+ * The rig (parts fitted and what the margins read of them) of a session started at a given instant. Sessions run with
+ * the same parts share one answer (the same for every session between two part changes); the set fitted is a bit per
+ * part, so up to 30 parts are keyed, more are worked out session by session.
+ */
+function rigsOf(components: readonly ComponentRecord[], policy: SessionPolicy): (startedAt: Date) => SessionRig {
+  const keyed = components.length <= 30;
+  const rigBySet = new Map<number, SessionRig>();
+  return (startedAt) => {
+    if (!keyed) return sessionRigOf(partsFittedAt(components, startedAt), policy);
+    let set = 0;
+    for (let i = 0; i < components.length; i++) if (isFittedAt(components[i]!, startedAt)) set |= 1 << i;
+    let rig = rigBySet.get(set);
+    if (rig === undefined) rigBySet.set(set, (rig = sessionRigOf(partsFittedAt(components, startedAt), policy)));
+    return rig;
+  };
+}
+
 /** Margins for every session, judged by `policy`, from each session's stored warm-up fit. */
 export function analyzeSessions(
   coil: CoilRecord,
@@ -29,31 +49,31 @@ export function analyzeSessions(
   components: readonly ComponentRecord[],
   policy: ClearancePolicyRules,
 ): AnalyzedSession[] {
-  // Sessions run with the same parts share one partsFittedAt answer (the same for every session between two part
-  // changes); the set fitted is a bit per part, so up to 30 parts are keyed, more are worked out session by session.
-  const keyed = components.length <= 30;
-  const partsBySet = new Map<number, FittedParts>();
+  const rigAt = rigsOf(components, policy);
   return sessions.map((session) => {
-    let parts: FittedParts | undefined;
-    if (keyed) {
-      let set = 0;
-      for (let i = 0; i < components.length; i++) if (isFittedAt(components[i]!, session.startedAt)) set |= 1 << i;
-      parts = partsBySet.get(set);
-      if (parts === undefined) partsBySet.set(set, (parts = partsFittedAt(components, session.startedAt)));
-    }
-    return { session, analysis: analyzeRunSession(coil, session, components, null, { policy, parts }) };
+    const rig = rigAt(session.startedAt);
+    return { session, analysis: analyzeRunSession(coil, session, components, null, { policy, parts: rig.parts, rig }) };
   });
 }
 
+/** A session's three headrooms, as its full margins give them. */
+export function headroomsOf(margins: SessionMargins): SessionHeadrooms {
+  return { voltage: margins.voltage.headroom, current: margins.current.headroom, thermal: margins.thermal.headroom };
+}
+
 export function toCoilSession({ session, analysis }: AnalyzedSession): CoilSession {
+  return toCoilSessionOf(session, headroomsOf(analysis.margins));
+}
+
+function toCoilSessionOf(session: SessionRecord, headrooms: SessionHeadrooms): CoilSession {
   return {
     startedAt: session.startedAt,
     supplyVoltageV: session.supplyVoltageV,
     supplyCurrentA: session.supplyCurrentA,
     runningFrequencyHz: session.runningFrequencyHz,
-    voltageHeadroom: analysis.margins.voltage.headroom,
-    currentHeadroom: analysis.margins.current.headroom,
-    thermalHeadroom: analysis.margins.thermal.headroom,
+    voltageHeadroom: headrooms.voltage,
+    currentHeadroom: headrooms.current,
+    thermalHeadroom: headrooms.thermal,
     heatSinkRiseK: session.heatSinkEndC === null ? null : session.heatSinkEndC - session.ambientTempC,
     durationS: session.durationS,
   };
@@ -75,13 +95,32 @@ export function assessCoil(
   policy: ClearancePolicyRules,
   openFailures: readonly OpenFailure[] = [],
 ): CoilHealth {
-  const currentTopLoad = findCurrentTopLoadId(sweeps, analyzed.map((a) => a.session));
-  const sessions = analyzed.map((a) => {
-    const row = toCoilSession(a);
-    return (a.session.topLoadId ?? null) === currentTopLoad ? row : { ...row, runningFrequencyHz: null };
+  return assessSessions(
+    analyzed.map((a) => a.session),
+    analyzed.map((a) => headroomsOf(a.analysis.margins)),
+    sweeps,
+    now,
+    policy,
+    openFailures,
+  );
+}
+
+/** assessCoil on the sessions and their headrooms (index for index): all the health assessment reads of a margin. */
+function assessSessions(
+  sessions: readonly SessionRecord[],
+  headrooms: readonly SessionHeadrooms[],
+  sweeps: readonly SweepRecord[],
+  now: Date,
+  policy: ClearancePolicyRules,
+  openFailures: readonly OpenFailure[],
+): CoilHealth {
+  const currentTopLoad = findCurrentTopLoadId(sweeps, sessions);
+  const rows = sessions.map((session, i) => {
+    const row = toCoilSessionOf(session, headrooms[i]!);
+    return (session.topLoadId ?? null) === currentTopLoad ? row : { ...row, runningFrequencyHz: null };
   });
   return assessCoilHealth({
-    sessions,
+    sessions: rows,
     sweeps: toCoilSweeps(sweeps.filter((s) => (s.topLoadId ?? null) === currentTopLoad)),
     now,
     thresholds: { voltageHeadroom: policy.minVoltageHeadroom, currentHeadroom: policy.minCurrentHeadroom, thermalHeadroom: policy.minThermalHeadroom },
@@ -118,5 +157,48 @@ export function judgeCoil(history: CoilJudgementHistory, policy: ClearancePolicy
   } catch (error) {
     if (!(error instanceof CalcInputError)) throw error;
     return { health: null, reasons: [`The logbook could not be assessed: ${error.message}.`], analyzed: [], latest: null };
+  }
+}
+
+/** What the dashboard's stored summary needs of the one judgement (judgeCoilFigures). */
+export interface CoilFiguresJudgement {
+  /** Null when the logbook could not be assessed; `reasons` then says why. */
+  health: CoilHealth | null;
+  reasons: string[];
+  /** The headrooms of the sessions judged (the health window), oldest first. */
+  headrooms: SessionHeadrooms[];
+  /** The latest session, analysed in full: the margins every list shows for the coil. */
+  latest: AnalyzedSession | null;
+}
+
+/**
+ * judgeCoil's health, reasons, latest margins and window headrooms, with the window's older sessions analysed for
+ * their headrooms only (analyzeRunSessionHeadrooms: no warm-up, notes or sentences, which were about half the cold
+ * dashboard's judgement beyond its floor; only the latest session's margins are shown and stored). The health is
+ * assessed from the same numbers as judgeCoil's, so every figure is the same. When anything cannot be analysed the
+ * whole coil is judged again by judgeCoil, whose reason names the first session it could not analyse in its own
+ * words. coil-health-input.test.ts checks the two against each other on generated logbooks.
+ */
+export function judgeCoilFigures(history: CoilJudgementHistory, policy: ClearancePolicyRules, now: Date): CoilFiguresJudgement {
+  try {
+    const window = selectHealthWindow(history.sessions);
+    const rigAt = rigsOf(history.components, policy);
+    const marginOptions = { thresholds: marginThresholdsOf(policy) };
+    const headrooms: SessionHeadrooms[] = [];
+    const last = window.length - 1;
+    for (let i = 0; i < last; i++) headrooms.push(analyzeRunSessionHeadrooms(history.coil, window[i]!, rigAt(window[i]!.startedAt), marginOptions));
+    let latest: AnalyzedSession | null = null;
+    if (last >= 0) {
+      const session = window[last]!;
+      const rig = rigAt(session.startedAt);
+      latest = { session, analysis: analyzeRunSession(history.coil, session, history.components, null, { policy, parts: rig.parts, rig }) };
+      headrooms.push(headroomsOf(latest.analysis.margins));
+    }
+    const health = assessSessions(window, headrooms, history.sweeps, now, policy, history.openFailures);
+    return { health, reasons: health.reasons, headrooms, latest };
+  } catch (error) {
+    if (!(error instanceof CalcInputError)) throw error;
+    const judged = judgeCoil(history, policy, now);
+    return { health: judged.health, reasons: judged.reasons, headrooms: judged.analyzed.map((a) => headroomsOf(a.analysis.margins)), latest: judged.latest };
   }
 }

@@ -5,7 +5,8 @@
  */
 import type { ClearancePolicyRules } from "../calc/clearance-policy";
 import type { MarginKind } from "../calc/margin";
-import type { AnalyzedSession } from "./coil-health-input";
+import { headroomsOf, type AnalyzedSession } from "./coil-health-input";
+import type { SessionHeadrooms } from "../calc/session-headrooms";
 
 /** How many sessions a trend picture shows: enough to see a drift, few enough to read at 100 px wide. */
 export const HEADROOM_TREND_SESSIONS = 12;
@@ -20,8 +21,17 @@ export interface HeadroomSeries {
 export type HeadroomTrend = Record<MarginKind, HeadroomSeries>;
 
 export function collectHeadroomTrend(analyzed: readonly AnalyzedSession[], policy: ClearancePolicyRules, sessions = HEADROOM_TREND_SESSIONS): HeadroomTrend {
-  const recent = analyzed.slice(-sessions);
-  const series = (kind: MarginKind, threshold: number): HeadroomSeries => ({ headrooms: recent.map((a) => a.analysis.margins[kind].headroom), threshold });
+  return collectHeadroomTrendOf(
+    analyzed.slice(-sessions).map((a) => headroomsOf(a.analysis.margins)),
+    policy,
+    sessions,
+  );
+}
+
+/** The same from the sessions' headrooms alone, oldest first (judgeCoilFigures' `headrooms`). */
+export function collectHeadroomTrendOf(headrooms: readonly SessionHeadrooms[], policy: ClearancePolicyRules, sessions = HEADROOM_TREND_SESSIONS): HeadroomTrend {
+  const recent = headrooms.slice(-sessions);
+  const series = (kind: MarginKind, threshold: number): HeadroomSeries => ({ headrooms: recent.map((h) => h[kind]), threshold });
   return {
     voltage: series("voltage", policy.minVoltageHeadroom),
     current: series("current", policy.minCurrentHeadroom),

@@ -41,14 +41,23 @@ export interface SinkProjection {
  * sink's steady state T = Ta + V·I·Rθsa (thermal chain, docs/references.md). Pessimistic by construction.
  */
 export function worstCaseSinkProjection(args: { ambientTempC: number; supplyVoltageV: number; supplyCurrentA: number; sinkToAmbientKPerW: number; reason: string }): SinkProjection {
-  const ambient = requireFinite("ambientTempC", args.ambientTempC);
-  const bound = requirePositive("supplyVoltageV", args.supplyVoltageV) * requireNonNegative("supplyCurrentA", args.supplyCurrentA);
-  const sinkC = ambient + bound * requirePositive("sinkToAmbientKPerW", args.sinkToAmbientKPerW);
+  const { sinkC, boundW } = worstCaseSink(args);
   return {
     basis: "worst-case",
     sinkC,
-    source: `WORST CASE (${args.reason}): all ${Number(bound.toFixed(1))} W drawn from the supply taken as heat in the sink, T_ambient + V·I·Rθsa`,
+    source: `WORST CASE (${args.reason}): all ${Number(boundW.toFixed(1))} W drawn from the supply taken as heat in the sink, T_ambient + V·I·Rθsa`,
   };
+}
+
+/**
+ * The same worst case as numbers only (the sink temperature, °C, and the V·I bound, W), for the headroom-only path
+ * (session-headrooms.ts), which must not build the sentence for every older session of a health window.
+ */
+// T = Ta + V·I·Rθsa (energy conservation and the thermal chain, docs/references.md; as worstCaseSinkProjection).
+export function worstCaseSink(args: { ambientTempC: number; supplyVoltageV: number; supplyCurrentA: number; sinkToAmbientKPerW: number }): { sinkC: number; boundW: number } {
+  const ambient = requireFinite("ambientTempC", args.ambientTempC);
+  const boundW = requirePositive("supplyVoltageV", args.supplyVoltageV) * requireNonNegative("supplyCurrentA", args.supplyCurrentA);
+  return { sinkC: ambient + boundW * requirePositive("sinkToAmbientKPerW", args.sinkToAmbientKPerW), boundW };
 }
 
 /** Heat flowing through a heat sink (W) inferred from its rise over ambient, assuming it reached steady state. */

@@ -22,11 +22,11 @@ import { inAdapterTransaction } from "./session-write";
 import { Prisma, type CoilSummary } from "./generated/client";
 import { getFleetHealthHistory, type CoilHealthHistory } from "./coil-history";
 import type { PolicyVersion } from "./policy";
-import { judgeCoil } from "../analysis/coil-health-input";
+import { judgeCoilFigures } from "../analysis/coil-health-input";
 import { computeHealthValidUntil } from "../analysis/health-validity";
 import type { HealthStatus } from "../calc/coil-health";
 import { briefSessionMargins, type SessionMarginsBrief } from "../analysis/margin-brief";
-import { collectHeadroomTrend, type HeadroomTrend } from "../analysis/headroom-trend";
+import { collectHeadroomTrendOf, type HeadroomTrend } from "../analysis/headroom-trend";
 import type { SiteScope } from "./site-scope";
 
 /**
@@ -63,12 +63,14 @@ const HEALTH_STATUSES: readonly string[] = ["fine", "watch", "hold", "not enough
 
 /** The coil's figures from its health window (lib/analysis), judged at `now` under `policy`. */
 export function computeCoilFigures({ coil, components, sessions, sweeps, openFailures, totals }: CoilHealthHistory, policy: PolicyVersion, now: Date): CoilFigures {
-  const judged = judgeCoil({ coil, components, sessions, sweeps, openFailures }, policy.rules, now);
+  // judgeCoilFigures: judgeCoil's figures with the window's older sessions analysed for their headrooms only (the
+  // summary stores the latest session's margins and the recent headrooms, never the older sessions' notes).
+  const judged = judgeCoilFigures({ coil, components, sessions, sweeps, openFailures }, policy.rules, now);
   return {
     health: judged.health?.status ?? "not enough data",
     reasons: judged.reasons,
     latestMargins: judged.latest ? briefSessionMargins(judged.latest.analysis.margins) : null,
-    headroomTrend: collectHeadroomTrend(judged.analyzed, policy.rules),
+    headroomTrend: collectHeadroomTrendOf(judged.headrooms, policy.rules),
     sessionCount: totals.sessionCount,
     totalRunS: totals.totalDurationS,
     lastSessionAt: totals.lastSessionAt,
