@@ -3,7 +3,7 @@
  * one of its limits, with every input that went into the figure and whether it was measured or
  * estimated, so a steward can see why a number is what it is.
  */
-import { CalcInputError, requireFinite, requireInRange } from "./errors";
+import { CalcInputError, requireFinite, requireInRange, requireNonNegative, requirePositive } from "./errors";
 
 export type MarginKind = "voltage" | "current" | "thermal";
 
@@ -121,4 +121,16 @@ export function reportUnknownMargin(args: { kind: MarginKind; formula: string; i
 export function requireFiniteOrAbsent(field: string, value: number | null | undefined): number | undefined {
   if (value === null || value === undefined) return undefined;
   return requireFinite(field, value);
+}
+
+/** An optional recorded number that must be ≥ 0 when present (the margins and their headroom-only path share it). */
+export function optionalNonNegative(field: string, value: number | null | undefined): number | undefined {
+  const v = requireFiniteOrAbsent(field, value);
+  return v === undefined ? undefined : requireNonNegative(field, v);
+}
+
+/** An optional recorded number that must be > 0 when present. */
+export function optionalPositive(field: string, value: number | null | undefined): number | undefined {
+  const v = requireFiniteOrAbsent(field, value);
+  return v === undefined ? undefined : requirePositive(field, v);
 }

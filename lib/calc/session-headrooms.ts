@@ -12,8 +12,8 @@
  */
 import { deratedContinuousCurrent, estimateSwitchCurrents } from "./current-margin";
 import { deratedPower, junctionTemperature, junctionToCaseFromRating } from "./derating";
-import { CalcInputError, requireFinite, requireInRange, requireNonNegative, requirePositive } from "./errors";
-import { DEFAULT_MARGIN_THRESHOLDS, classifyHeadroom, requireFiniteOrAbsent, type MarginThresholds } from "./margin";
+import { CalcInputError, requireFinite, requireInRange, requirePositive } from "./errors";
+import { DEFAULT_MARGIN_THRESHOLDS, classifyHeadroom, optionalNonNegative, optionalPositive, requireFiniteOrAbsent, type MarginThresholds } from "./margin";
 import type { SessionForMargins, SessionMarginOptions, SwitchRatings, ThermalPath } from "./session-margins";
 import { TYPICAL_CASE_TO_SINK_K_PER_W, inferSinkDissipation, type SinkProjection } from "./thermal-margin";
 import { estimatePeakSwitchVoltage } from "./voltage-margin";
@@ -61,16 +61,6 @@ function tightestHeadroom(field: string, values: readonly number[], limits: read
   let best = 0;
   for (let i = 1; i < values.length; i++) if (values[i]! / limits[i]! > values[best]! / limits[best]!) best = i;
   return computedHeadroom(field, values[best]!, limits[best]!, thinBelow);
-}
-
-function optionalNonNegative(field: string, value: number | null | undefined): number | undefined {
-  const v = requireFiniteOrAbsent(field, value);
-  return v === undefined ? undefined : requireNonNegative(field, v);
-}
-
-function optionalPositive(field: string, value: number | null | undefined): number | undefined {
-  const v = requireFiniteOrAbsent(field, value);
-  return v === undefined ? undefined : requirePositive(field, v);
 }
 
 /** assessThermalMargin's numbers (thermal-margin.ts), and the case temperature the current margin derates by. */

@@ -5,7 +5,7 @@
  */
 import { deratedPower, junctionTemperature, junctionToCaseFromRating } from "./derating";
 import { CalcInputError, requireFinite, requireInRange, requireNonNegative, requirePositive } from "./errors";
-import { DEFAULT_MARGIN_THRESHOLDS, assessMargin, reportUnknownMargin, requireFiniteOrAbsent, type Margin, type MarginInput } from "./margin";
+import { DEFAULT_MARGIN_THRESHOLDS, assessMargin, reportUnknownMargin, optionalNonNegative, optionalPositive, requireFiniteOrAbsent, type Margin, type MarginInput } from "./margin";
 
 /**
  * Case-to-sink resistance assumed when none is recorded: between a greased TO-247 (about 0.24 K/W,
@@ -229,16 +229,6 @@ export function assessThermalMargin(args: ThermalMarginArgs): Margin {
   }
   const tightest = candidates.reduce((a, b) => (b.value / b.limit > a.value / a.limit ? b : a));
   return assessMargin({ kind: "thermal", ...tightest, inputs, notes: [...notes, ...missing], thinBelow });
-}
-
-function optionalNonNegative(field: string, value: number | null | undefined): number | undefined {
-  const v = requireFiniteOrAbsent(field, value);
-  return v === undefined ? undefined : requireNonNegative(field, v);
-}
-
-function optionalPositive(field: string, value: number | null | undefined): number | undefined {
-  const v = requireFiniteOrAbsent(field, value);
-  return v === undefined ? undefined : requirePositive(field, v);
 }
 
 function celsius(t: number): string {
