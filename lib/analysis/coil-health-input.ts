@@ -177,7 +177,7 @@ export interface CoilFiguresJudgement {
  * dashboard's judgement beyond its floor; only the latest session's margins are shown and stored). The health is
  * assessed from the same numbers as judgeCoil's, so every figure is the same. When anything cannot be analysed the
  * whole coil is judged again by judgeCoil, whose reason names the first session it could not analyse in its own
- * words. coil-health-input.test.ts checks the two against each other on generated logbooks.
+ * words. test/coil-figures-headrooms.test.ts checks the two against each other on generated logbooks.
  */
 export function judgeCoilFigures(history: CoilJudgementHistory, policy: ClearancePolicyRules, now: Date): CoilFiguresJudgement {
   try {

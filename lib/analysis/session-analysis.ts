@@ -164,7 +164,7 @@ export function analyzeRunSession(
  * The same session's three headrooms only (lib/calc/session-headrooms.ts): no warm-up, no notes, no sentences. What a
  * health window's older sessions need (their headrooms feed the trends; only the latest one's margins are shown).
  * Equal to analyzeRunSession(…).margins' headrooms, double for double, and throws a CalcInputError wherever it would
- * (lib/analysis/coil-health-input.test.ts). The warm-up it leaves out never moves a margin: analyzeRunSession keeps
+ * (test/coil-figures-headrooms.test.ts). The warm-up it leaves out never moves a margin: analyzeRunSession keeps
  * it apart and turns its CalcInputErrors into a note.
  */
 export function analyzeRunSessionHeadrooms(
