@@ -1,6 +1,7 @@
 /**
  * The cold dashboard judges each coil with judgeCoilFigures, which analyses a health window's older sessions for their
- * headrooms only (lib/analysis/session-analysis.ts analyzeRunSessionHeadrooms). These properties hold it to the full
+ * headrooms only (lib/analysis/session-analysis.ts analyzeRunSessionHeadrooms) and assesses their health as a verdict
+ * (lib/calc/coil-health.ts assessCoilVerdict: trends fitted only where they can raise a finding). These properties hold it to the full
  * judgement (judgeCoil, every session analysed in full, as the coil page does) on generated logbooks: the same health,
  * reasons and latest margins, the same headrooms double for double, and so the same figures and the same stored
  * summary columns as computeCoilFigures made from judgeCoil before this path existed.
@@ -11,6 +12,7 @@ import { headroomsOf, judgeCoil, judgeCoilFigures } from "@/lib/analysis/coil-he
 import { collectHeadroomTrend } from "@/lib/analysis/headroom-trend";
 import { briefSessionMargins } from "@/lib/analysis/margin-brief";
 import { computeHealthValidUntil } from "@/lib/analysis/health-validity";
+import { toCoilVerdict } from "@/lib/calc/coil-health";
 import { HEALTH_WINDOW } from "@/lib/analysis/health-window";
 import { computeCoilFigures, type CoilFigures } from "@/lib/db/coil-summary";
 import type { PolicyVersion } from "@/lib/db/policy";
@@ -56,7 +58,7 @@ describe("judgeCoilFigures (headrooms only for a window's older sessions)", () =
       fc.property(coilHistoryArbitrary, (g) => {
         const full = judgeCoil(g.history, g.policy, g.now);
         const fast = judgeCoilFigures(g.history, g.policy, g.now);
-        expect(fast.health).toStrictEqual(full.health);
+        expect(fast.health).toStrictEqual(full.health && toCoilVerdict(full.health));
         expect(fast.reasons).toStrictEqual(full.reasons);
         expect(fast.latest).toStrictEqual(full.latest);
         const fullHeadrooms = full.analyzed.map((a) => headroomsOf(a.analysis.margins));

@@ -3,7 +3,7 @@
  * judgement: the dashboard's stored summary (lib/db/coil-summary.ts), the coil page, the trends page and the
  * benchmark all call it with (history, policy, now), so they cannot disagree.
  */
-import { assessCoilHealth, type CoilHealth, type OpenFailure } from "../calc/coil-health";
+import { assessCoilHealth, assessCoilVerdict, toCoilVerdict, type CoilHealth, type CoilHealthInput, type CoilVerdict, type OpenFailure } from "../calc/coil-health";
 import type { CoilSession, CoilSweep } from "../calc/coil-logbook";
 import { findCurrentTopLoadId } from "./current-top-load";
 import { CalcInputError } from "../calc/errors";
@@ -95,37 +95,39 @@ export function assessCoil(
   policy: ClearancePolicyRules,
   openFailures: readonly OpenFailure[] = [],
 ): CoilHealth {
-  return assessSessions(
-    analyzed.map((a) => a.session),
-    analyzed.map((a) => headroomsOf(a.analysis.margins)),
-    sweeps,
-    now,
-    policy,
-    openFailures,
+  return assessCoilHealth(
+    healthInputOf(
+      analyzed.map((a) => a.session),
+      analyzed.map((a) => headroomsOf(a.analysis.margins)),
+      sweeps,
+      now,
+      policy,
+      openFailures,
+    ),
   );
 }
 
-/** assessCoil on the sessions and their headrooms (index for index): all the health assessment reads of a margin. */
-function assessSessions(
+/** assessCoil's input from the sessions and their headrooms (index for index): all the health assessment reads of a margin. */
+function healthInputOf(
   sessions: readonly SessionRecord[],
   headrooms: readonly SessionHeadrooms[],
   sweeps: readonly SweepRecord[],
   now: Date,
   policy: ClearancePolicyRules,
   openFailures: readonly OpenFailure[],
-): CoilHealth {
+): CoilHealthInput {
   const currentTopLoad = findCurrentTopLoadId(sweeps, sessions);
   const rows = sessions.map((session, i) => {
     const row = toCoilSessionOf(session, headrooms[i]!);
     return (session.topLoadId ?? null) === currentTopLoad ? row : { ...row, runningFrequencyHz: null };
   });
-  return assessCoilHealth({
+  return {
     sessions: rows,
     sweeps: toCoilSweeps(sweeps.filter((s) => (s.topLoadId ?? null) === currentTopLoad)),
     now,
     thresholds: { voltageHeadroom: policy.minVoltageHeadroom, currentHeadroom: policy.minCurrentHeadroom, thermalHeadroom: policy.minThermalHeadroom },
     openFailures,
-  });
+  };
 }
 
 /** What judgeCoil reads: the coil, every part ever fitted, its sessions (chronological, with stored fits) and sweeps. */
@@ -162,8 +164,8 @@ export function judgeCoil(history: CoilJudgementHistory, policy: ClearancePolicy
 
 /** What the dashboard's stored summary needs of the one judgement (judgeCoilFigures). */
 export interface CoilFiguresJudgement {
-  /** Null when the logbook could not be assessed; `reasons` then says why. */
-  health: CoilHealth | null;
+  /** judgeCoil's health as a verdict (no trends: the summary stores none); null when the logbook could not be assessed. */
+  health: CoilVerdict | null;
   reasons: string[];
   /** The headrooms of the sessions judged (the health window), oldest first. */
   headrooms: SessionHeadrooms[];
@@ -175,7 +177,8 @@ export interface CoilFiguresJudgement {
  * judgeCoil's health, reasons, latest margins and window headrooms, with the window's older sessions analysed for
  * their headrooms only (analyzeRunSessionHeadrooms: no warm-up, notes or sentences, which were about half the cold
  * dashboard's judgement beyond its floor; only the latest session's margins are shown and stored). The health is
- * assessed from the same numbers as judgeCoil's, so every figure is the same. When anything cannot be analysed the
+ * assessed from the same numbers as judgeCoil's, as a verdict (lib/calc/coil-health.ts assessCoilVerdict: the summary
+ * stores no trend, so only those that can raise a finding are fitted), so every figure is the same. When anything cannot be analysed the
  * whole coil is judged again by judgeCoil, whose reason names the first session it could not analyse in its own
  * words. test/coil-figures-headrooms.test.ts checks the two against each other on generated logbooks.
  */
@@ -194,11 +197,11 @@ export function judgeCoilFigures(history: CoilJudgementHistory, policy: Clearanc
       latest = { session, analysis: analyzeRunSession(history.coil, session, history.components, null, { policy, parts: rig.parts, rig }) };
       headrooms.push(headroomsOf(latest.analysis.margins));
     }
-    const health = assessSessions(window, headrooms, history.sweeps, now, policy, history.openFailures);
+    const health = assessCoilVerdict(healthInputOf(window, headrooms, history.sweeps, now, policy, history.openFailures));
     return { health, reasons: health.reasons, headrooms, latest };
   } catch (error) {
     if (!(error instanceof CalcInputError)) throw error;
     const judged = judgeCoil(history, policy, now);
-    return { health: judged.health, reasons: judged.reasons, headrooms: judged.analyzed.map((a) => headroomsOf(a.analysis.margins)), latest: judged.latest };
+    return { health: judged.health && toCoilVerdict(judged.health), reasons: judged.reasons, headrooms: judged.analyzed.map((a) => headroomsOf(a.analysis.margins)), latest: judged.latest };
   }
 }

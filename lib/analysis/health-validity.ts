@@ -8,8 +8,7 @@
  *    range's earliest date, once the projection's start has overtaken it, turns over at UTC midnight.
  * Everything else (latest readings, level shifts, trends themselves) depends on the logbook alone.
  */
-import type { CoilHealth } from "../calc/coil-health";
-import type { MarginHealth } from "../calc/margin-drift";
+import type { CoilVerdict, MarginVerdict } from "../calc/coil-health";
 import { DEFAULT_HEALTH_THRESHOLDS, type HealthThresholds } from "../calc/health-thresholds";
 
 const MS_PER_DAY = 86_400_000;
@@ -20,7 +19,7 @@ function nextUtcMidnight(atMs: number): number {
 }
 
 /** The instant (ms) from which this margin's status or words would differ from what they are at `now`, or ∞. */
-function marginChangesAt(margin: MarginHealth, now: Date, sessionsPerDay: number | null, thresholds: Pick<HealthThresholds, "holdWithinDays" | "watchWithinDays">): number {
+function marginChangesAt(margin: MarginVerdict, now: Date, sessionsPerDay: number | null, thresholds: Pick<HealthThresholds, "holdWithinDays" | "watchWithinDays">): number {
   const crossing = margin.crossing;
   if (!margin.falling || crossing === null || crossing.alreadyReached || margin.latest === null) return Number.POSITIVE_INFINITY;
   // The projection starts at the later of now and the last reading; before that instant nothing moves.
@@ -46,7 +45,7 @@ function marginChangesAt(margin: MarginHealth, now: Date, sessionsPerDay: number
  * Valid while the clock reads strictly before it.
  */
 export function computeHealthValidUntil(
-  health: CoilHealth,
+  health: Pick<CoilVerdict, "margins" | "sessionsPerDay">,
   now: Date,
   thresholds: Pick<HealthThresholds, "holdWithinDays" | "watchWithinDays"> = DEFAULT_HEALTH_THRESHOLDS,
 ): Date | null {

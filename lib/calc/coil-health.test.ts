@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { assessCoilHealth } from "./coil-health";
+import { assessCoilHealth, assessCoilVerdict, toCoilVerdict, type CoilHealthInput } from "./coil-health";
 import type { CoilSession, CoilSweep } from "./coil-logbook";
 import { addDays } from "./drift-series";
 import { CalcInputError } from "./errors";
@@ -290,5 +290,91 @@ describe("assessCoilHealth: the order of reasons", () => {
     expect(projections.map((f) => f.subject)).toEqual(["thermal headroom", "voltage headroom"]);
     expect(projections[0]!.daysAway!).toBeLessThan(projections[1]!.daysAway!);
     expect(health.reasons[0]).toMatch(/^Thermal headroom is falling/);
+  });
+});
+
+/** What a call returned or threw (the error's message), so two assessments can be compared whole. */
+function outcome<T>(call: () => T): { value: T } | { error: string } {
+  try {
+    return { value: call() };
+  } catch (error) {
+    if (!(error instanceof CalcInputError)) throw error;
+    return { error: error.message };
+  }
+}
+
+type Quirk = "none" | "sessions at one instant" | "no heat-sink rise at first" | "no heat-sink rise at all" | "far-off frequency baseline" | "open failure" | "tiny time steps";
+
+/**
+ * Generated logbooks for the verdict: drifts of every kind and size (steady, slow, fast, rising and falling), a variac
+ * now and then, and the quirks that make a trend's input checks refuse the logbook (sessions at one instant, a
+ * heat-sink rise of zero as the baseline) or that flag a level (an explicit baseline far from what was logged).
+ */
+const verdictInputArbitrary = fc
+  .record({
+    seed: fc.integer({ min: 1, max: 2 ** 31 - 1 }),
+    sessions: fc.integer({ min: 0, max: 70 }),
+    voltageStart: fc.double({ min: 0.15, max: 0.7, noNaN: true }),
+    voltagePerDay: fc.oneof(fc.constant(0), fc.double({ min: -0.004, max: 0.001, noNaN: true })),
+    currentDriftPerDay: fc.oneof(fc.constant(0), fc.double({ min: -0.001, max: 0.003, noNaN: true })),
+    heatDriftPerDay: fc.oneof(fc.constant(0), fc.double({ min: -0.001, max: 0.01, noNaN: true })),
+    frequencyDriftPerDay: fc.oneof(fc.constant(0), fc.double({ min: -3e-4, max: 3e-4, noNaN: true })),
+    variac: fc.boolean(),
+    nowAfterLast: fc.integer({ min: 0, max: 400 }),
+    quirk: fc.constantFrom<Quirk>("none", "none", "none", "sessions at one instant", "no heat-sink rise at first", "no heat-sink rise at all", "far-off frequency baseline", "open failure", "tiny time steps"),
+  })
+  .map((o): CoilHealthInput => {
+    const coil = simulateCoil({
+      seed: o.seed,
+      sessions: o.sessions,
+      voltageHeadroom: [o.voltageStart, o.voltagePerDay],
+      currentDriftPerDay: o.currentDriftPerDay,
+      supplyVoltageV: o.variac ? (_, u) => (u() < 0.3 ? 120 : 170) : undefined,
+      heatPerWattKPerW: (day) => 0.05 * (1 + o.heatDriftPerDay * day),
+      runningFrequencyHz: (day) => 250e3 * (1 + o.frequencyDriftPerDay * day),
+      resonanceHz: (day) => 248e3 * (1 + o.frequencyDriftPerDay * day),
+    });
+    let sessions = coil.sessions;
+    if (o.quirk === "sessions at one instant") sessions = sessions.map((s) => ({ ...s, startedAt: START }));
+    if (o.quirk === "tiny time steps") sessions = sessions.map((s, i) => ({ ...s, startedAt: new Date(START.getTime() + i) }));
+    if (o.quirk === "no heat-sink rise at first") sessions = sessions.map((s, i) => (i < 3 ? { ...s, heatSinkRiseK: 0 } : s));
+    if (o.quirk === "no heat-sink rise at all") sessions = sessions.map((s) => ({ ...s, heatSinkRiseK: 0 }));
+    return {
+      sessions,
+      sweeps: coil.sweeps,
+      now: addDays(START, coil.lastDay + o.nowAfterLast),
+      baseline: o.quirk === "far-off frequency baseline" ? { runningFrequencyHz: 240e3 } : undefined,
+      openFailures: o.quirk === "open failure" ? [{ occurredAt: START, mode: "over_voltage" }] : [],
+    };
+  });
+
+describe("assessCoilVerdict (trends fitted only where they can raise a finding)", () => {
+  it("gives the full assessment's verdict, or refuses the same logbooks with the same words (property)", () => {
+    const seen = { refused: 0, falling: 0, notFalling: 0, flagged: 0, statuses: new Set<string>() };
+    fc.assert(
+      fc.property(verdictInputArbitrary, (input) => {
+        const full = outcome(() => assessCoilHealth(input));
+        const verdict = outcome(() => assessCoilVerdict(input));
+        if ("error" in full) {
+          seen.refused++;
+          expect(verdict).toEqual(full);
+          return;
+        }
+        expect(verdict).toStrictEqual({ value: toCoilVerdict(full.value) });
+        seen.statuses.add(full.value.status);
+        const margins = Object.values(full.value.margins);
+        if (margins.some((m) => m.falling)) seen.falling++;
+        if (margins.some((m) => m.trend !== null && !m.trend.significant)) seen.notFalling++;
+        const levels = [full.value.supplyCurrent, full.value.runningFrequency, full.value.firstSeriesResonance, full.value.heatSinkRisePerWatt];
+        if (levels.some((l) => l.flagged)) seen.flagged++;
+      }),
+      { numRuns: 400, seed: 20261204 },
+    );
+    // Every kind of answer was reached, so the property did not hold on one kind alone.
+    expect([...seen.statuses].sort()).toEqual(["fine", "hold", "not enough data", "watch"]);
+    expect(seen.refused).toBeGreaterThan(10);
+    expect(seen.falling).toBeGreaterThan(10);
+    expect(seen.notFalling).toBeGreaterThan(10);
+    expect(seen.flagged).toBeGreaterThan(10);
   });
 });

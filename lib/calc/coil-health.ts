@@ -30,6 +30,8 @@ import { daysBetween, type DatedValue } from "./drift-series";
 import { formatFrequency } from "./health-reasons";
 import {
   DEFAULT_HEALTH_THRESHOLDS,
+  MIN_OBSERVATIONS_FOR_TREND,
+  type AssessmentDetail,
   type FindingSeverity,
   type HealthFinding,
   type HealthThresholds,
@@ -76,8 +78,38 @@ export interface OpenFailure {
   mode: string;
 }
 
+/** What a coil's status, reasons and their expiry (lib/analysis/health-validity.ts) are made of: a margin without its trend. */
+export type MarginVerdict = Omit<MarginHealth, "trend">;
+
+/** assessCoilHealth's status and reasons with what they rest on, without the trends the pages draw (assessCoilVerdict). */
+export interface CoilVerdict extends Pick<CoilHealth, "status" | "reasons" | "findings" | "sessionCount" | "sessionsPerDay" | "confidence"> {
+  margins: { voltage: MarginVerdict; current: MarginVerdict; thermal: MarginVerdict };
+}
+
 /** Assesses one coil (methods: Theil–Sen with Sen's interval and Mann–Kendall, robust-trend.ts). */
 export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
+  return assessHealth(input, "full");
+}
+
+/**
+ * assessCoilHealth's verdict, fitting only the trends that can raise a finding (health-thresholds.ts AssessmentDetail):
+ * for the dashboard, which stores the status and reasons of every coil and draws no trend. It throws where
+ * assessCoilHealth throws, and otherwise equals toCoilVerdict(assessCoilHealth(input)) (coil-health.test.ts checks
+ * both on generated logbooks).
+ */
+export function assessCoilVerdict(input: CoilHealthInput): CoilVerdict {
+  return toCoilVerdict(assessHealth(input, "verdict"));
+}
+
+/** The verdict part of a full assessment. */
+export function toCoilVerdict(health: CoilHealth): CoilVerdict {
+  const { status, reasons, findings, sessionCount, sessionsPerDay, confidence } = health;
+  const margin = ({ trend: _trend, ...rest }: MarginHealth): MarginVerdict => rest;
+  const { voltage, current, thermal } = health.margins;
+  return { status, reasons, findings, margins: { voltage: margin(voltage), current: margin(current), thermal: margin(thermal) }, sessionCount, sessionsPerDay, confidence };
+}
+
+function assessHealth(input: CoilHealthInput, detail: AssessmentDetail): CoilHealth {
   const confidence = input.confidence ?? 0.95;
   if (!Number.isFinite(confidence) || confidence <= 0 || confidence >= 1) {
     throw new CalcInputError("confidence", "a fraction strictly between 0 and 1, e.g. 0.95", confidence);
@@ -90,7 +122,7 @@ export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
   const last = sessions[sessions.length - 1];
   const spanDays = first && last ? daysBetween(first.startedAt, last.startedAt) : 0;
   const sessionsPerDay = sessions.length >= 2 && spanDays >= 1 ? (sessions.length - 1) / spanDays : null;
-  const common = { confidence, now, thresholds, sessionsPerDay };
+  const common = { confidence, now, thresholds, sessionsPerDay, detail };
 
   const margin = (
     name: MarginHealth["margin"],
@@ -113,6 +145,7 @@ export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
     explicitBaseline: baseline.runningFrequencyHz,
     tolerance: thresholds.frequencyShift,
     formatValue: formatFrequency,
+    detail,
   });
   const firstSeriesResonance = assessLevelDrift({
     confidence,
@@ -123,6 +156,7 @@ export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
     explicitBaseline: baseline.firstSeriesResonanceHz,
     tolerance: thresholds.frequencyShift,
     formatValue: formatFrequency,
+    detail,
   });
   const heatSinkRisePerWatt = assessHeatRise(sessions, baseline, common);
   const failureFindings = (input.openFailures ?? []).map((failure, i) => describeOpenFailure(failure, i));
@@ -144,7 +178,8 @@ export function assessCoilHealth(input: CoilHealthInput): CoilHealth {
   findings.sort((a, b) => severityOrder[a.severity] - severityOrder[b.severity] || Math.sign(urgency(a) - urgency(b)) || 0);
   // An open failure leads: until its post-mortem, it says more about the coil than any margin.
   findings.unshift(...failureFindings);
-  const anyTrend = Object.values(margins).some((m) => m.trend !== null);
+  // Counted, not read off `trend`: the verdict leaves a margin's trend unfitted when it is not significant.
+  const anyTrend = Object.values(margins).some((m) => m.observations >= MIN_OBSERVATIONS_FOR_TREND);
   const status: HealthStatus = findings.some((f) => f.severity === "hold")
     ? "hold"
     : findings.some((f) => f.severity === "watch")

@@ -6,13 +6,14 @@
 import type { CoilSession, ValidBaseline } from "./coil-logbook";
 import { findModalBand, type DatedValue } from "./drift-series";
 import { formatFigure } from "./health-reasons";
-import type { HealthThresholds } from "./health-thresholds";
+import type { AssessmentDetail, HealthThresholds } from "./health-thresholds";
 import { assessLevelDrift } from "./level-drift";
 
 /** What both comparisons need from the assessment: its confidence level and tolerances. */
 export interface ComparisonContext {
   confidence: number;
   thresholds: HealthThresholds;
+  detail?: AssessmentDetail;
 }
 
 /**
@@ -47,6 +48,7 @@ export function assessComparableCurrent(sessions: readonly CoilSession[], baseli
       explicit && reference !== null ? (explicit.supplyCurrentA * reference) / explicit.supplyVoltageV : undefined,
     tolerance: common.thresholds.currentShift,
     confidence: common.confidence,
+    detail: common.detail,
     formatValue: (a) => `${formatFigure(a)} A`,
   });
   return { ...level, referenceVoltageV: reference };
@@ -82,6 +84,7 @@ export function assessHeatRise(sessions: readonly CoilSession[], baseline: Valid
     explicitBaseline: baseline.heatSinkRisePerWattKPerW,
     tolerance: common.thresholds.heatRiseShift,
     confidence: common.confidence,
+    detail: common.detail,
     formatValue: (kPerW) => `${formatFigure(kPerW)} K/W`,
   });
   // Only a rise is a warning sign; a sink that now runs cooler per watt is not.

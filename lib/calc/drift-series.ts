@@ -7,7 +7,7 @@
  * ageing into one step. Session counts are derived from the coil's average session rate where wanted.
  */
 import { CalcInputError } from "./errors";
-import { computeMedian, theilSenTrend, type TheilSenTrend } from "./robust-trend";
+import { checkTrendInput, computeMedian, testTrend, theilSenTrend, type TheilSenTrend, type TrendPoint } from "./robust-trend";
 
 export const MS_PER_DAY = 86_400_000;
 /** "A month" in every rate this library reports. */
@@ -41,22 +41,38 @@ export function addDays(origin: Date, days: number): Date {
   return new Date(origin.getTime() + days * MS_PER_DAY);
 }
 
-/** Theil–Sen trend of a chronological series against days since its first point. */
-export function fitDriftTrend(series: readonly DatedValue[], confidence: number): DriftTrend {
+/** A series as its trend reads it: days since its first observation against the value. */
+function trendPointsOf(series: readonly DatedValue[]): { origin: Date; points: TrendPoint[] } {
   const origin = series[0]?.at;
   if (origin === undefined) throw new CalcInputError("series", "at least one observation", 0);
-  const fit = theilSenTrend(
-    series.map((p) => ({ x: daysBetween(origin, p.at), y: p.value })),
-    { confidence },
-  );
+  return { origin, points: series.map((p) => ({ x: daysBetween(origin, p.at), y: p.value })) };
+}
+
+/** Theil–Sen trend of a chronological series against days since its first point. */
+export function fitDriftTrend(series: readonly DatedValue[], confidence: number): DriftTrend {
+  const { origin, points } = trendPointsOf(series);
+  return driftTrendOf(theilSenTrend(points, { confidence }), origin);
+}
+
+function driftTrendOf(fit: TheilSenTrend, origin: Date): DriftTrend {
   return {
     fit,
     origin,
     perMonth: fit.slope * DAYS_PER_MONTH,
     perMonthLow: fit.slopeLow * DAYS_PER_MONTH,
     perMonthHigh: fit.slopeHigh * DAYS_PER_MONTH,
-    significant: fit.pValue < 1 - confidence,
+    significant: fit.pValue < 1 - fit.confidence,
   };
+}
+
+/** Whether fitDriftTrend would call the series' trend significant, without fitting it; throws where it throws (robust-trend.ts testTrend). */
+export function isDriftTrendSignificant(series: readonly DatedValue[], confidence: number): boolean {
+  return testTrend(trendPointsOf(series).points, { confidence }).pValue < 1 - confidence;
+}
+
+/** Throws where fitDriftTrend throws on the series, fitting it only when that is the way to tell (robust-trend.ts checkTrendInput). */
+export function checkDriftTrendInput(series: readonly DatedValue[], confidence: number): void {
+  checkTrendInput(trendPointsOf(series).points, { confidence });
 }
 
 /**

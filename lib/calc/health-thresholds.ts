@@ -48,6 +48,14 @@ export const DEFAULT_HEALTH_THRESHOLDS: Readonly<HealthThresholds> = {
  */
 export const MIN_OBSERVATIONS_FOR_TREND = 6;
 
+/**
+ * How much of a health assessment to work out. "full": every trend is fitted, for the pages that draw and quote them.
+ * "verdict": what the status, the reasons and how long they hold read (coil-health.ts assessCoilVerdict). A trend is
+ * then fitted only where it can raise a finding (a significant margin trend, a level past its tolerance); elsewhere
+ * only the checks its fit makes are run, so both refuse the same logbooks with the same words.
+ */
+export type AssessmentDetail = "full" | "verdict";
+
 export type FindingSeverity = "hold" | "watch" | "info";
 
 export interface HealthFinding {

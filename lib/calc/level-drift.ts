@@ -4,15 +4,19 @@
  * tolerance. A resonant frequency that wanders means the coil or its surroundings changed; a current that
  * creeps up at the same voltage means losses grew.
  */
-import { fitDriftTrend, measureLevelShift, type DatedValue, type DriftTrend, type LevelShift } from "./drift-series";
+import { checkDriftTrendInput, fitDriftTrend, measureLevelShift, type DatedValue, type DriftTrend, type LevelShift } from "./drift-series";
 import { describeBaseline, describeNotEnoughData, describeShift } from "./health-reasons";
-import { MIN_OBSERVATIONS_FOR_TREND, type HealthFinding } from "./health-thresholds";
+import { MIN_OBSERVATIONS_FOR_TREND, type AssessmentDetail, type HealthFinding } from "./health-thresholds";
 
 export interface LevelHealth {
   observations: number;
   /** Recent median against baseline; null when there are too few observations to form both. */
   shift: LevelShift | null;
-  /** Trend of value/baseline − 1, so its rates are fractions of the baseline per 30 days. */
+  /**
+   * Trend of value/baseline − 1, so its rates are fractions of the baseline per 30 days. Null with fewer than
+   * MIN_OBSERVATIONS_FOR_TREND observations, and in "verdict" detail unless the level is flagged (only a flagged
+   * level's finding quotes it).
+   */
   trend: DriftTrend | null;
   /** Shift beyond which the level is flagged, as a fraction of the baseline. */
   tolerance: number;
@@ -33,6 +37,8 @@ export function assessLevelDrift(args: {
   tolerance: number;
   confidence: number;
   formatValue: (value: number) => string;
+  /** Default "full" (health-thresholds.ts AssessmentDetail). */
+  detail?: AssessmentDetail;
 }): LevelHealth {
   const { subject, series, count, tolerance } = args;
   const findings: HealthFinding[] = [];
@@ -50,14 +56,13 @@ export function assessLevelDrift(args: {
     }
     return { observations: series.length, shift, trend: null, tolerance, flagged: false, findings };
   }
-  const trend =
-    series.length >= MIN_OBSERVATIONS_FOR_TREND
-      ? fitDriftTrend(
-          series.map((p) => ({ at: p.at, value: p.value / shift.baseline - 1 })),
-          args.confidence,
-        )
-      : null;
   const flagged = Math.abs(shift.shiftFraction) > tolerance;
+  const relative = () => series.map((p) => ({ at: p.at, value: p.value / shift.baseline - 1 }));
+  let trend: DriftTrend | null = null;
+  if (series.length >= MIN_OBSERVATIONS_FOR_TREND) {
+    if (flagged || args.detail !== "verdict") trend = fitDriftTrend(relative(), args.confidence);
+    else checkDriftTrendInput(relative(), args.confidence);
+  }
   if (flagged) {
     const baselineWords =
       `${describeBaseline(shift.baselineSource, shift.baselineCount, shift.recentCount, args.unit)}: ` +

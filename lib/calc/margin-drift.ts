@@ -3,7 +3,7 @@
  * threshold, its robust trend, and when a falling trend would reach the threshold — with the finding each of
  * those raises under coil-health.ts's status rule.
  */
-import { addDays, daysBetween, fitDriftTrend, type DatedValue, type DriftTrend } from "./drift-series";
+import { addDays, daysBetween, fitDriftTrend, isDriftTrendSignificant, type DatedValue, type DriftTrend } from "./drift-series";
 import {
   describeFallingMargin,
   describeMarginBelowLimit,
@@ -13,6 +13,7 @@ import {
 } from "./health-reasons";
 import {
   MIN_OBSERVATIONS_FOR_TREND,
+  type AssessmentDetail,
   type FindingSeverity,
   type HealthFinding,
   type HealthThresholds,
@@ -33,7 +34,10 @@ export interface MarginHealth {
   threshold: number;
   observations: number;
   latest: DatedValue | null;
-  /** Null with fewer than MIN_OBSERVATIONS_FOR_TREND readings. Rates are headroom fractions per 30 days. */
+  /**
+   * Null with fewer than MIN_OBSERVATIONS_FOR_TREND readings, and in "verdict" detail when the trend is not
+   * significant (it raises no finding then). Rates are headroom fractions per 30 days.
+   */
   trend: DriftTrend | null;
   /** Significant and falling (Mann–Kendall p < 1 − confidence, slope < 0). */
   falling: boolean;
@@ -51,6 +55,8 @@ export function assessMarginDrift(args: {
   now: Date;
   thresholds: HealthThresholds;
   sessionsPerDay: number | null;
+  /** Default "full" (health-thresholds.ts AssessmentDetail). */
+  detail?: AssessmentDetail;
 }): MarginHealth {
   const { name, threshold, series, thresholds } = args;
   const label = `${name} headroom`;
@@ -70,8 +76,11 @@ export function assessMarginDrift(args: {
     return { margin: name, threshold, observations: series.length, latest, trend: null, falling: false, crossing: null, findings };
   }
 
-  const trend = fitDriftTrend(series, args.confidence);
-  const falling = trend.significant && trend.fit.slope < 0;
+  // Only a significant trend can raise a finding; the verdict tests that first and fits only those (a fit's slopes are
+  // most of its cost, and most margins hold steady).
+  const fitted = args.detail !== "verdict" || isDriftTrendSignificant(series, args.confidence);
+  const trend = fitted ? fitDriftTrend(series, args.confidence) : null;
+  const falling = trend !== null && trend.significant && trend.fit.slope < 0;
   const crossing = falling && latest !== null ? forecastCrossing(trend, threshold, latest.at, args) : null;
   if (falling) {
     const daysAway = crossing?.daysAway ?? Number.POSITIVE_INFINITY;

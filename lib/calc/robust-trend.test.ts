@@ -2,7 +2,7 @@ import quantile from "@stdlib/stats-base-dists-normal-quantile";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { CalcInputError } from "./errors";
-import { projectCrossing, theilSenTrend, type TrendPoint } from "./robust-trend";
+import { checkTrendInput, projectCrossing, testTrend, theilSenTrend, type TrendPoint } from "./robust-trend";
 import { createSeededRandom } from "./seeded-random";
 
 /** Ordinary least-squares slope, for the contrast with Theil–Sen (textbook normal equations). */
@@ -156,6 +156,75 @@ describe("theilSenTrend", () => {
     expect(() => theilSenTrend([{ x: 0, y: 0 }, { x: 1, y: Number.NaN }, { x: 2, y: 1 }])).toThrow(/points\[1\]\.y/);
     const ok = [0, 1, 2].map((x) => ({ x, y: x }));
     expect(() => theilSenTrend(ok, { confidence: 1 })).toThrow(/confidence/);
+  });
+});
+
+/** What a call returned or threw (the error's class and message), so two calls can be compared whole. */
+function outcome<T>(call: () => T): { value: T } | { error: string } {
+  try {
+    return { value: call() };
+  } catch (error) {
+    if (!(error instanceof CalcInputError)) throw error;
+    return { error: `${error.name}: ${error.message}` };
+  }
+}
+
+/**
+ * Points that reach every refusal of theilSenTrend: too few, repeated or all-equal x, non-finite values, and
+ * magnitudes whose slopes or whose middle slopes' mean overflow, next to ordinary series.
+ */
+const awkwardPoints = fc.oneof(
+  fc.array(fc.record({ x: fc.integer({ min: 0, max: 40 }), y: fc.double({ min: -2, max: 2, noNaN: true }) }), { maxLength: 40 }),
+  fc.array(fc.record({ x: fc.constantFrom(0, 1e-300, 5e-324, 1, 2, 1e308), y: fc.constantFrom(-1.7e308, -1e300, 0, 1, 1e300, 1.7e308, Number.NaN, Number.POSITIVE_INFINITY) }), { maxLength: 12 }),
+  fc.array(fc.record({ x: fc.double({ noNaN: false }), y: fc.double({ noNaN: false }) }), { maxLength: 12 }),
+);
+
+describe("testTrend and checkTrendInput (theilSenTrend's test and refusals without its slopes)", () => {
+  it("throw exactly where theilSenTrend throws, and testTrend's test is theilSenTrend's (property)", () => {
+    let refused = 0;
+    let fellBack = 0;
+    fc.assert(
+      fc.property(awkwardPoints, fc.constantFrom(0.95, 0.9, 1.2), (points, confidence) => {
+        const full = outcome(() => theilSenTrend(points, { confidence }));
+        const checked = outcome(() => checkTrendInput(points, { confidence }));
+        const tested = outcome(() => testTrend(points, { confidence }));
+        if ("error" in full) {
+          refused++;
+          expect(checked).toEqual(full);
+          expect(tested).toEqual(full);
+          return;
+        }
+        expect("value" in checked && "value" in tested).toBe(true);
+        if ("value" in checked && checked.value !== null) {
+          fellBack++;
+          expect(checked.value).toStrictEqual(full.value);
+        }
+        if ("value" in tested) {
+          const { n, pairCount, kendallS, varianceS, z, pValue, kendallTau } = full.value;
+          expect(tested.value).toStrictEqual({ n, pairCount, kendallS, varianceS, z, pValue, kendallTau, confidence });
+        }
+      }),
+      { numRuns: 3000 },
+    );
+    // Both kinds of answer were reached, and the overflow guard had to fall back to the fit at least once.
+    expect(refused).toBeGreaterThan(100);
+    expect(fellBack).toBeGreaterThan(0);
+  });
+
+  it("refuse slopes that overflow as theilSenTrend does, and leave large but finite ones alone", () => {
+    // derived: Δy = 2e300 over Δx = 1e-10 is a slope of 2e310, past the largest double (1.8e308)
+    const overflowing = [{ x: 0, y: -1e300 }, { x: 1e-10, y: 1e300 }, { x: 2e-10, y: 3e300 }];
+    expect(() => theilSenTrend(overflowing)).toThrow(/floating-point range/);
+    expect(() => checkTrendInput(overflowing)).toThrow(/floating-point range/);
+    expect(() => testTrend(overflowing)).toThrow(/floating-point range/);
+    // derived: four distinct-x pairs, each a slope of 1.2e308 (finite), whose middle two's mean overflows on the way
+    const middleMeanOverflows = [0, 1, 0, 1].map((x) => ({ x, y: 1.2e308 * x }));
+    expect(() => theilSenTrend(middleMeanOverflows)).toThrow(/floating-point range/);
+    expect(() => checkTrendInput(middleMeanOverflows)).toThrow(/floating-point range/);
+    // every slope is 1e300: finite, and no fit is needed to know it
+    const steep = [0, 1, 2, 3].map((x) => ({ x, y: 1e300 * x }));
+    expect(checkTrendInput(steep)).toBeNull();
+    expect(testTrend(steep).pValue).toBe(theilSenTrend(steep).pValue);
   });
 });
 

@@ -41,15 +41,20 @@ export interface TheilSenTrend {
   kendallTau: number;
 }
 
+/** The points as theilSenTrend reads them, after its input checks. */
+interface TrendInput {
+  xs: Float64Array;
+  ys: Float64Array;
+  /** Pairs with distinct x (countDistinctXPairs), at least one. */
+  pairCount: number;
+  confidence: number;
+}
+
 /**
- * Theil–Sen slope (Theil, Proc. KNAW 53, 1950; Sen, JASA 63, 1968) with Sen's 1968 interval from the normal
- * approximation to Kendall's S; intercept as the median of y − slope·x (Conover, Practical Nonparametric
- * Statistics, 1980).
+ * theilSenTrend's input checks, in its order: the confidence, at least 3 points, each x then y finite, two different
+ * x. Every trend function here starts with it, so they throw the same error for the same points.
  */
-export function theilSenTrend(
-  points: readonly TrendPoint[],
-  { confidence = 0.95 }: { confidence?: number } = {},
-): TheilSenTrend {
+function readTrendInput(points: readonly TrendPoint[], confidence: number): TrendInput {
   if (!Number.isFinite(confidence) || confidence <= 0 || confidence >= 1) {
     throw new CalcInputError("confidence", "a fraction strictly between 0 and 1, e.g. 0.95", confidence);
   }
@@ -63,7 +68,23 @@ export function theilSenTrend(
   });
   const pairCount = countDistinctXPairs(xs);
   if (pairCount === 0) throw new CalcInputError("points", "at least two different x values", "all x equal");
+  return { xs, ys, pairCount, confidence };
+}
 
+/**
+ * Theil–Sen slope (Theil, Proc. KNAW 53, 1950; Sen, JASA 63, 1968) with Sen's 1968 interval from the normal
+ * approximation to Kendall's S; intercept as the median of y − slope·x (Conover, Practical Nonparametric
+ * Statistics, 1980).
+ */
+export function theilSenTrend(
+  points: readonly TrendPoint[],
+  { confidence = 0.95 }: { confidence?: number } = {},
+): TheilSenTrend {
+  return fitTrend(readTrendInput(points, confidence));
+}
+
+function fitTrend({ xs, ys, pairCount, confidence }: TrendInput): TheilSenTrend {
+  const n = xs.length;
   const mk = computeMannKendall(xs, ys);
   // Sen (1968): C = z₁₋α/₂·√Var(S); the bounds are the M₁-th and (M₂+1)-th ordered slopes with
   // M₁ = (N − C)/2 and M₂ = (N + C)/2, rounded to the nearest rank (Gilbert, Statistical Methods for
@@ -100,6 +121,55 @@ export function theilSenTrend(
     pValue: mk.pValue,
     kendallTau: mk.kendallTau,
   };
+}
+
+/** theilSenTrend's Mann–Kendall test alone. */
+export type TrendTest = Pick<TheilSenTrend, "n" | "pairCount" | "kendallS" | "varianceS" | "z" | "pValue" | "kendallTau" | "confidence">;
+
+/**
+ * Throws exactly where theilSenTrend throws on the same points, without working out a slope where it can help it: for a
+ * caller that needs the fit only in some cases (a trend that is significant, a level already past its tolerance) and
+ * must still refuse the points the fit would refuse. Returns the fit when it had to make it.
+ *
+ * Beyond readTrendInput's checks the fit throws only when its median slope is not finite. Every pairwise slope is
+ * |Δy|/|Δx| ≤ (max y − min y)/(smallest gap between distinct x), and rounding keeps that order, so when twice that
+ * bound is finite no slope, nor the mean of the middle two, can overflow; only when it is not is the fit made to tell.
+ */
+export function checkTrendInput(points: readonly TrendPoint[], { confidence = 0.95 }: { confidence?: number } = {}): TheilSenTrend | null {
+  const input = readTrendInput(points, confidence);
+  return slopesBoundedFinite(input.xs, input.ys) ? null : fitTrend(input);
+}
+
+/**
+ * theilSenTrend's Mann–Kendall test (the same S, variance and p-value) after the same input checks, without the
+ * slopes: the O(n²) slopes and their selection are most of a fit's cost, and a trend that is not significant raises no
+ * finding. Throws exactly where theilSenTrend throws (checkTrendInput).
+ */
+export function testTrend(points: readonly TrendPoint[], { confidence = 0.95 }: { confidence?: number } = {}): TrendTest {
+  const input = readTrendInput(points, confidence);
+  if (!slopesBoundedFinite(input.xs, input.ys)) {
+    const { n, pairCount, kendallS, varianceS, z, pValue, kendallTau } = fitTrend(input);
+    return { n, pairCount, kendallS, varianceS, z, pValue, kendallTau, confidence };
+  }
+  const mk = computeMannKendall(input.xs, input.ys);
+  return { n: input.xs.length, pairCount: input.pairCount, kendallS: mk.s, varianceS: mk.varianceS, z: mk.z, pValue: mk.pValue, kendallTau: mk.kendallTau, confidence };
+}
+
+/** True when 2·(max y − min y)/(smallest gap between distinct x) is finite (checkTrendInput says why that suffices). */
+function slopesBoundedFinite(xs: Float64Array, ys: Float64Array): boolean {
+  let yMin = Number.POSITIVE_INFINITY;
+  let yMax = Number.NEGATIVE_INFINITY;
+  for (const y of ys) {
+    if (y < yMin) yMin = y;
+    if (y > yMax) yMax = y;
+  }
+  const sorted = Float64Array.from(xs).sort();
+  let smallestGap = Number.POSITIVE_INFINITY;
+  for (let i = 1; i < sorted.length; i++) {
+    const gap = sorted[i]! - sorted[i - 1]!;
+    if (gap > 0 && gap < smallestGap) smallestGap = gap;
+  }
+  return Number.isFinite((2 * (yMax - yMin)) / smallestGap);
 }
 
 export interface ThresholdCrossing {
