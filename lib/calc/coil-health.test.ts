@@ -244,6 +244,26 @@ describe("assessCoilHealth: latest readings and input checks", () => {
     expect(() => assessCoilHealth({ ...coil, sessions: headroomOver1, now })).toThrow(/sessions\[0\]\.voltageHeadroom/);
   });
 
+  it("names each session field whose value fails, with what was expected, and accepts the edge of each range", () => {
+    const coil = simulateCoil({ seed: 1, sessions: 5 });
+    const now = addDays(START, coil.lastDay);
+    const withSession3 = (change: Partial<CoilSession>) => ({ ...coil, now, sessions: coil.sessions.map((s, i) => (i === 3 ? { ...s, ...change } : s)) });
+    const refusals: [Partial<CoilSession>, string][] = [
+      [{ startedAt: new Date(Number.NaN) }, "sessions[3].startedAt: expected a valid date"],
+      [{ supplyVoltageV: 0 }, "sessions[3].supplyVoltageV: expected a finite number greater than 0, got 0"],
+      [{ supplyCurrentA: -0.1 }, "sessions[3].supplyCurrentA: expected a finite number ≥ 0, got -0.1"],
+      [{ durationS: Number.POSITIVE_INFINITY }, "sessions[3].durationS: expected a finite number ≥ 0, got Infinity"],
+      [{ runningFrequencyHz: Number.NaN }, "sessions[3].runningFrequencyHz: expected a finite number greater than 0, got NaN"],
+      [{ currentHeadroom: Number.NEGATIVE_INFINITY }, "sessions[3].currentHeadroom: expected a finite number, got -Infinity"],
+      [{ thermalHeadroom: 1.0000001 }, "sessions[3].thermalHeadroom: expected a headroom fraction ≤ 1 (1 − stressed/limit), got 1.0000001"],
+      [{ heatSinkRiseK: Number.NaN }, "sessions[3].heatSinkRiseK: expected a finite number, got NaN"],
+    ];
+    for (const [change, message] of refusals) expect(() => assessCoilHealth(withSession3(change)), message).toThrow(message);
+    // the edges each check lets through: no current, a zero-length run, a headroom of exactly 1, a negative rise, absent readings
+    const edges = withSession3({ supplyCurrentA: 0, durationS: 0, voltageHeadroom: 1, heatSinkRiseK: -2, runningFrequencyHz: null, thermalHeadroom: undefined });
+    expect(assessCoilHealth(edges).sessionCount).toBe(5);
+  });
+
   it("accepts sessions in any order and missing readings", () => {
     const coil = simulateCoil({ seed: 51 });
     const shuffled = [...coil.sessions].reverse().map((s, i) => (i % 4 === 0 ? { ...s, thermalHeadroom: null } : s));

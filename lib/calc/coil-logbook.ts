@@ -2,7 +2,7 @@
  * What a coil's health assessment reads from the logbook — its run sessions, its sweeps, and optional explicit
  * baselines — and the checks that turn bad rows into a CalcInputError naming the row and field.
  */
-import { CalcInputError, requireFinite, requireInRange, requireNonNegative, requirePositive } from "./errors";
+import { CalcInputError, isNonNegative, isPositive, requireFinite, requireInRange, requireNonNegative, requirePositive } from "./errors";
 import type { HealthThresholds } from "./health-thresholds";
 
 /** One run session as the logbook holds it; null or absent means "not recorded". */
@@ -57,14 +57,19 @@ export function validateLogbook(input: {
   };
 }
 
+const isValidDate = (value: unknown): value is Date => value instanceof Date && !Number.isNaN(value.getTime());
+
 export function requireDate(field: string, value: unknown): Date {
-  if (!(value instanceof Date) || Number.isNaN(value.getTime())) throw new CalcInputError(field, "a valid date", value);
+  if (!isValidDate(value)) throw new CalcInputError(field, "a valid date", value);
   return value;
 }
 
 function optional(field: string, value: number | null | undefined, check: (f: string, v: number) => number) {
   return value == null ? null : check(field, value);
 }
+
+/** A finite headroom fraction ≤ 1 (what requireHeadroom accepts). */
+const isHeadroom = (value: number): boolean => Number.isFinite(value) && value <= 1;
 
 function requireHeadroom(field: string, value: number): number {
   requireFinite(field, value);
@@ -73,18 +78,35 @@ function requireHeadroom(field: string, value: number): number {
 }
 
 function validateSession(s: CoilSession, i: number): CoilSession {
-  const f = (name: string) => `sessions[${i}].${name}`;
+  // Each field's name is spelled out only when its value fails (sessionField): a string per field per session was most
+  // of this check's cost on a dashboard judging 500 coils' 63-session windows. Each test is the one its require* makes.
   return {
-    startedAt: requireDate(f("startedAt"), s.startedAt),
-    supplyVoltageV: requirePositive(f("supplyVoltageV"), s.supplyVoltageV),
-    supplyCurrentA: requireNonNegative(f("supplyCurrentA"), s.supplyCurrentA),
-    durationS: requireNonNegative(f("durationS"), s.durationS),
-    runningFrequencyHz: optional(f("runningFrequencyHz"), s.runningFrequencyHz, requirePositive),
-    voltageHeadroom: optional(f("voltageHeadroom"), s.voltageHeadroom, requireHeadroom),
-    currentHeadroom: optional(f("currentHeadroom"), s.currentHeadroom, requireHeadroom),
-    thermalHeadroom: optional(f("thermalHeadroom"), s.thermalHeadroom, requireHeadroom),
-    heatSinkRiseK: optional(f("heatSinkRiseK"), s.heatSinkRiseK, requireFinite),
+    startedAt: isValidDate(s.startedAt) ? s.startedAt : sessionField(i, "startedAt", requireDate, s.startedAt),
+    supplyVoltageV: isPositive(s.supplyVoltageV) ? s.supplyVoltageV : sessionField(i, "supplyVoltageV", requirePositive, s.supplyVoltageV),
+    supplyCurrentA: isNonNegative(s.supplyCurrentA) ? s.supplyCurrentA : sessionField(i, "supplyCurrentA", requireNonNegative, s.supplyCurrentA),
+    durationS: isNonNegative(s.durationS) ? s.durationS : sessionField(i, "durationS", requireNonNegative, s.durationS),
+    runningFrequencyHz: optionalSessionValue(i, "runningFrequencyHz", s.runningFrequencyHz, isPositive, requirePositive),
+    voltageHeadroom: optionalSessionValue(i, "voltageHeadroom", s.voltageHeadroom, isHeadroom, requireHeadroom),
+    currentHeadroom: optionalSessionValue(i, "currentHeadroom", s.currentHeadroom, isHeadroom, requireHeadroom),
+    thermalHeadroom: optionalSessionValue(i, "thermalHeadroom", s.thermalHeadroom, isHeadroom, requireHeadroom),
+    heatSinkRiseK: optionalSessionValue(i, "heatSinkRiseK", s.heatSinkRiseK, Number.isFinite, requireFinite),
   };
+}
+
+/** `check` on session i's field `name`, named as "sessions[i].name". */
+function sessionField<T, R>(i: number, name: keyof CoilSession, check: (field: string, value: T) => R, value: T): R {
+  return check(`sessions[${i}].${name}`, value);
+}
+
+/** An optional session value: null when absent, itself when `ok`, else what `check` makes of it (it throws). */
+function optionalSessionValue(
+  i: number,
+  name: keyof CoilSession,
+  value: number | null | undefined,
+  ok: (value: number) => boolean,
+  check: (field: string, value: number) => number,
+): number | null {
+  return value == null ? null : ok(value) ? value : sessionField(i, name, check, value);
 }
 
 function validateSweep(s: CoilSweep, i: number): CoilSweep {

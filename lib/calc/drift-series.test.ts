@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { addDays, daysBetween, findModalBand, fitDriftTrend, measureLevelShift } from "./drift-series";
 
@@ -30,6 +31,33 @@ describe("findModalBand", () => {
     expect(findModalBand([120, 170, 168, 172, 121, 175], 0.1)).toEqual({ reference: 171, members: [1, 2, 3, 5] });
     expect(findModalBand([100, 200], 0.1)).toEqual({ reference: 200, members: [1] });
     expect(findModalBand([], 0.1)).toBeNull();
+  });
+
+  it("counts each band as comparing every pair would (property)", () => {
+    // The definition, written out: every value against every centre, ties to the later centre.
+    const pairwise = (values: number[], fraction: number) => {
+      let best = -1;
+      let bestCount = 0;
+      values.forEach((centre, c) => {
+        const count = values.filter((v) => Math.abs(v - centre) <= fraction * centre).length;
+        if (count >= bestCount) [best, bestCount] = [c, count];
+      });
+      return bestCount === 0 ? null : values.flatMap((v, i) => (Math.abs(v - values[best]!) <= fraction * values[best]! ? [i] : []));
+    };
+    fc.assert(
+      fc.property(
+        fc.oneof(
+          fc.array(fc.constantFrom(0, 100, 110, 121, 90, 99.99999999999999, 110.00000000000001, 120, 170, 187), { maxLength: 40 }),
+          fc.array(fc.double({ min: -1e3, max: 1e3, noNaN: true }), { maxLength: 40 }),
+        ),
+        fc.constantFrom(0.1, 0.25, 0.001, 0),
+        (values, fraction) => {
+          const band = findModalBand(values, fraction);
+          expect(band?.members ?? null).toEqual(pairwise(values, fraction));
+        },
+      ),
+      { numRuns: 2000 },
+    );
   });
 });
 

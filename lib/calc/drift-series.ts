@@ -84,15 +84,31 @@ export function findModalBand(
   values: readonly number[],
   bandFraction: number,
 ): { reference: number; members: number[] } | null {
-  // Counted first and listed once for the winning centre: the O(n²) count allocates nothing (it runs twice per
-  // coil on every dashboard judgement).
+  // A centre's band holds the values v with |v − centre| ≤ bandFraction·centre as floating point computes them. The
+  // rounded difference v − centre never decreases as v grows, so those values sit side by side once sorted, and two
+  // binary searches count them: O(n log n) where comparing every pair was O(n²), with the same counts (it runs twice
+  // per coil on every dashboard judgement). drift-series.test.ts holds it to the pairwise count.
   const n = values.length;
+  const sorted = Float64Array.from(values).sort();
   let bestCentre = -1;
   let bestCount = 0;
   for (let c = 0; c < n; c++) {
     const centre = values[c]!;
-    let count = 0;
-    for (let i = 0; i < n; i++) if (Math.abs(values[i]! - centre) <= bandFraction * centre) count++;
+    const halfWidth = bandFraction * centre;
+    // first sorted index with v − centre ≥ −halfWidth, and first with v − centre > halfWidth
+    let from = 0;
+    for (let hi = n; from < hi; ) {
+      const mid = (from + hi) >>> 1;
+      if (sorted[mid]! - centre >= -halfWidth) hi = mid;
+      else from = mid + 1;
+    }
+    let to = 0;
+    for (let hi = n; to < hi; ) {
+      const mid = (to + hi) >>> 1;
+      if (sorted[mid]! - centre > halfWidth) hi = mid;
+      else to = mid + 1;
+    }
+    const count = Math.max(0, to - from);
     if (count >= bestCount) {
       bestCount = count;
       bestCentre = c;

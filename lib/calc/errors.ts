@@ -17,15 +17,21 @@ export class CalcInputError extends RangeError {
   }
 }
 
+/** A finite number greater than zero (what requirePositive accepts). */
+export const isPositive = (value: number): boolean => Number.isFinite(value) && value > 0;
+
+/** A finite number ≥ 0 (what requireNonNegative accepts). */
+export const isNonNegative = (value: number): boolean => Number.isFinite(value) && value >= 0;
+
 /** Throws unless `value` is a finite number greater than zero. Returns it for chaining. */
 export function requirePositive(field: string, value: number): number {
-  if (!Number.isFinite(value) || value <= 0) throw new CalcInputError(field, "a finite number greater than 0", value);
+  if (!isPositive(value)) throw new CalcInputError(field, "a finite number greater than 0", value);
   return value;
 }
 
 /** Throws unless `value` is a finite number ≥ 0. */
 export function requireNonNegative(field: string, value: number): number {
-  if (!Number.isFinite(value) || value < 0) throw new CalcInputError(field, "a finite number ≥ 0", value);
+  if (!isNonNegative(value)) throw new CalcInputError(field, "a finite number ≥ 0", value);
   return value;
 }
 
@@ -35,9 +41,12 @@ export function requireFinite(field: string, value: number): number {
   return value;
 }
 
+/** A finite number with min ≤ value ≤ max (what requireInRange accepts). */
+export const isInRange = (value: number, min: number, max: number): boolean => Number.isFinite(value) && value >= min && value <= max;
+
 /** Throws unless min ≤ value ≤ max. */
 export function requireInRange(field: string, value: number, min: number, max: number): number {
-  if (!Number.isFinite(value) || value < min || value > max) {
+  if (!isInRange(value, min, max)) {
     throw new CalcInputError(field, `a number from ${min} to ${max}`, value);
   }
   return value;

@@ -22,10 +22,11 @@ export interface MannKendallResult {
  * Mann–Kendall test (Mann, Econometrica 13, 1945; Kendall, Rank Correlation Methods, 4th ed., 1970) on x (time) and y.
  * Requires n ≥ 3 and finite values; robust-trend.ts validates before calling.
  */
-export function computeMannKendall(xs: ArrayLike<number>, ys: ArrayLike<number>): MannKendallResult {
+export function computeMannKendall(xs: ArrayLike<number>, ys: ArrayLike<number>, knownXTies?: TieSums): MannKendallResult {
   const n = xs.length;
   const s = computeKendallS(xs, ys);
-  const xTies = measureTies(xs);
+  // A caller that has sorted x already (robust-trend.ts) passes its ties, so x is not sorted twice.
+  const xTies = knownXTies ?? measureTies(xs);
   const yTies = measureTies(ys);
   const varianceS = computeKendallVariance(n, xTies, yTies);
   const z = varianceS > 0 && s !== 0 ? (s - Math.sign(s)) / Math.sqrt(varianceS) : 0;
@@ -63,7 +64,11 @@ export interface TieSums {
 }
 
 export function measureTies(values: ArrayLike<number>): TieSums {
-  const sorted = Float64Array.from(values).sort();
+  return measureSortedTies(Float64Array.from(values).sort());
+}
+
+/** measureTies of values already in ascending order. */
+export function measureSortedTies(sorted: Float64Array): TieSums {
   const sums: TieSums = { pairs: 0, v0: 0, v1: 0, v2: 0 };
   let run = 1;
   for (let i = 1; i <= sorted.length; i++) {

@@ -9,8 +9,8 @@
  */
 import quantile from "@stdlib/stats-base-dists-normal-quantile";
 import { CalcInputError, requireFinite } from "./errors";
-import { computeMannKendall } from "./mann-kendall";
-import { countDistinctXPairs, selectPairwiseSlopes } from "./pairwise-slopes";
+import { computeMannKendall, measureSortedTies, type TieSums } from "./mann-kendall";
+import { selectPairwiseSlopes } from "./pairwise-slopes";
 
 export interface TrendPoint {
   x: number;
@@ -45,7 +45,10 @@ export interface TheilSenTrend {
 interface TrendInput {
   xs: Float64Array;
   ys: Float64Array;
-  /** Pairs with distinct x (countDistinctXPairs), at least one. */
+  /** xs in ascending order, and its groups of tied values (Kendall's variance needs them). */
+  sortedXs: Float64Array;
+  xTies: TieSums;
+  /** Pairs with distinct x: all pairs but those inside a group of tied x (pairwise-slopes.ts countDistinctXPairs); at least one. */
   pairCount: number;
   confidence: number;
 }
@@ -62,13 +65,18 @@ function readTrendInput(points: readonly TrendPoint[], confidence: number): Tren
   const n = points.length;
   const xs = new Float64Array(n);
   const ys = new Float64Array(n);
-  points.forEach((p, i) => {
-    xs[i] = requireFinite(`points[${i}].x`, p.x);
-    ys[i] = requireFinite(`points[${i}].y`, p.y);
-  });
-  const pairCount = countDistinctXPairs(xs);
+  for (let i = 0; i < n; i++) {
+    const { x, y } = points[i]!;
+    // The field's name is spelled out only for a value that fails: two strings per point were a tenth of a cold
+    // dashboard's judgement.
+    xs[i] = Number.isFinite(x) ? x : requireFinite(`points[${i}].x`, x);
+    ys[i] = Number.isFinite(y) ? y : requireFinite(`points[${i}].y`, y);
+  }
+  const sortedXs = Float64Array.from(xs).sort();
+  const xTies = measureSortedTies(sortedXs);
+  const pairCount = (n * (n - 1)) / 2 - xTies.pairs;
   if (pairCount === 0) throw new CalcInputError("points", "at least two different x values", "all x equal");
-  return { xs, ys, pairCount, confidence };
+  return { xs, ys, sortedXs, xTies, pairCount, confidence };
 }
 
 /**
@@ -83,9 +91,9 @@ export function theilSenTrend(
   return fitTrend(readTrendInput(points, confidence));
 }
 
-function fitTrend({ xs, ys, pairCount, confidence }: TrendInput): TheilSenTrend {
+function fitTrend({ xs, ys, sortedXs, xTies, pairCount, confidence }: TrendInput): TheilSenTrend {
   const n = xs.length;
-  const mk = computeMannKendall(xs, ys);
+  const mk = computeMannKendall(xs, ys, xTies);
   // Sen (1968): C = z₁₋α/₂·√Var(S); the bounds are the M₁-th and (M₂+1)-th ordered slopes with
   // M₁ = (N − C)/2 and M₂ = (N + C)/2, rounded to the nearest rank (Gilbert, Statistical Methods for
   // Environmental Pollution Monitoring, 1987, ch. 16, from memory).
@@ -109,7 +117,7 @@ function fitTrend({ xs, ys, pairCount, confidence }: TrendInput): TheilSenTrend 
   return {
     slope,
     intercept: medianInPlace(residuals),
-    xMedian: medianInPlace(xs),
+    xMedian: medianOfSorted(sortedXs),
     slopeLow,
     slopeHigh,
     confidence,
@@ -137,7 +145,7 @@ export type TrendTest = Pick<TheilSenTrend, "n" | "pairCount" | "kendallS" | "va
  */
 export function checkTrendInput(points: readonly TrendPoint[], { confidence = 0.95 }: { confidence?: number } = {}): TheilSenTrend | null {
   const input = readTrendInput(points, confidence);
-  return slopesBoundedFinite(input.xs, input.ys) ? null : fitTrend(input);
+  return slopesBoundedFinite(input) ? null : fitTrend(input);
 }
 
 /**
@@ -147,26 +155,25 @@ export function checkTrendInput(points: readonly TrendPoint[], { confidence = 0.
  */
 export function testTrend(points: readonly TrendPoint[], { confidence = 0.95 }: { confidence?: number } = {}): TrendTest {
   const input = readTrendInput(points, confidence);
-  if (!slopesBoundedFinite(input.xs, input.ys)) {
+  if (!slopesBoundedFinite(input)) {
     const { n, pairCount, kendallS, varianceS, z, pValue, kendallTau } = fitTrend(input);
     return { n, pairCount, kendallS, varianceS, z, pValue, kendallTau, confidence };
   }
-  const mk = computeMannKendall(input.xs, input.ys);
+  const mk = computeMannKendall(input.xs, input.ys, input.xTies);
   return { n: input.xs.length, pairCount: input.pairCount, kendallS: mk.s, varianceS: mk.varianceS, z: mk.z, pValue: mk.pValue, kendallTau: mk.kendallTau, confidence };
 }
 
 /** True when 2·(max y − min y)/(smallest gap between distinct x) is finite (checkTrendInput says why that suffices). */
-function slopesBoundedFinite(xs: Float64Array, ys: Float64Array): boolean {
+function slopesBoundedFinite({ sortedXs, ys }: TrendInput): boolean {
   let yMin = Number.POSITIVE_INFINITY;
   let yMax = Number.NEGATIVE_INFINITY;
   for (const y of ys) {
     if (y < yMin) yMin = y;
     if (y > yMax) yMax = y;
   }
-  const sorted = Float64Array.from(xs).sort();
   let smallestGap = Number.POSITIVE_INFINITY;
-  for (let i = 1; i < sorted.length; i++) {
-    const gap = sorted[i]! - sorted[i - 1]!;
+  for (let i = 1; i < sortedXs.length; i++) {
+    const gap = sortedXs[i]! - sortedXs[i - 1]!;
     if (gap > 0 && gap < smallestGap) smallestGap = gap;
   }
   return Number.isFinite((2 * (yMax - yMin)) / smallestGap);
@@ -221,7 +228,10 @@ export function computeMedian(values: readonly number[]): number {
 
 /** computeMedian of an array of our own, sorted in place (no copy). */
 function medianInPlace(values: Float64Array): number {
-  const sorted = values.sort();
+  return medianOfSorted(values.sort());
+}
+
+function medianOfSorted(sorted: Float64Array): number {
   const mid = sorted.length >> 1;
   return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
 }

@@ -49,7 +49,7 @@ export function sessionHeadrooms(
 
 /** assessMargin's checks and arithmetic (margin.ts): the headroom of a computed margin. */
 function computedHeadroom(field: string, value: number, limit: number, thinBelow: number): number {
-  requireFinite(`${field}.value`, value);
+  if (!Number.isFinite(value)) requireFinite(`${field}.value`, value); // the name only for a value that fails
   if (!Number.isFinite(limit) || limit <= 0) throw new CalcInputError(`${field}.limit`, "a finite limit greater than 0", limit);
   const headroom = 1 - value / limit;
   classifyHeadroom(headroom, thinBelow); // throws where the full margin's status would

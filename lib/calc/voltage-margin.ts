@@ -3,7 +3,7 @@
  * against the switch's voltage rating (V_CEO / V_DSS / V_CES). Volts throughout.
  */
 import { DRIVER_TOPOLOGY_LABELS, type DriverTopology } from "./driver-topology";
-import { CalcInputError, requireInRange, requirePositive } from "./errors";
+import { CalcInputError, isInRange, requireInRange, requirePositive } from "./errors";
 import { DEFAULT_MARGIN_THRESHOLDS, assessMargin, reportUnknownMargin, requireFiniteOrAbsent, type Margin, type MarginInput } from "./margin";
 
 /**
@@ -33,24 +33,28 @@ export function estimatePeakSwitchVoltage(args: {
   factors?: Partial<PeakVoltageFactors>;
 }): { peakVoltageV: number; factor: number; basis: string } {
   const supply = requirePositive("supplyVoltageV", args.supplyVoltageV);
-  const factors: PeakVoltageFactors = { ...PEAK_VOLTAGE_FACTORS, ...args.factors };
-  const pick = (key: keyof PeakVoltageFactors, basis: string) => {
-    const factor = requireInRange(`factors.${key}`, factors[key], 1, 20);
-    return { peakVoltageV: supply * factor, factor, basis };
-  };
+  // Called for every session a dashboard judges: no copy of the table without overrides, and a factor's name is
+  // spelled out only when it fails its range.
+  const factors: PeakVoltageFactors = args.factors === undefined ? PEAK_VOLTAGE_FACTORS : { ...PEAK_VOLTAGE_FACTORS, ...args.factors };
   switch (args.topology) {
     case "single_switch":
       return args.clamped
-        ? pick("singleSwitchClamped", "single switch with a diode clamp into a capacitor bled to the supply")
-        : pick("singleSwitchUnclamped", "unclamped single switch: the turn-off spike rings to several times the supply");
+        ? peakOf(supply, factors, "singleSwitchClamped", "single switch with a diode clamp into a capacitor bled to the supply")
+        : peakOf(supply, factors, "singleSwitchUnclamped", "unclamped single switch: the turn-off spike rings to several times the supply");
     case "push_pull":
-      return pick("pushPull", "push-pull on a centre-tapped primary: twice the supply plus leakage ringing");
+      return peakOf(supply, factors, "pushPull", "push-pull on a centre-tapped primary: twice the supply plus leakage ringing");
     case "half_bridge":
     case "full_bridge":
-      return pick("bridge", "bridge leg: the supply rail plus a small turn-off overshoot");
+      return peakOf(supply, factors, "bridge", "bridge leg: the supply rail plus a small turn-off overshoot");
     default:
       throw new CalcInputError("topology", "single_switch, push_pull, half_bridge or full_bridge", args.topology);
   }
+}
+
+function peakOf(supply: number, factors: PeakVoltageFactors, key: keyof PeakVoltageFactors, basis: string) {
+  const value = factors[key];
+  const factor = isInRange(value, 1, 20) ? value : requireInRange(`factors.${key}`, value, 1, 20);
+  return { peakVoltageV: supply * factor, factor, basis };
 }
 
 /**
