@@ -5,7 +5,7 @@
  * hidden from screen readers or labelled in words). The full reasons and margin tables follow in the health section.
  */
 import Link from "next/link";
-import type { CoilHealth } from "@/lib/calc/coil-health";
+import type { CoilVerdict } from "@/lib/calc/coil-health";
 import type { ClearancePolicyRules } from "@/lib/calc/clearance-policy";
 import type { MarginKind } from "@/lib/calc/margin";
 import type { SessionAnalysis } from "@/lib/analysis/session-analysis";
@@ -30,7 +30,7 @@ export interface SweepThumbnail {
 }
 
 interface Props {
-  health: CoilHealth | null;
+  health: CoilVerdict | null;
   reasons: string[];
   latest: { id: string; startedAt: Date; analysis: SessionAnalysis } | null;
   standing: CoilStanding;

@@ -1,6 +1,6 @@
 /** The coil's health (lib/analysis assessCoil) and the margins of its latest session. */
 import Link from "next/link";
-import type { CoilHealth } from "@/lib/calc/coil-health";
+import type { CoilVerdict } from "@/lib/calc/coil-health";
 import type { SessionAnalysis } from "@/lib/analysis/session-analysis";
 import { formatDateTime, formatPercent } from "@/lib/units/format";
 
@@ -8,7 +8,7 @@ const HEALTH_LABEL: Record<string, string> = { fine: "Fine", watch: "Watch", hol
 const MARGIN_LABEL = { voltage: "Voltage", current: "Current", thermal: "Thermal" } as const;
 const STATUS_LABEL: Record<string, string> = { ok: "OK", thin: "Thin", exceeded: "Exceeded", unknown: "Unknown" };
 
-export function HealthSection({ health, latest }: { health: CoilHealth | null; latest: { id: string; startedAt: Date; analysis: SessionAnalysis } | null }) {
+export function HealthSection({ health, latest }: { health: CoilVerdict | null; latest: { id: string; startedAt: Date; analysis: SessionAnalysis } | null }) {
   return (
     <section aria-labelledby="health">
       <h2 id="health">

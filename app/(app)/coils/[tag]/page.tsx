@@ -5,7 +5,7 @@ import { pageUser } from "@/app/ui/page-guard";
 import { hasRole } from "@/lib/auth/roles";
 import { readCoilPage, type CoilPageRecords } from "@/lib/db/coil-page";
 import type { ClearancePolicyRules } from "@/lib/calc/clearance-policy";
-import { judgeCoil } from "@/lib/analysis/coil-health-input";
+import { judgeCoilFigures } from "@/lib/analysis/coil-health-input";
 import { readCoilComparison } from "@/lib/db/prediction-history";
 import { describeTurnsCount } from "@/lib/validation/coil";
 import { formatDate, formatQuantity } from "@/lib/units/format";
@@ -18,7 +18,7 @@ import { PartsSection } from "./parts-section";
 import { TimelineSection } from "./timeline-section";
 import { RetireTopLoadButton } from "./top-load-forms";
 import { checkMeasuredInductance } from "@/lib/analysis/inductance-plausibility";
-import { collectHeadroomTrend } from "@/lib/analysis/headroom-trend";
+import { collectHeadroomTrendOf } from "@/lib/analysis/headroom-trend";
 import { plotSweepThumbnail } from "@/lib/analysis/sweep-thumbnail";
 import { readCoilStanding } from "@/lib/db/coil-standing";
 import { readSweepThumbnail } from "@/lib/db/sweep-thumbnail";
@@ -31,14 +31,17 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: decodeURIComponent((await params).tag) };
 }
 
-/** Health judged by the one coil judgement under the current lending policy, as the dashboard and the trends page judge it. */
+/**
+ * Health under the current lending policy, judged as the dashboard judges it (judgeCoilFigures: the one coil judgement's
+ * verdict, latest margins and headrooms, without the trend fits and older sessions' notes this page does not show).
+ */
 function assess(history: CoilPageRecords["history"], rules: ClearancePolicyRules) {
-  const { health, reasons, latest, analyzed } = judgeCoil(history, rules, new Date());
+  const { health, reasons, latest, headrooms } = judgeCoilFigures(history, rules, new Date());
   return {
     health,
     reasons,
     latest: latest ? { id: latest.session.id, startedAt: latest.session.startedAt, analysis: latest.analysis } : null,
-    trend: collectHeadroomTrend(analyzed, rules),
+    trend: collectHeadroomTrendOf(headrooms, rules),
   };
 }
 
