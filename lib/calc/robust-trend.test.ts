@@ -211,6 +211,23 @@ describe("testTrend and checkTrendInput (theilSenTrend's test and refusals witho
     expect(fellBack).toBeGreaterThan(0);
   });
 
+  it("give the same answer whatever the order of the points: x already ascending is not sorted again (property)", () => {
+    // Every figure of a fit is a function of the set of points (the slopes, S, the ties and the medians), so the fit of
+    // a time-ordered series, which skips sorting x, must equal the fit of the same points in reverse, which sorts.
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ x: fc.constantFrom(-0, 0, 1, 2, 2, 3.5, 7, 40), y: fc.double({ min: -5, max: 5, noNaN: true }) }), { minLength: 3, maxLength: 30 }),
+        (points) => {
+          // ascending as `<=` sees it: a −0 may follow a 0, which a sort of the x values would put first
+          const ascending = [...points].sort((a, b) => a.x - b.x);
+          const fit = outcome(() => theilSenTrend(ascending));
+          expect(outcome(() => theilSenTrend([...ascending].reverse()))).toStrictEqual(fit);
+        },
+      ),
+      { numRuns: 1000 },
+    );
+  });
+
   it("refuse slopes that overflow as theilSenTrend does, and leave large but finite ones alone", () => {
     // derived: Δy = 2e300 over Δx = 1e-10 is a slope of 2e310, past the largest double (1.8e308)
     const overflowing = [{ x: 0, y: -1e300 }, { x: 1e-10, y: 1e300 }, { x: 2e-10, y: 3e300 }];

@@ -45,7 +45,7 @@ export interface TheilSenTrend {
 interface TrendInput {
   xs: Float64Array;
   ys: Float64Array;
-  /** xs in ascending order, and its groups of tied values (Kendall's variance needs them). */
+  /** xs in ascending order (xs itself when it already is; neither is changed), and its groups of tied values (Kendall's variance needs them). */
   sortedXs: Float64Array;
   xTies: TieSums;
   /** Pairs with distinct x: all pairs but those inside a group of tied x (pairwise-slopes.ts countDistinctXPairs); at least one. */
@@ -72,7 +72,11 @@ function readTrendInput(points: readonly TrendPoint[], confidence: number): Tren
     xs[i] = Number.isFinite(x) ? x : requireFinite(`points[${i}].x`, x);
     ys[i] = Number.isFinite(y) ? y : requireFinite(`points[${i}].y`, y);
   }
-  const sortedXs = Float64Array.from(xs).sort();
+  // A logbook's series come in time order: x already ascending needs no sorted copy (−0 would sort before 0, so a
+  // series holding one is sorted all the same).
+  let ascending = true;
+  for (let i = 0; i < n && ascending; i++) ascending = (i === 0 || xs[i - 1]! <= xs[i]!) && !Object.is(xs[i], -0);
+  const sortedXs = ascending ? xs : Float64Array.from(xs).sort();
   const xTies = measureSortedTies(sortedXs);
   const pairCount = (n * (n - 1)) / 2 - xTies.pairs;
   if (pairCount === 0) throw new CalcInputError("points", "at least two different x values", "all x equal");
