@@ -118,10 +118,11 @@ export async function benchLargeFleetPages(): Promise<void> {
   console.log(
     "  What made the difference (DEVELOPERS.md, Performance): the dashboard reads a stored per-coil summary (health, reasons,\n" +
       "  latest margins, totals; lib/db/coil-summary.ts) kept current by every logbook write, and recomputes only coils written to\n" +
-      "  since, judged under an older policy, or past the moment time alone changes their verdict. Cold, it reads 50 coils' health\n" +
-      "  windows (first 3 + last 60 sessions, index seeks) at a time straight through the driver adapter, judges them and drops\n" +
-      "  them, and stores the summaries in one adapter transaction. The coil page reads that window, not the logbook,\n" +
-      "  and counts its records per table instead of Prisma's relation _count (which grouped all 250 000 sessions). Both pages\n" +
-      "  read through $queryRaw: Prisma 6.19 compiles every query-API call on the main thread (lib/db/raw-read.ts).",
+      "  since, judged under an older policy, or past the moment time alone changes their verdict. Cold, it reads 32 coils' health\n" +
+      "  windows (first 3 + last 60 sessions, index seeks) at a time straight through the driver adapter, judges them as verdicts\n" +
+      "  (older sessions' headrooms only; a trend fitted only where it can raise a finding) and drops them, and stores the\n" +
+      "  summaries in one adapter transaction. The coil page reads that window, not the logbook, and counts its records per table\n" +
+      "  instead of Prisma's relation _count (which grouped all 250 000 sessions). Both pages read raw SQL through the driver\n" +
+      "  adapter (lib/db/adapter-read.ts): Prisma 6.19 compiles every query-API call on the main thread (lib/db/raw-read.ts).",
   );
 }
