@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { addDays } from "./drift-series";
 import { DEFAULT_HEALTH_THRESHOLDS } from "./health-thresholds";
-import { assessMarginDrift } from "./margin-drift";
+import { assessMarginDrift, PROJECTION_HORIZON_DAYS } from "./margin-drift";
 
 const start = new Date("2026-01-05T18:00:00Z");
 const line = (days: number[], at0: number, perDay: number) =>
@@ -46,5 +46,26 @@ describe("assessMarginDrift", () => {
     // 1 − 0.8 = 0.19999999999999996 in floating point: a peak at exactly 80 % of its rating is within 80 %
     const result = assessMarginDrift({ ...base, series: [{ at: start, value: 1 - 0.8 }], now: start, sessionsPerDay: null });
     expect(result.findings.map((f) => f.severity)).toEqual(["watch", "info"]);
+  });
+
+  it("reports a minute but steady fall by its rate alone when its line meets the limit beyond the horizon", () => {
+    // derived: 0.5 − 1e-9·d is significant (every pair falls) and meets 0.2 at d = 3e8, about 820 000 years on: past the
+    // 1 000-year horizon, and past what a Date can hold
+    const result = assessMarginDrift({ ...base, series: line([0, 1, 2, 3, 4, 5, 6, 7], 0.5, -1e-9), now: addDays(start, 7), sessionsPerDay: 1 });
+    expect(result.falling).toBe(true);
+    expect(result.crossing).toBeNull();
+    expect(result.findings.map((f) => [f.severity, f.daysAway])).toEqual([["info", undefined]]);
+    expect(result.findings[0]!.text).toMatch(/^Voltage headroom is falling about [\d.]+ points a month \([^)]*\)\.$/);
+  });
+
+  it("still dates a projection just inside the horizon", () => {
+    // derived: 0.5 − 0.3/(PROJECTION_HORIZON_DAYS + 6)·d meets 0.2 at d = PROJECTION_HORIZON_DAYS + 6, one day inside the
+    // horizon counted from the last reading (day 7)
+    const perDay = -0.3 / (PROJECTION_HORIZON_DAYS + 6);
+    const days = [0, 1, 2, 3, 4, 5, 6, 7];
+    const result = assessMarginDrift({ ...base, series: line(days, 0.5, perDay), now: start, sessionsPerDay: null });
+    expect(result.crossing?.daysAway).toBeCloseTo(PROJECTION_HORIZON_DAYS - 1, 3);
+    expect(result.crossing?.at.getUTCFullYear()).toBe(3026);
+    expect(result.findings[0]!.text).toContain("around ");
   });
 });

@@ -23,6 +23,14 @@ import { projectCrossing } from "./robust-trend";
 /** Allowance when comparing a headroom with its threshold: 0.8 of a rating is "within 80 %" though 1 − 0.8 ≠ 0.2. */
 const HEADROOM_TOLERANCE = 1e-12;
 
+/**
+ * The farthest a projection is dated: 1 000 years. A falling trend whose line meets the limit later still is reported by
+ * its rate alone, as one that never meets it, and a range's far end beyond it reads "never": a date that far out tells a
+ * steward nothing, and past ±100 million days a JavaScript Date cannot hold it at all (a minute but steady fall, say a
+ * logged peak creeping up by microvolts, once made the judgement throw there).
+ */
+export const PROJECTION_HORIZON_DAYS = 365_250;
+
 export interface MarginCrossing extends CrossingWords {
   /** The fitted value at the projection's start (now, or the last session if later). */
   fittedNow: number;
@@ -41,7 +49,7 @@ export interface MarginHealth {
   trend: DriftTrend | null;
   /** Significant and falling (Mann–Kendall p < 1 − confidence, slope < 0). */
   falling: boolean;
-  /** Where a falling trend meets the threshold; null when it is not falling. */
+  /** Where a falling trend meets the threshold; null when it is not falling, or meets it only beyond PROJECTION_HORIZON_DAYS. */
   crossing: MarginCrossing | null;
   findings: HealthFinding[];
 }
@@ -120,10 +128,11 @@ function forecastCrossing(
   const crossing = projectCrossing(trend.fit, threshold, { fromX });
   if (crossing === null) return null;
   const daysAway = crossing.x - fromX;
+  if (!(daysAway <= PROJECTION_HORIZON_DAYS)) return null;
   return {
     at: addDays(trend.origin, crossing.x),
     earliest: addDays(trend.origin, crossing.xEarliest),
-    latest: Number.isFinite(crossing.xLatest) ? addDays(trend.origin, crossing.xLatest) : null,
+    latest: crossing.xLatest - fromX <= PROJECTION_HORIZON_DAYS ? addDays(trend.origin, crossing.xLatest) : null,
     daysAway,
     sessionsAway: sessionsIn(daysAway),
     alreadyReached: false,
