@@ -86,6 +86,26 @@ const session = fc.record({
   fit: storedFit,
 });
 
+/**
+ * A well-kept rig for half the logbooks: a switch and a heat sink fitted before the first session, every rating in range,
+ * one supply voltage and a steady current, running frequency and heat-sink rise (a few per cent of noise). Without it nearly every
+ * logbook had a part no margin can use or a level that wandered by tens of per cent, so "fine" and a falling margin's
+ * projection were never reached.
+ */
+const wellKeptRig = fc.record({
+  voltageRatingV: fc.double({ min: 150, max: 1200, noNaN: true }),
+  continuousCurrentA: fc.double({ min: 20, max: 80, noNaN: true }),
+  peakCurrentA: fc.double({ min: 60, max: 300, noNaN: true }),
+  powerRating25CW: fc.double({ min: 100, max: 400, noNaN: true }),
+  maxJunctionTempC: fc.double({ min: 150, max: 200, noNaN: true }),
+  thermalResistanceJcKPerW: fc.double({ min: 0.1, max: 0.8, noNaN: true }),
+  caseToSinkKPerW: fc.double({ min: 0.1, max: 0.5, noNaN: true }),
+  sinkThermalResistanceKPerW: fc.double({ min: 0.2, max: 1.5, noNaN: true }),
+  supplyVoltageV: fc.constantFrom(24, 48, 120),
+  currentA: fc.double({ min: 0.5, max: 4, noNaN: true }),
+  runningFrequencyHz: fc.double({ min: 280_000, max: 320_000, noNaN: true }),
+});
+
 export interface GeneratedJudgement {
   history: CoilHealthHistory;
   policy: ClearancePolicyRules;
@@ -101,9 +121,14 @@ export const coilHistoryArbitrary: fc.Arbitrary<GeneratedJudgement> = fc
     // The peak voltage creeps up by this many volts a session, so the voltage headroom drifts down.
     peakCreep: fc.double({ min: -0.5, max: 3, noNaN: true }),
     sweeps: fc.array(fc.record({ day: fc.integer({ min: 0, max: 150 }), topLoadId: fc.constantFrom("tl-a", "tl-b", null), hz: fc.option(fc.double({ min: 250_000, max: 330_000, noNaN: true }), { nil: null }) }), { maxLength: 8 }),
-    openFailure: fc.option(fc.record({ day: fc.integer({ min: 0, max: 150 }), mode: fc.constantFrom("over_voltage", "unknown", "thermal") }), { nil: null }),
+    // An open failure holds the coil whatever else it shows, so it comes in one logbook of five.
+    openFailure: fc.oneof(
+      { weight: 4, arbitrary: fc.constant(null) },
+      { weight: 1, arbitrary: fc.record({ day: fc.integer({ min: 0, max: 150 }), mode: fc.constantFrom("over_voltage", "unknown", "thermal") }) },
+    ),
     daysAfterLast: fc.double({ min: 0, max: 120, noNaN: true }),
     thresholds: fc.record({ v: fc.constantFrom(0.2, 0.1, 0.3), c: fc.constantFrom(0.2, 0.15), t: fc.constantFrom(0.2, 0.25) }),
+    wellKept: fc.oneof(fc.constant(null), wellKeptRig),
   })
   .map((g) => {
     const coil = { id: "coil-gen", topology: g.topology, formDiameterM: 0.1, windingLengthM: 0.4, turns: 1000, wireDiameterM: 0.0003, environmentCapacitanceF: null, measuredInductanceH: null } as unknown as Coil;
@@ -129,6 +154,22 @@ export const coilHistoryArbitrary: fc.Arbitrary<GeneratedJudgement> = fc
         } as unknown as Component;
       })
       .sort((a, b) => a.installedAt.getTime() - b.installedAt.getTime() || (a.id < b.id ? -1 : 1));
+    const rig = g.wellKept;
+    if (rig) {
+      const { supplyVoltageV: _v, currentA: _a, runningFrequencyHz: _f, ...ratings } = rig;
+      const fitted = { coilId: coil.id, installedAt: new Date(START - 30 * DAY), removedAt: null, clampVoltageV: null };
+      const none = { voltageRatingV: null, continuousCurrentA: null, peakCurrentA: null, powerRating25CW: null, maxJunctionTempC: null, thermalResistanceJcKPerW: null, caseToSinkKPerW: null, sinkThermalResistanceKPerW: null };
+      components.splice(0, components.length, { ...none, ...ratings, ...fitted, id: "part-switch", kind: "switch", partNumber: "SW", sinkThermalResistanceKPerW: null } as unknown as Component, {
+        ...none,
+        ...fitted,
+        id: "part-sink",
+        kind: "heat_sink",
+        partNumber: "HS",
+        sinkThermalResistanceKPerW: ratings.sinkThermalResistanceKPerW,
+      } as unknown as Component);
+    }
+    // A session's own draws, turned into a few per cent of noise around the well-kept rig's steady levels.
+    const wobble = (value: number, min: number, max: number, fraction: number) => 1 + fraction * ((2 * (value - min)) / (max - min) - 1);
     let at = START;
     const sessions = g.sessions.map((s, i) => {
       at += s.gapHours * 3_600_000;
@@ -136,14 +177,15 @@ export const coilHistoryArbitrary: fc.Arbitrary<GeneratedJudgement> = fc
         id: `s-${String(i).padStart(3, "0")}`,
         coilId: coil.id,
         startedAt: new Date(at),
-        supplyVoltageV: s.supplyVoltageV,
-        supplyCurrentA: s.supplyCurrentA,
+        supplyVoltageV: rig ? rig.supplyVoltageV : s.supplyVoltageV,
+        supplyCurrentA: rig ? rig.currentA * wobble(s.supplyCurrentA, 0.2, 6, 0.03) : s.supplyCurrentA,
         durationS: s.durationS,
         ambientTempC: s.ambientTempC,
         heatSinkStartC: s.ambientTempC,
-        heatSinkEndC: s.heatSinkRiseK === null ? null : s.ambientTempC + s.heatSinkRiseK,
-        runningFrequencyHz: s.runningFrequencyHz,
-        peakSwitchVoltageV: s.peakNoise === null ? null : Math.max(1, s.supplyVoltageV * 2 + g.peakCreep * i + s.peakNoise),
+        heatSinkEndC: s.heatSinkRiseK === null ? null : s.ambientTempC + (rig ? 12 * wobble(s.heatSinkRiseK, -2, 70, 0.05) : s.heatSinkRiseK),
+        runningFrequencyHz: rig && s.runningFrequencyHz !== null ? rig.runningFrequencyHz * wobble(s.runningFrequencyHz, 280_000, 320_000, 0.005) : s.runningFrequencyHz,
+        peakSwitchVoltageV:
+          s.peakNoise === null ? null : rig ? rig.supplyVoltageV * 2 + g.peakCreep * i + s.peakNoise / 10 : Math.max(1, s.supplyVoltageV * 2 + g.peakCreep * i + s.peakNoise),
         dutyCycle: s.dutyCycle,
         outcome: "normal" as const,
         topLoadId: s.topLoadId,
