@@ -94,7 +94,7 @@ export async function benchLargeFleetPages(): Promise<void> {
   const floors = rawFloors(db);
   const dashboard = async () => selectFleetRows(await getFleetOverview(benchScope(null)), fleetQuerySchema.parse({}));
   const cases: [string, () => unknown, () => unknown, { prepare?: () => unknown; rounds?: number; warmUp?: number }, RowKey?][] = [
-    ["fleet dashboard, cold (no summaries)", dashboard, floors.dashboardCold, { prepare: forgetSummaries, rounds: 5, warmUp: 1 }, "dashboardCold"],
+    ["fleet dashboard, cold (no summaries)", dashboard, floors.dashboardCold, { prepare: forgetSummaries, rounds: 9, warmUp: 1 }, "dashboardCold"],
     ["fleet dashboard, warm (summaries current)", dashboard, floors.dashboardWarm, {}, "dashboardWarm"],
     [`coil page (${BUSY_TAG}, 500 sessions)`, () => loadCoilPage(BUSY_TAG), floors.coilPage, {}],
     [`session list (${BUSY_TAG}, page 3)`, () => listSessions(benchScope(null), { coilTag: BUSY_TAG }, { page: 3 }), floors.sessionList, {}],

@@ -21,9 +21,10 @@ export async function medianMs(
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
 
 /**
- * A page against its floor, measured in alternation (page, floor, page, floor…) so that whatever else the machine is
- * doing weighs on both alike; on this shared 2-core machine two separate runs of the same floor differed by ×2.
- * Reports each median and the median of the per-round ratios. `prepare` runs before each page round, untimed.
+ * A page against its floor, measured in alternation so that whatever else the machine is doing weighs on both alike; on
+ * this shared 2-core machine two separate runs of the same floor differed by ×2. The order within a round swaps every
+ * round (page then floor, floor then page), so neither always runs on the caches the other just warmed. Reports each
+ * median and the median of the per-round ratios. `prepare` runs before each page run, untimed.
  */
 export async function pairedMs(
   run: () => unknown,
@@ -44,9 +45,11 @@ export async function pairedMs(
   const floors: number[] = [];
   const ratios: number[] = [];
   for (let i = 0; i < rounds; i++) {
+    const floorFirst = i % 2 === 1;
+    const floorBefore = floorFirst ? await time(floor) : 0;
     await prepare?.();
     const ms = await time(run);
-    const floorMs = await time(floor);
+    const floorMs = floorFirst ? floorBefore : await time(floor);
     runs.push(ms);
     floors.push(floorMs);
     ratios.push(ms / floorMs);
