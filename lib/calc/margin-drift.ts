@@ -27,7 +27,7 @@ const HEADROOM_TOLERANCE = 1e-12;
  * The farthest a projection is dated: 1 000 years. A falling trend whose line meets the limit later still is reported by
  * its rate alone, as one that never meets it, and a range's far end beyond it reads "never": a date that far out tells a
  * steward nothing, and past ±100 million days a JavaScript Date cannot hold it at all (a minute but steady fall, say a
- * logged peak creeping up by microvolts, once made the judgement throw there).
+ * logged peak creeping up by microvolts, is significant and would be dated there, and formatting that date throws).
  */
 export const PROJECTION_HORIZON_DAYS = 365_250;
 
