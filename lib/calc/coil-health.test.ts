@@ -323,7 +323,7 @@ function outcome<T>(call: () => T): { value: T } | { error: string } {
   }
 }
 
-type Quirk = "none" | "sessions at one instant" | "no heat-sink rise at first" | "no heat-sink rise at all" | "far-off frequency baseline" | "open failure" | "tiny time steps";
+type Quirk = "none" | "sessions at one instant" | "no heat-sink rise at first" | "no heat-sink rise at all" | "far-off frequency baseline" | "open failure" | "tiny time steps" | "minute steady fall";
 
 /**
  * Generated logbooks for the verdict: drifts of every kind and size (steady, slow, fast, rising and falling), a variac
@@ -341,7 +341,7 @@ const verdictInputArbitrary = fc
     frequencyDriftPerDay: fc.oneof(fc.constant(0), fc.double({ min: -3e-4, max: 3e-4, noNaN: true })),
     variac: fc.boolean(),
     nowAfterLast: fc.integer({ min: 0, max: 400 }),
-    quirk: fc.constantFrom<Quirk>("none", "none", "none", "sessions at one instant", "no heat-sink rise at first", "no heat-sink rise at all", "far-off frequency baseline", "open failure", "tiny time steps"),
+    quirk: fc.constantFrom<Quirk>("none", "none", "none", "sessions at one instant", "no heat-sink rise at first", "no heat-sink rise at all", "far-off frequency baseline", "open failure", "tiny time steps", "minute steady fall"),
   })
   .map((o): CoilHealthInput => {
     const coil = simulateCoil({
@@ -359,6 +359,8 @@ const verdictInputArbitrary = fc
     if (o.quirk === "tiny time steps") sessions = sessions.map((s, i) => ({ ...s, startedAt: new Date(START.getTime() + i) }));
     if (o.quirk === "no heat-sink rise at first") sessions = sessions.map((s, i) => (i < 3 ? { ...s, heatSinkRiseK: 0 } : s));
     if (o.quirk === "no heat-sink rise at all") sessions = sessions.map((s) => ({ ...s, heatSinkRiseK: 0 }));
+    // significant, and meeting its limit far past the projection horizon (margin-drift.ts)
+    if (o.quirk === "minute steady fall") sessions = sessions.map((s, i) => ({ ...s, voltageHeadroom: 0.5 - 1e-9 * i }));
     return {
       sessions,
       sweeps: coil.sweeps,
